@@ -1,0 +1,34 @@
+import type { Rating, RatingSegment } from './types';
+import { rejectStageAndShift, validateSegments } from './validate';
+
+/** Index of the segment that applies at effective stage h (m): the last one whose breakpoint is ≤ h, else 0. */
+export function segmentIndexAt(segments: readonly RatingSegment[], h_m: number): number {
+  let i = segments.length - 1;
+  while (i > 0 && h_m < segments[i].fromStage_m) i--;
+  return i;
+}
+
+/**
+ * Discharge (m³/s) at gauge height stage_m (m) with an optional stage shift shift_m (m):
+ * Q = C·(stage + shift − e)^b with the segment that applies at stage + shift; 0 at or below the offset.
+ */
+export function dischargeAt(rating: Rating, stage_m: number, shift_m = 0): number {
+  const h = stage_m + shift_m;
+  // h − h is 0 for every finite h and NaN for NaN or ±Infinity: one comparison instead of two calls.
+  if (!(h - h === 0)) rejectStageAndShift('dischargeAt', stage_m, shift_m);
+  const segments = rating.segments;
+  if (segments !== undefined && segments.length === 1) {
+    // Fast path for the common one-segment rating: check the fields inline, allocate nothing.
+    const s = segments[0];
+    const c = s.coefficient;
+    const e = s.offset_m;
+    const b = s.exponent;
+    if (!(c > 0 && c < Infinity && b > 0 && b < Infinity && e - e === 0 && s.fromStage_m - s.fromStage_m === 0)) {
+      validateSegments('dischargeAt', rating);
+    }
+    return h > e ? c * Math.pow(h - e, b) : 0;
+  }
+  validateSegments('dischargeAt', rating);
+  const s = segments[segmentIndexAt(segments, h)];
+  return h > s.offset_m ? s.coefficient * Math.pow(h - s.offset_m, s.exponent) : 0;
+}

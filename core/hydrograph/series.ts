@@ -1,0 +1,168 @@
+// Storm-series types, input checks and gap bridging shared by every hydrograph computation.
+
+/** A discharge record: times (UTC epoch ms, strictly ascending) and discharges (m³/s; NaN marks a gap). */
+export interface Series {
+  time_ms: ArrayLike<number>;
+  discharge_m3s: ArrayLike<number>;
+}
+
+/** The four key points of a storm event, each a time in UTC epoch ms. */
+export interface EventPoints {
+  riseStart_ms: number;
+  peak_ms: number;
+  inflection_ms: number;
+  runoffEnd_ms: number;
+}
+
+/** A run of missing discharges: readings first..last (inclusive indices) are NaN. */
+export interface Gap {
+  first: number;
+  last: number;
+}
+
+/** A checked series: times and discharges as Float64Array (m³/s), gaps filled by linear interpolation. */
+export interface PreparedSeries {
+  time_ms: Float64Array;
+  discharge_m3s: Float64Array;
+  gaps: Gap[];
+  notes: string[];
+}
+
+/** Milliseconds per day. */
+export const MS_PER_DAY = 86_400_000;
+
+/** Checks a series and returns a copy with interior gaps bridged linearly and end gaps held level. */
+export function prepareSeries(series: Series, fn: string): PreparedSeries {
+  if (series === null || typeof series !== 'object' || !series.time_ms || !series.discharge_m3s) {
+    throw new RangeError(`${fn} needs a series with time_ms and discharge_m3s`);
+  }
+  const n = series.time_ms.length;
+  if (n === 0) throw new RangeError(`${fn} needs at least one reading; got an empty series`);
+  if (series.discharge_m3s.length !== n) {
+    throw new RangeError(
+      `${fn} needs as many discharges as times; got ${series.discharge_m3s.length} discharges and ${n} times`,
+    );
+  }
+  const t = new Float64Array(n);
+  const q = new Float64Array(n);
+  let previous = -Infinity;
+  let valid = 0;
+  for (let i = 0; i < n; i++) {
+    const ti = series.time_ms[i];
+    if (!Number.isFinite(ti)) throw new RangeError(`${fn} needs finite times; time_ms[${i}] is ${String(ti)}`);
+    if (!(ti > previous)) {
+      throw new RangeError(
+        `${fn} needs time_ms strictly ascending; reading ${i} (${ti}) is not after reading ${i - 1} (${previous})`,
+      );
+    }
+    previous = ti;
+    t[i] = ti;
+    const qi = series.discharge_m3s[i];
+    if (Number.isNaN(qi)) {
+      q[i] = NaN;
+      continue;
+    }
+    if (!Number.isFinite(qi)) {
+      throw new RangeError(`${fn} needs finite discharges (NaN marks a gap); discharge_m3s[${i}] is ${String(qi)}`);
+    }
+    if (qi < 0) throw new RangeError(`${fn} needs discharge ≥ 0 m³/s; discharge_m3s[${i}] is ${qi}`);
+    q[i] = qi;
+    valid++;
+  }
+  if (valid === 0) throw new RangeError(`${fn} needs at least one reading with a discharge; all ${n} are gaps (NaN)`);
+  const gaps = valid === n ? [] : bridgeGaps(t, q);
+  const notes = gaps.map((g) => gapNote(t, g, n));
+  return { time_ms: t, discharge_m3s: q, gaps, notes };
+}
+
+function bridgeGaps(t: Float64Array, q: Float64Array): Gap[] {
+  const n = q.length;
+  const gaps: Gap[] = [];
+  let i = 0;
+  while (i < n) {
+    if (!Number.isNaN(q[i])) {
+      i++;
+      continue;
+    }
+    let j = i;
+    while (j + 1 < n && Number.isNaN(q[j + 1])) j++;
+    gaps.push({ first: i, last: j });
+    const before = i - 1;
+    const after = j + 1;
+    for (let k = i; k <= j; k++) {
+      if (before < 0) q[k] = q[after];
+      else if (after >= n) q[k] = q[before];
+      else q[k] = q[before] + ((q[after] - q[before]) * (t[k] - t[before])) / (t[after] - t[before]);
+    }
+    i = j + 1;
+  }
+  return gaps;
+}
+
+function gapNote(t: Float64Array, g: Gap, n: number): string {
+  const count = g.last - g.first + 1;
+  const what = `${count} missing discharge${count === 1 ? '' : 's'} (readings ${g.first}–${g.last})`;
+  if (g.first === 0) return `${what} at the start were held at the first available discharge.`;
+  if (g.last === n - 1) return `${what} at the end were held at the last available discharge.`;
+  const hours = (t[g.last + 1] - t[g.first - 1]) / 3_600_000;
+  return `${what} were bridged by a straight line over ${hours.toPrecision(3)} h.`;
+}
+
+/** Checks that an area in km² is a finite number above zero. */
+export function checkArea(area_km2: number, fn: string): number {
+  if (typeof area_km2 !== 'number' || !Number.isFinite(area_km2) || area_km2 <= 0) {
+    throw new RangeError(`${fn} needs a catchment area above 0 km²; got ${String(area_km2)}`);
+  }
+  return area_km2;
+}
+
+/** Checks that key points are finite, inside the series and in order rise ≤ peak ≤ inflection ≤ end. */
+export function checkEventPoints(points: EventPoints, t: Float64Array, fn: string): EventPoints {
+  const names = ['riseStart_ms', 'peak_ms', 'inflection_ms', 'runoffEnd_ms'] as const;
+  const first = t[0];
+  const last = t[t.length - 1];
+  for (const name of names) {
+    const v = points?.[name];
+    if (typeof v !== 'number' || !Number.isFinite(v)) {
+      throw new RangeError(`${fn} needs key point ${name} as a finite time in ms; got ${String(v)}`);
+    }
+    if (v < first || v > last) {
+      throw new RangeError(`${fn} needs key point ${name} inside the series (${first}–${last} ms); got ${v}`);
+    }
+  }
+  for (let k = 1; k < names.length; k++) {
+    if (points[names[k]] < points[names[k - 1]]) {
+      throw new RangeError(
+        `${fn} needs key points in order rise start ≤ peak ≤ inflection ≤ end of runoff; ` +
+          `${names[k]} (${points[names[k]]}) is before ${names[k - 1]} (${points[names[k - 1]]})`,
+      );
+    }
+  }
+  if (!(points.runoffEnd_ms > points.riseStart_ms)) {
+    throw new RangeError(`${fn} needs the end of runoff after the rise start; both are ${points.riseStart_ms} ms`);
+  }
+  return points;
+}
+
+/** Index of the last time ≤ at_ms (−1 when at_ms is before the first time); binary search. */
+export function indexAtOrBefore(t: ArrayLike<number>, at_ms: number): number {
+  let lo = 0;
+  let hi = t.length - 1;
+  if (at_ms < t[0]) return -1;
+  if (at_ms >= t[hi]) return hi;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (t[mid] <= at_ms) lo = mid;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/** Value of y at at_ms by linear interpolation between samples; held level outside the times. */
+export function interpolateAt(t: ArrayLike<number>, y: ArrayLike<number>, at_ms: number): number {
+  const i = indexAtOrBefore(t, at_ms);
+  if (i < 0) return y[0];
+  if (i >= t.length - 1) return y[t.length - 1];
+  const f = (at_ms - t[i]) / (t[i + 1] - t[i]);
+  return y[i] + f * (y[i + 1] - y[i]);
+}

@@ -27,12 +27,13 @@ export interface Preview {
   stop(): Promise<void>;
 }
 
-/** Serves `outDir` (relative to the repo root) with `vite preview` on 127.0.0.1:`port`. */
+/** Serves `outDir` (relative to the repo root) with `vite preview` on 127.0.0.1:`port`.
+ * Avoid ports on the fetch standard's blocked list (4190, 6000, 6665–6669, …): browsers and Node refuse them. */
 export async function startPreview(port: number, outDir = 'dist'): Promise<Preview> {
   const child: ChildProcess = spawn(
     process.execPath,
     [join(ROOT, 'node_modules/vite/bin/vite.js'), 'preview', '--host', '127.0.0.1', '--port', String(port),
-      '--strictPort', '--outDir', outDir],
+      '--strictPort', '--outDir', resolve(ROOT, outDir)],
     { cwd: ROOT, stdio: ['ignore', 'pipe', 'pipe'] },
   );
   const url = `http://127.0.0.1:${port}/`;

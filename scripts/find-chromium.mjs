@@ -1,0 +1,34 @@
+// Finds a Chromium or Chrome for the browser tests; installs Debian's `chromium` when none is found
+// and this is Debian or Ubuntu run as root; otherwise stops with the one line that installs it.
+import { existsSync, readFileSync } from 'node:fs';
+import { spawnSync } from 'node:child_process';
+
+const CANDIDATES = ['/usr/bin/chromium', '/usr/bin/chromium-browser', '/usr/bin/google-chrome', '/usr/bin/google-chrome-stable'];
+
+/** Returns a Chromium path (also exported as CHROMIUM_PATH for the tests), installing one if possible. */
+export function ensureChromium() {
+  const named = process.env.CHROMIUM_PATH;
+  if (named) {
+    if (existsSync(named)) return named;
+    console.error(`CHROMIUM_PATH is set to ${named}, but there is no such file.`);
+    process.exit(1);
+  }
+  let found = CANDIDATES.find((p) => existsSync(p));
+  if (!found) {
+    const osRelease = existsSync('/etc/os-release') ? readFileSync('/etc/os-release', 'utf8') : '';
+    const debianLike = /^(ID|ID_LIKE)=.*\b(debian|ubuntu)\b/m.test(osRelease);
+    const root = typeof process.getuid === 'function' && process.getuid() === 0;
+    if (debianLike && root) {
+      console.log('No Chromium found: installing Debian’s chromium with apt-get…');
+      const update = spawnSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
+      const install = update.status === 0 && spawnSync('apt-get', ['install', '-y', '-qq', 'chromium'], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+      if (install && install.status === 0) found = CANDIDATES.find((p) => existsSync(p));
+    }
+    if (!found) {
+      console.error('The browser tests need Chromium. Install it with:  sudo apt-get install -y chromium   (or set CHROMIUM_PATH)');
+      process.exit(1);
+    }
+  }
+  process.env.CHROMIUM_PATH = found;
+  return found;
+}

@@ -1,0 +1,22 @@
+// `npm test`: install if needed, type-check every tsconfig, run the unit tests, build, then run the
+// browser tests in Chromium against the built app.
+import { spawnSync } from 'node:child_process';
+import { ensureInstall } from './ensure-install.mjs';
+import { ensureChromium } from './find-chromium.mjs';
+
+function step(title, cmd, args) {
+  console.log(`\n▶ ${title}`);
+  const r = spawnSync(cmd, args, { stdio: 'inherit', env: process.env });
+  if (r.status !== 0) {
+    console.error(`\n✗ ${title} failed`);
+    process.exit(r.status ?? 1);
+  }
+}
+const node = process.execPath;
+ensureInstall();
+step('Type-check (core without DOM, web, sw, tests)', 'npm', ['run', '--silent', 'typecheck']);
+step('Unit tests (core, storage)', node, ['node_modules/vitest/vitest.mjs', 'run']);
+step('Build', node, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn']);
+ensureChromium();
+step('Browser tests (Chromium)', node, ['node_modules/vitest/vitest.mjs', 'run', '-c', 'test/browser/vitest.config.ts']);
+console.log('\n✓ All tests passed');

@@ -1,0 +1,134 @@
+// The app shell in Chromium against the built app: service-worker control, offline start, install
+// criteria, a 360×640 layout with no sideways scroll, touch targets and axe-core checks on every area.
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { ARTIFACTS, launchBrowser, ROOT, startPreview, type Browser, type Preview } from './harness';
+import { seriousViolations } from './axe';
+import { FIRST_VISIT_BUDGET_BYTES, measureFirstVisit } from './first-visit';
+
+const AREAS = ['sites', 'record', 'storm', 'data', 'about'];
+let server: Preview;
+let browser: Browser;
+let page: Page;
+
+/** Width and height of a PNG from its IHDR chunk (PNG spec, ISO/IEC 15948 §11.2.2). */
+function pngSize(bytes: Buffer): { width: number; height: number } {
+  expect(bytes.subarray(1, 4).toString('ascii')).toBe('PNG');
+  return { width: bytes.readUInt32BE(16), height: bytes.readUInt32BE(20) };
+}
+
+async function waitForController(p: Page): Promise<void> {
+  await p.waitForFunction(() => !!navigator.serviceWorker.controller, undefined, { timeout: 15_000 });
+}
+
+async function openArea(p: Page, area: string): Promise<void> {
+  await p.locator(`nav[aria-label="Main"] a[href="#/${area}"]`).click();
+  await p.locator('#screen-title').waitFor();
+  await p.waitForFunction((a) => location.hash === `#/${a}`, area);
+}
+
+beforeAll(async () => {
+  server = await startPreview(4181);
+  browser = await launchBrowser();
+  page = await browser.context.newPage();
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+describe('service worker and offline start', () => {
+  it('controls the first visit', async () => {
+    await page.goto(server.url);
+    await waitForController(page);
+    const scope = await page.evaluate(async () => (await navigator.serviceWorker.ready).scope);
+    expect(scope).toBe(server.url);
+  });
+
+  it('starts from the service worker with no network and opens every area', async () => {
+    await browser.context.setOffline(true);
+    try {
+      const res = await page.reload();
+      expect(res?.fromServiceWorker()).toBe(true);
+      await expect(page.locator('nav[aria-label="Main"]').isVisible()).resolves.toBe(true);
+      for (const area of AREAS) await openArea(page, area);
+      await expect(page.locator('.topbar .net').textContent()).resolves.toBe('Offline');
+    } finally {
+      await browser.context.setOffline(false);
+    }
+  });
+});
+
+describe('install criteria', () => {
+  it('has a manifest with the fields and icons an install needs', async () => {
+    const href = await page.locator('link[rel="manifest"]').getAttribute('href');
+    expect(href).toBeTruthy();
+    const manifest = (await page.evaluate(async (h) => (await fetch(h)).json(), href!)) as {
+      name: string; short_name: string; start_url: string; scope: string; display: string;
+      theme_color: string; background_color: string; icons: { src: string; sizes: string; type: string; purpose?: string }[];
+    };
+    expect(manifest.name).toMatch(/Freshet/);
+    expect(manifest.short_name).toBe('Freshet');
+    expect(manifest.start_url).toBeTruthy();
+    expect(manifest.scope).toBeTruthy();
+    expect(manifest.display).toBe('standalone');
+    expect(manifest.theme_color).toMatch(/^#[0-9a-f]{6}$/i);
+    expect(manifest.background_color).toMatch(/^#[0-9a-f]{6}$/i);
+    const pngs = manifest.icons.filter((i) => i.type === 'image/png');
+    for (const icon of pngs) {
+      const [w, h] = icon.sizes.split('x').map(Number);
+      const actual = pngSize(readFileSync(join(ROOT, 'dist', icon.src)));
+      expect(actual, icon.src).toEqual({ width: w, height: h });
+    }
+    expect(pngs.map((i) => i.sizes)).toEqual(expect.arrayContaining(['192x192', '512x512']));
+    expect(pngs.some((i) => i.purpose?.split(' ').includes('maskable'))).toBe(true);
+    expect(manifest.icons.some((i) => i.type === 'image/svg+xml')).toBe(true);
+  });
+});
+
+describe('phone layout and accessibility at 360×640', () => {
+  for (const theme of ['system', 'sunlight', 'night'] as const) {
+    it(`no area scrolls sideways or has serious axe findings (${theme} theme)`, async () => {
+      await page.goto(server.url);
+      await page.evaluate((t) => localStorage.setItem('freshet.theme', t), theme);
+      await page.reload();
+      for (const area of AREAS) {
+        await openArea(page, area);
+        const { scrollWidth, clientWidth } = await page.evaluate(() => ({
+          scrollWidth: document.documentElement.scrollWidth,
+          clientWidth: document.documentElement.clientWidth,
+        }));
+        expect(scrollWidth, `${area} scrolls sideways`).toBeLessThanOrEqual(clientWidth);
+        expect(await seriousViolations(page), `${area} (${theme})`).toEqual([]);
+        if (theme === 'system') await page.screenshot({ path: join(ARTIFACTS, `shell-${area}.png`) });
+      }
+    });
+  }
+
+  it('gives every control a touch target of at least 44 × 44 CSS px', async () => {
+    await page.goto(server.url);
+    for (const area of AREAS) {
+      await openArea(page, area);
+      const small = await page.evaluate(() =>
+        [...document.querySelectorAll<HTMLElement>('button, select, input:not([type=radio]):not([type=checkbox]), nav a, a.button, label.choice')]
+          .filter((el) => el.offsetParent !== null)
+          .map((el) => ({ el: el.outerHTML.slice(0, 80), r: el.getBoundingClientRect() }))
+          .filter(({ r }) => r.width < 44 || r.height < 44)
+          .map(({ el, r }) => `${el} ${r.width}×${r.height}`),
+      );
+      expect(small, area).toEqual([]);
+    }
+  });
+});
+
+describe('first-visit budget', () => {
+  it('loads at most 60 KiB gzip of JS and CSS on the first visit', async () => {
+    const { files, total_gzip_bytes } = await measureFirstVisit(server.url);
+    expect(files.some((f) => f.kind === 'script')).toBe(true);
+    expect(files.some((f) => /uplot/i.test(f.url)), 'uPlot must load only with a plot').toBe(false);
+    expect(total_gzip_bytes).toBeLessThanOrEqual(FIRST_VISIT_BUDGET_BYTES);
+  });
+});

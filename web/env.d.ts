@@ -1,0 +1,2 @@
+/** The app's version string, fixed at build time. */
+declare const __APP_VERSION__: string;

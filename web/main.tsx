@@ -1,0 +1,12 @@
+// Entry point: theme, network watch, service worker, then the app.
+import { render } from 'preact';
+import { App } from './app/App';
+import { applyTheme } from './app/theme';
+import { watchOnline } from './app/online';
+import { startServiceWorker } from './app/updates';
+import './styles.css';
+
+applyTheme();
+watchOnline();
+render(<App />, document.getElementById('app')!);
+startServiceWorker();

@@ -1,0 +1,6 @@
+// Sites screen (being built in the field-screens work).
+import type { ScreenProps } from '../../app/routes';
+
+export default function Sites(_props: ScreenProps) {
+  return <h2 id="screen-title" tabIndex={-1}>Sites</h2>;
+}

@@ -1,0 +1,6 @@
+// Storm screen (being built in the field-screens work).
+import type { ScreenProps } from '../../app/routes';
+
+export default function Storm(_props: ScreenProps) {
+  return <h2 id="screen-title" tabIndex={-1}>Storm</h2>;
+}

@@ -1,1 +1,14 @@
-export {};
+// Records shared by storage and sync: plain-data types, revisions (hybrid logical clock), validation.
+export * from './types';
+export { RecordValidationError, describeValue } from './validation-error';
+export { MAX_TIME_MS, MAX_TEXT_LENGTH } from './checks';
+export { formatRev, parseRev, isRev, nextRev, compareRev, maxRev, REV_MAX_WALL_MS, REV_MAX_COUNTER, type RevParts } from './hlc';
+export { validateEnvelope } from './envelope';
+export { validateSiteBody, isTimeZone } from './validate-site';
+export { validateReadingBody, MAX_ABS_STAGE_M } from './validate-reading';
+export { validateGaugingBody } from './validate-gauging';
+export { validateRatingBody } from './validate-rating';
+export { validateAnalysisBody } from './validate-analysis';
+export { validateDraftBody } from './validate-draft';
+export { validateBody, validateRecord, validateSyncRecord, validateConflictBody, isSyncKind } from './validate-record';
+export { toSyncRecord, fromSyncRecord } from './sync-record';

@@ -1,1 +1,30 @@
-export {};
+// Storm hydrograph analysis: key points, baseflow separation, event summary, unit hydrograph, recession, φ-index.
+export type { Series, EventPoints, Gap } from './series';
+export { runoffDuration_days, findEventPoints, findEventPointsDetailed } from './key-points';
+export type { EventPointOptions, EventPointsDetailed } from './key-points';
+export { findInflection, findInflectionDetailed } from './inflection';
+export type { InflectionOptions, InflectionResult } from './inflection';
+export { LOCAL_FIT_DEGREE } from './local-fit';
+export {
+  inflectionByNewtonPolynomial,
+  forwardDifferences,
+  newtonToPower,
+  defaultNewtonPolynomialNodes,
+} from './newton-polynomial';
+export type { NewtonPolynomialOptions, NewtonPolynomialInflection } from './newton-polynomial';
+export { RECESSION_FIT_READINGS } from './recession-extension';
+export { separateBaseflow, separateBaseflowDetailed } from './separate';
+export type { SeparationMethod, SeparationContext, SeparationResult } from './separate';
+export { defaultLyneHollick } from './filters/lyne-hollick';
+export { BFI_MAX_PRESETS, defaultEckhardt } from './filters/eckhardt';
+export { defaultChapmanMaxwell } from './filters/chapman-maxwell';
+export { defaultSmoothedMinima } from './smoothed-minima';
+export { localMinimumInterval_days } from './local-minimum';
+export { summarizeEvent } from './summary';
+export type { SummaryOptions, EventSummary } from './summary';
+export { unitHydrograph, defaultUnitDepth_mm } from './unit-hydrograph';
+export type { UnitHydrographOptions } from './unit-hydrograph';
+export { recessionConstant } from './recession';
+export type { RecessionFit } from './recession';
+export { phiIndex } from './phi-index';
+export type { PhiIndexResult } from './phi-index';

@@ -4,3 +4,4 @@ export * from './rating/index';
 export * from './gauging/index';
 export * from './hydrograph/index';
 export * from './records/index';
+export * from './demo/index';

@@ -5,3 +5,5 @@ export * from './gauging/index';
 export * from './hydrograph/index';
 export * from './records/index';
 export * from './demo/index';
+export * from './time/index';
+export * from './readings/index';

@@ -1,0 +1,95 @@
+// What a technician should know about a stage reading as it is typed: the discharge from the rating
+// in force (with its shift), and plain warnings that never block saving. [DOMAIN.md §1: trade practice]
+import { dischargeAt, isExtrapolated, shiftAt, zeroFlowStage_m, type DatedShift, type Rating } from '../rating/index';
+import { displayUnit, toDisplay, type UnitSystem } from '../units';
+
+/** Kinds of plausibility warning, one sentence each when shown. */
+export type ReadingWarningCode = 'no-rating' | 'below-zero-flow' | 'extrapolated' | 'jump' | 'future';
+
+/** One plausibility warning: a code for tests and flags, and the sentence shown and stored. */
+export interface ReadingWarning {
+  code: ReadingWarningCode;
+  text: string;
+}
+
+/** What checkReading needs: the stage (m) and time (UTC ms) typed, the clock, the site's limits. */
+export interface ReadingCheckInput {
+  stage_m: number;
+  time_ms: number;
+  /** The device clock, UTC ms (core has no clock of its own). */
+  now_ms: number;
+  /** The site's reading just before time_ms, if any. */
+  previous?: { stage_m: number; time_ms: number };
+  /** Stage change (m) above which a jump from the previous reading is flagged. */
+  jumpLimit_m: number;
+  /** The rating in force at time_ms with its dated shifts, if the site has one. */
+  rating?: { rating: Rating; shifts: readonly DatedShift[] };
+  /** Units for the sentences. */
+  units: UnitSystem;
+}
+
+/** Discharge (m³/s) and shift (m) for the reading, whether it is extrapolated, and the warnings. */
+export interface ReadingCheck {
+  discharge_m3s?: number;
+  shift_m: number;
+  extrapolated: boolean;
+  warnings: ReadingWarning[];
+}
+
+/** A time more than this far ahead of the device clock is flagged as in the future (ms). */
+export const FUTURE_TOLERANCE_MS = 5 * 60_000;
+
+function stageText(stage_m: number, units: UnitSystem): string {
+  return `${toDisplay('stage', stage_m, units).toFixed(units === 'us' ? 2 : 3)} ${displayUnit('stage', units)}`;
+}
+
+function durationText(ms: number): string {
+  const min = Math.round(ms / 60_000);
+  if (min < 90) return `${min} min`;
+  const h = ms / 3_600_000;
+  return h < 48 ? `${h.toFixed(1)} h` : `${(h / 24).toFixed(1)} days`;
+}
+
+/** Checks a stage reading and computes its discharge. Throws RangeError for a non-finite stage or time. */
+export function checkReading(input: ReadingCheckInput): ReadingCheck {
+  const { stage_m, time_ms, now_ms, previous, jumpLimit_m, rating, units } = input;
+  if (!Number.isFinite(stage_m)) throw new RangeError(`checkReading needs a finite stage in m; got ${stage_m}`);
+  if (!Number.isFinite(time_ms)) throw new RangeError(`checkReading needs a finite time in UTC ms; got ${time_ms}`);
+  if (!Number.isFinite(now_ms)) throw new RangeError(`checkReading needs the clock in UTC ms; got ${now_ms}`);
+  if (!(jumpLimit_m > 0)) throw new RangeError(`checkReading needs a jump limit above 0 m; got ${jumpLimit_m}`);
+  const warnings: ReadingWarning[] = [];
+  let discharge_m3s: number | undefined;
+  let shift_m = 0;
+  let extrapolated = false;
+  if (!rating) {
+    warnings.push({ code: 'no-rating', text: 'No rating is in force at this time, so no discharge can be given.' });
+  } else {
+    shift_m = shiftAt(rating.shifts, time_ms, stage_m);
+    discharge_m3s = dischargeAt(rating.rating, stage_m, shift_m);
+    const zero_m = zeroFlowStage_m(rating.rating);
+    if (stage_m + shift_m <= zero_m) {
+      warnings.push({
+        code: 'below-zero-flow',
+        text: `The stage${shift_m ? ' with its shift' : ''} is at or below the zero-flow stage of ${stageText(zero_m, units)}: the discharge is 0.`,
+      });
+    } else if (isExtrapolated(rating.rating, stage_m)) {
+      extrapolated = true;
+      const [lo, hi] = rating.rating.gaugedRange_m!;
+      warnings.push({
+        code: 'extrapolated',
+        text: `The stage is outside the gauged range (${stageText(lo, units)} to ${stageText(hi, units)}): the discharge is extrapolated.`,
+      });
+    }
+  }
+  if (previous && Math.abs(stage_m - previous.stage_m) > jumpLimit_m) {
+    const d = stage_m - previous.stage_m;
+    warnings.push({
+      code: 'jump',
+      text: `The stage ${d > 0 ? 'rose' : 'fell'} ${stageText(Math.abs(d), units)} since the previous reading ${durationText(Math.abs(time_ms - previous.time_ms))} earlier, more than this site's limit of ${stageText(jumpLimit_m, units)}. Check the gauge, and note why if it is right.`,
+    });
+  }
+  if (time_ms > now_ms + FUTURE_TOLERANCE_MS) {
+    warnings.push({ code: 'future', text: `The time is ${durationText(time_ms - now_ms)} ahead of this phone's clock.` });
+  }
+  return { discharge_m3s, shift_m, extrapolated, warnings };
+}

@@ -1,0 +1,2 @@
+// Times in a site's zone: UTC ms inside, wall-clock time at the screen edge.
+export { wallTimeAt, zoneOffset_min, instantOf, toLocalInput, fromLocalInput, toIsoWithOffset, type WallTime } from './zoned';

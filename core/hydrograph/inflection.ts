@@ -56,19 +56,33 @@ export function inflectionOnPrepared(
   if (count < 3 || t.length < 4) {
     return { inflection_ms: 0.5 * (peak_ms + end_ms), bracket_ms: null, halfWidth_ms: h };
   }
-  const slope = new Float64Array(count);
-  const curv = new Float64Array(count);
+  const slope = new Float64Array(count).fill(NaN);
+  const curv = new Float64Array(count).fill(NaN);
+  const shapeAt = (k: number) => {
+    if (Number.isNaN(slope[k])) {
+      const s = localPolynomial(t, q, t[first + k], h);
+      slope[k] = s ? s.slope : 0;
+      curv[k] = s ? s.curvature : 0;
+    }
+  };
+  // Coarse-to-fine: the fit spans 2m + 1 readings, so a stride of about m/2 cannot step over the steepest fall.
+  const stride = Math.max(1, m >> 1);
   let steepest = 0;
-  for (let k = 0; k < count; k++) {
-    const s = localPolynomial(t, q, t[first + k], h);
-    slope[k] = s ? s.slope : 0;
-    curv[k] = s ? s.curvature : 0;
+  for (let k = 0; k < count; k += stride) {
+    shapeAt(k);
+    if (slope[k] < slope[steepest]) steepest = k;
+  }
+  const coarse = steepest;
+  for (let k = Math.max(0, coarse - stride); k <= Math.min(count - 1, coarse + stride); k++) {
+    shapeAt(k);
     if (slope[k] < slope[steepest]) steepest = k;
   }
   const clampTime = (x: number) => Math.min(end_ms, Math.max(peak_ms, x));
   for (let d = 0; d < count; d++) {
     for (const k of d === 0 ? [steepest - 1, steepest] : [steepest - 1 - d, steepest + d]) {
       if (k < 0 || k + 1 >= count) continue;
+      shapeAt(k);
+      shapeAt(k + 1);
       if (curv[k] < 0 && curv[k + 1] >= 0) {
         const a = t[first + k];
         const b = t[first + k + 1];

@@ -54,6 +54,11 @@ export function requireTextList(kind: string, field: string, x: unknown): string
   return x as string[];
 }
 
+/** True when x is a lower-case UUID string such as crypto.randomUUID() gives. */
+export function isUuid(x: unknown): x is string {
+  return typeof x === 'string' && UUID.test(x);
+}
+
 /** Checks a lower-case UUID string such as crypto.randomUUID() gives. */
 export function requireUuid(kind: string, field: string, x: unknown): string {
   if (typeof x !== 'string' || !UUID.test(x)) throw new RecordValidationError(kind, field, 'a lower-case UUID', x);

@@ -7,11 +7,27 @@ export class RecordValidationError extends RangeError {
   /** The record kind being checked, e.g. "reading". */
   readonly kind: string;
 
+  /** What the field needs, in words. */
+  readonly expected: string;
+  /** The offending value, described in words. */
+  readonly got: string;
+
   constructor(kind: string, field: string, expected: string, got: unknown) {
-    super(`${kind} ${field} must be ${expected}; got ${describeValue(got)}`);
+    const gotText = describeValue(got);
+    super(`${kind} ${field} must be ${expected}; got ${gotText}`);
     this.name = 'RecordValidationError';
     this.kind = kind;
     this.field = field;
+    this.expected = expected;
+    this.got = gotText;
+  }
+
+  /** The same refusal with the field path prefixed, e.g. "readings[12]." for one item of a list. */
+  within(prefix: string): RecordValidationError {
+    const e = new RecordValidationError(this.kind, prefix + this.field, this.expected, undefined);
+    e.message = `${this.kind} ${prefix}${this.field} must be ${this.expected}; got ${this.got}`;
+    (e as { got: string }).got = this.got;
+    return e;
   }
 }
 

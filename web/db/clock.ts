@@ -1,0 +1,71 @@
+// The device id and the revision clock. The last revision lives in meta and is read and advanced inside
+// each save's own transaction, so two tabs of one browser never issue the same revision.
+import { maxRev, nextRev } from '../../core/records/index';
+import { withDb } from './connection';
+import { quietly } from './quietly';
+
+let clock: () => number = () => Date.now();
+let lastIssued: string | undefined;
+
+/** The wall clock used for revisions and updated_ms, UTC ms. */
+export function now_ms(): number {
+  return clock();
+}
+
+/** Replaces the wall clock (tests only); undefined restores Date.now. */
+export function setClockForTests(fn: (() => number) | undefined): void {
+  clock = fn ?? (() => Date.now());
+  lastIssued = undefined;
+}
+
+/** What stampInTx needs of a readwrite transaction: its meta store. */
+export interface MetaTx {
+  objectStore(name: 'meta'): { get(key: string): Promise<unknown>; put(value: string, key: string): Promise<unknown> };
+}
+
+/**
+ * Issues the next revision inside tx: reads the device id (creating it on first use) and the last
+ * revision from meta, advances the clock past both it and this tab's memory, and writes it back.
+ */
+export async function stampInTx(tx: MetaTx, at_ms: number): Promise<string> {
+  const meta = tx.objectStore('meta');
+  const [storedDevice, storedLast] = await Promise.all([meta.get('deviceId'), meta.get('lastRev')]);
+  let deviceId: string;
+  if (typeof storedDevice === 'string') deviceId = storedDevice;
+  else {
+    deviceId = crypto.randomUUID();
+    quietly(meta.put(deviceId, 'deviceId'));
+  }
+  const previous = maxRev(typeof storedLast === 'string' ? storedLast : undefined, lastIssued);
+  const rev = nextRev(previous, at_ms, deviceId);
+  quietly(meta.put(rev, 'lastRev'));
+  lastIssued = rev;
+  return rev;
+}
+
+/** This browser profile's device id (a UUID), created and stored on first use. */
+export function deviceId(): Promise<string> {
+  return withDb(async (db) => {
+    const tx = db.transaction('meta', 'readwrite');
+    const meta = tx.objectStore('meta');
+    let id = await meta.get('deviceId');
+    if (typeof id !== 'string') {
+      id = crypto.randomUUID();
+      quietly(meta.put(id, 'deviceId'));
+    }
+    await tx.done;
+    return id;
+  });
+}
+
+/** Records a revision seen from another device, so every later local revision sorts above it. */
+export function observeRev(rev: string): Promise<void> {
+  return withDb(async (db) => {
+    const tx = db.transaction('meta', 'readwrite');
+    const meta = tx.objectStore('meta');
+    const stored = await meta.get('lastRev');
+    const highest = maxRev(typeof stored === 'string' ? stored : undefined, rev);
+    if (highest !== stored && highest !== undefined) quietly(meta.put(highest, 'lastRev'));
+    await tx.done;
+  });
+}

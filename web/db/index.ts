@@ -1,0 +1,21 @@
+// web/db: the only way screens read and write stored records. Every save is validated, written in one
+// transaction and resolves only once durable; deletion is a tombstone that restore undoes.
+export { openFreshetDb, getDb, type FreshetDb } from './connection';
+export { DB_NAME, DB_VERSION, type FreshetDB, type MetaKey, type MetaValues } from './schema';
+export { StorageError, storageMessage, toStorageError, type StorageFailure } from './errors';
+export { onDbEvent, onRecordsChanged, type DbEvent, type RecordsChange } from './events';
+export { storageState, type StorageState } from './persist';
+export { deviceId, observeRev } from './clock';
+export { changedSince, type ReadOptions, type SaveInput } from './records';
+export { saveSite, getSite, deleteSite, restoreSite, listSites } from './sites';
+export { saveReading, getReading, deleteReading, restoreReading, listReadings, latestReading, latestReadings } from './readings';
+export { readingsWithDischarge, type ReadingWithDischarge } from './readings-discharge';
+export {
+  importReadings, DEFAULT_IMPORT_BATCH, type ImportOptions, type ImportProgress, type ImportDuplicate, type ImportResult,
+} from './readings-import';
+export { saveGauging, getGauging, deleteGauging, restoreGauging, listGaugings } from './gaugings';
+export { saveRating, getRating, deleteRating, restoreRating, listRatings, currentRating } from './ratings';
+export { saveAnalysis, getAnalysis, deleteAnalysis, restoreAnalysis, listAnalyses } from './analyses';
+export { saveDraft, getDraft, discardDraft, listDrafts } from './drafts';
+export { saveConflict, dismissConflict, listConflicts } from './conflicts';
+export { getMeta, setMeta } from './meta';

@@ -1,0 +1,28 @@
+// Ratings: each in force from its validFrom_ms until the next one of the same site.
+import type { RatingRecord } from '../../core/records/index';
+import { withDb } from './connection';
+import { getIn, listRange, restoreIn, saveIn, tombstoneIn, type ReadOptions, type SaveInput } from './records';
+
+/** Validates and saves a rating (new id when absent); resolves with the stored record once it is durable. */
+export const saveRating = (rating: SaveInput<RatingRecord>): Promise<RatingRecord> => saveIn('ratings', rating);
+/** The rating with this id, or undefined (tombstones only with includeDeleted). */
+export const getRating = (id: string, options?: ReadOptions): Promise<RatingRecord | undefined> => getIn('ratings', id, options);
+/** Deletes a rating by tombstone; returns the tombstone (undo with restoreRating). */
+export const deleteRating = (id: string): Promise<RatingRecord | undefined> => tombstoneIn('ratings', id);
+/** Undoes deleteRating under a new revision. */
+export const restoreRating = (id: string): Promise<RatingRecord | undefined> => restoreIn('ratings', id);
+
+/** Every rating of a site, oldest validFrom_ms first: the rating history. */
+export function listRatings(siteId: string, options?: ReadOptions): Promise<RatingRecord[]> {
+  return listRange('ratings', 'by-site-from', [siteId, -Infinity], [siteId, Infinity], options);
+}
+
+/** The rating in force at a site at time_ms (UTC ms): the latest validFrom_ms ≤ time_ms that is not deleted. */
+export function currentRating(siteId: string, time_ms: number): Promise<RatingRecord | undefined> {
+  return withDb(async (db) => {
+    const index = db.transaction('ratings').store.index('by-site-from');
+    let cursor = await index.openCursor(IDBKeyRange.bound([siteId, -Infinity], [siteId, time_ms]), 'prev');
+    while (cursor && cursor.value.deleted) cursor = await cursor.continue();
+    return cursor?.value;
+  });
+}

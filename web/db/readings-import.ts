@@ -1,0 +1,154 @@
+// Bulk import of logger readings: validated first, then written in batches inside ONE readwrite
+// transaction (all or nothing), with progress after each batch; (site, source, time) duplicates, already
+// stored or repeated in the input, are reported and skipped.
+import { unwrap } from 'idb';
+import { RecordValidationError, validateReadingBody, type ReadingBody, type ReadingRecord, type ReadingSource } from '../../core/records/index';
+import { withDb } from './connection';
+import { now_ms, stampInTx } from './clock';
+import { StorageError, storageMessage } from './errors';
+import { afterWrite, inTx } from './records';
+
+/** Readings written per batch unless told otherwise. */
+export const DEFAULT_IMPORT_BATCH = 5000;
+
+/** Progress of an import: readings written so far and the number that will be written. */
+export interface ImportProgress {
+  written: number;
+  total: number;
+}
+
+/** How to run an import: progress callback (after each batch), batch size, and a signal that aborts it. */
+export interface ImportOptions {
+  onProgress?: (p: ImportProgress) => void;
+  batchSize?: number;
+  /** Aborting rolls the whole import back: nothing is written. */
+  signal?: AbortSignal;
+}
+
+/** An input reading skipped because its site, source and time are already taken. */
+export interface ImportDuplicate {
+  /** Position in the input list. */
+  index: number;
+  siteId: string;
+  source: ReadingSource;
+  time_ms: number;
+  /** The stored reading it repeats, when it repeats one already on the phone. */
+  existingId?: string;
+  /** The earlier input position it repeats, when it repeats one in the same import. */
+  firstIndex?: number;
+}
+
+/** What an import wrote: the number of readings, the duplicates skipped, and the revision given to all. */
+export interface ImportResult {
+  imported: number;
+  duplicates: ImportDuplicate[];
+  rev: string;
+}
+
+interface Group {
+  siteId: string;
+  source: ReadingSource;
+  min_ms: number;
+  max_ms: number;
+  /** time_ms → input index of the first reading at that time. */
+  times: Map<number, number>;
+}
+
+function abortError(): StorageError {
+  return new StorageError('aborted', 'The import was stopped and nothing was written.');
+}
+
+/**
+ * Imports many readings (e.g. 100,000 from a logger file) in one transaction: every reading is written
+ * or none is. Readings whose (site, source, time) is already stored, or appears earlier in the input,
+ * are reported in `duplicates` and not written. Throws a RecordValidationError naming the first bad
+ * field ("readings[12].stage_m") before writing anything, or a StorageError if the write fails.
+ */
+export async function importReadings(readings: readonly ReadingBody[], options: ImportOptions = {}): Promise<ImportResult> {
+  const batch = Math.max(1, Math.floor(options.batchSize ?? DEFAULT_IMPORT_BATCH));
+  const groups = new Map<string, Group>();
+  const duplicates: ImportDuplicate[] = [];
+  const keep: number[] = [];
+  for (let i = 0; i < readings.length; i++) {
+    const r = readings[i];
+    try {
+      validateReadingBody(r);
+    } catch (e) {
+      throw e instanceof RecordValidationError ? e.within(`readings[${i}].`) : e;
+    }
+    const key = `${r.siteId}\u0000${r.source}`;
+    let g = groups.get(key);
+    if (!g) groups.set(key, (g = { siteId: r.siteId, source: r.source, min_ms: r.time_ms, max_ms: r.time_ms, times: new Map() }));
+    const first = g.times.get(r.time_ms);
+    if (first !== undefined) {
+      duplicates.push({ index: i, siteId: r.siteId, source: r.source, time_ms: r.time_ms, firstIndex: first });
+      continue;
+    }
+    g.times.set(r.time_ms, i);
+    if (r.time_ms < g.min_ms) g.min_ms = r.time_ms;
+    if (r.time_ms > g.max_ms) g.max_ms = r.time_ms;
+    keep.push(i);
+  }
+  if (options.signal?.aborted) throw abortError();
+  const at = now_ms();
+  const ids = keep.map(() => crypto.randomUUID());
+
+  const result = await withDb(async (db) => {
+    const tx = db.transaction(['readings', 'meta'], 'readwrite');
+    return inTx(tx, async () => {
+      const rev = await stampInTx(tx, at);
+      const index = tx.objectStore('readings').index('by-site-source-time');
+      const stored = await Promise.all(
+        [...groups.values()].map((g) => index.getAll(IDBKeyRange.bound([g.siteId, g.source, g.min_ms], [g.siteId, g.source, g.max_ms]))),
+      );
+      const skip = new Set<number>();
+      [...groups.values()].forEach((g, gi) => {
+        for (const old of stored[gi]) {
+          const i = old.deleted ? undefined : g.times.get(old.time_ms);
+          if (i === undefined || skip.has(i)) continue;
+          skip.add(i);
+          duplicates.push({ index: i, siteId: g.siteId, source: g.source, time_ms: old.time_ms, existingId: old.id });
+        }
+      });
+      const toWrite: ReadingRecord[] = [];
+      keep.forEach((i, j) => {
+        if (!skip.has(i)) toWrite.push({ ...readings[i], id: ids[j], rev, updated_ms: at });
+      });
+      await writeInBatches(unwrap(tx.objectStore('readings')), toWrite, batch, options);
+      await tx.done;
+      return { imported: toWrite.length, duplicates: duplicates.sort((a, b) => a.index - b.index), rev };
+    });
+  });
+  if (result.imported > 0) afterWrite(['reading']);
+  return result;
+}
+
+/**
+ * Puts the records batch by batch on the raw store (no promise per put: the hot loop of the import),
+ * keeping two batches in flight so the next is queued while the previous completes.
+ */
+async function writeInBatches(store: IDBObjectStore, records: ReadingRecord[], batch: number, options: ImportOptions): Promise<void> {
+  const total = records.length;
+  const inFlight: { done: Promise<void>; end: number }[] = [];
+  const settle = async (): Promise<void> => {
+    const next = inFlight.shift();
+    if (!next) return;
+    await next.done;
+    options.onProgress?.({ written: next.end, total });
+    if (options.signal?.aborted) throw abortError();
+  };
+  for (let start = 0; start < total; start += batch) {
+    const end = Math.min(total, start + batch);
+    let last!: IDBRequest;
+    for (let i = start; i < end; i++) last = store.put(records[i]);
+    const done = new Promise<void>((resolve, reject) => {
+      last.onsuccess = () => resolve();
+      last.onerror = () => reject(last.error ?? new StorageError('aborted', storageMessage('aborted')));
+    });
+    done.catch(() => undefined);
+    inFlight.push({ done, end });
+    if (inFlight.length >= 2) await settle();
+  }
+  while (inFlight.length > 0) await settle();
+  if (total === 0) options.onProgress?.({ written: 0, total: 0 });
+}

@@ -1,0 +1,40 @@
+// Stage readings: save, get, delete/restore, list by site and time window, latest per site.
+import type { ReadingRecord } from '../../core/records/index';
+import { withDb } from './connection';
+import { getIn, listRange, restoreIn, saveIn, tombstoneIn, type ReadOptions, type SaveInput } from './records';
+
+/** Validates and saves a reading (new id when absent); resolves with the stored record once it is durable. */
+export const saveReading = (reading: SaveInput<ReadingRecord>): Promise<ReadingRecord> => saveIn('readings', reading);
+/** The reading with this id, or undefined (tombstones only with includeDeleted). */
+export const getReading = (id: string, options?: ReadOptions): Promise<ReadingRecord | undefined> => getIn('readings', id, options);
+/** Deletes a reading by tombstone; returns the tombstone (undo with restoreReading), or undefined if already deleted. */
+export const deleteReading = (id: string): Promise<ReadingRecord | undefined> => tombstoneIn('readings', id);
+/** Undoes deleteReading under a new revision. */
+export const restoreReading = (id: string): Promise<ReadingRecord | undefined> => restoreIn('readings', id);
+
+/** Readings of a site with from_ms ≤ time_ms ≤ to_ms (UTC ms), oldest first. */
+export function listReadings(siteId: string, from_ms: number, to_ms: number, options?: ReadOptions): Promise<ReadingRecord[]> {
+  return listRange('readings', 'by-site-time', [siteId, from_ms], [siteId, to_ms], options);
+}
+
+/** The most recent reading of a site that is not deleted, or undefined. */
+export async function latestReading(siteId: string): Promise<ReadingRecord | undefined> {
+  return (await latestReadings([siteId])).get(siteId);
+}
+
+/** The most recent non-deleted reading of each given site, in one read transaction (for the sites list). */
+export function latestReadings(siteIds: readonly string[]): Promise<Map<string, ReadingRecord>> {
+  return withDb(async (db) => {
+    const index = db.transaction('readings').store.index('by-site-time');
+    const found = await Promise.all(
+      siteIds.map(async (siteId) => {
+        let cursor = await index.openCursor(IDBKeyRange.bound([siteId, -Infinity], [siteId, Infinity]), 'prev');
+        while (cursor && cursor.value.deleted) cursor = await cursor.continue();
+        return cursor?.value;
+      }),
+    );
+    const out = new Map<string, ReadingRecord>();
+    found.forEach((r, i) => r && out.set(siteIds[i], r));
+    return out;
+  });
+}

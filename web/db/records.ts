@@ -1,0 +1,163 @@
+// The operations every record store shares: save, get, tombstone, restore, list by index range.
+// Each write is one transaction over the store and meta (for the revision), awaited to tx.done.
+import type { IndexNames } from 'idb';
+import { isUuid, RecordValidationError, validateBody, type RecordKind, type StoredRecords } from '../../core/records/index';
+import type { FreshetDB, RecordStore } from './schema';
+import { withDb } from './connection';
+import { now_ms, stampInTx } from './clock';
+import { StorageError, storageMessage } from './errors';
+import { notifyRecordsChanged } from './events';
+import { requestPersistenceOnce } from './persist';
+import { quietly } from './quietly';
+
+/** The record kind kept in each store. */
+export const KIND_OF_STORE = {
+  sites: 'site',
+  readings: 'reading',
+  gaugings: 'gauging',
+  ratings: 'rating',
+  analyses: 'analysis',
+  drafts: 'draft',
+  conflicts: 'conflict',
+} as const satisfies Record<RecordStore, RecordKind>;
+
+/** The record type kept in store S. */
+export type RecordOf<S extends RecordStore> = StoredRecords[(typeof KIND_OF_STORE)[S]];
+
+/** What a caller passes to save: the fields, with id to overwrite an existing record (rev, updated_ms, deleted are ignored). */
+export type SaveInput<T> = Omit<T, 'id' | 'rev' | 'updated_ms' | 'deleted'> & { id?: string; rev?: string; updated_ms?: number; deleted?: true };
+
+/** Options for reads: tombstones are left out unless includeDeleted is true. */
+export interface ReadOptions {
+  includeDeleted?: boolean;
+}
+
+/** Runs fn inside tx; on any failure aborts tx (so nothing of it is written) and rethrows. */
+export async function inTx<T>(tx: { abort(): void; done: Promise<void> }, fn: () => Promise<T>): Promise<T> {
+  try {
+    return await fn();
+  } catch (e) {
+    try {
+      tx.abort();
+    } catch {
+      // Already finished or aborted: nothing left to undo.
+    }
+    await tx.done.catch(() => undefined);
+    throw e;
+  }
+}
+
+/** After a write is durable: ask for persistent storage (first time) and tell the screens. */
+export function afterWrite(kinds: RecordKind[], ids?: string[]): void {
+  requestPersistenceOnce();
+  notifyRecordsChanged(kinds, ids);
+}
+
+function splitInput(kind: RecordKind, input: object): { id: string | undefined; body: Record<string, unknown> } {
+  const { id, rev: _rev, updated_ms: _updated, deleted: _deleted, ...body } = input as Record<string, unknown>;
+  if (id !== undefined && !isUuid(id)) throw new RecordValidationError(kind, 'id', 'a lower-case UUID or absent for a new record', id);
+  validateBody(kind, body);
+  return { id: id as string | undefined, body };
+}
+
+/** Validates and saves one record in store S: new id when absent, new rev, updated_ms now; resolves when durable. */
+export async function saveIn<S extends RecordStore>(store: S, input: SaveInput<RecordOf<S>>): Promise<RecordOf<S>> {
+  const kind = KIND_OF_STORE[store];
+  const { id: given, body } = splitInput(kind, input);
+  const id = given ?? crypto.randomUUID();
+  const at = now_ms();
+  const saved = await withDb(async (db) => {
+    const tx = db.transaction([store, 'meta'], 'readwrite');
+    return inTx(tx, async () => {
+      const rev = await stampInTx(tx, at);
+      const record = { ...body, id, rev, updated_ms: at } as unknown as RecordOf<S>;
+      quietly(tx.objectStore(store).put(record as FreshetDB[S]['value']));
+      await tx.done;
+      return record;
+    });
+  });
+  afterWrite([kind], [id]);
+  return saved;
+}
+
+/** The record with this id in store S, or undefined; tombstones only with includeDeleted. */
+export async function getIn<S extends RecordStore>(store: S, id: string, options: ReadOptions = {}): Promise<RecordOf<S> | undefined> {
+  const record = (await withDb((db) => db.get(store, id))) as RecordOf<S> | undefined;
+  if (!record || (record.deleted && !options.includeDeleted)) return undefined;
+  return record;
+}
+
+/** Marks or unmarks a record deleted under a new revision; undefined when there is nothing to change. */
+async function setDeleted<S extends RecordStore>(store: S, id: string, deleted: boolean): Promise<RecordOf<S> | undefined> {
+  const kind = KIND_OF_STORE[store];
+  const at = now_ms();
+  const changed = await withDb(async (db) => {
+    const tx = db.transaction([store, 'meta'], 'readwrite');
+    return inTx(tx, async () => {
+      const s = tx.objectStore(store);
+      const existing = (await s.get(id)) as RecordOf<S> | undefined;
+      if (!existing) throw new StorageError('not-found', storageMessage('not-found'));
+      if ((existing.deleted === true) === deleted) {
+        await tx.done;
+        return undefined;
+      }
+      const rev = await stampInTx(tx, at);
+      const { deleted: _was, ...rest } = existing as RecordOf<S> & { deleted?: true };
+      const record = (deleted ? { ...rest, rev, updated_ms: at, deleted: true } : { ...rest, rev, updated_ms: at }) as RecordOf<S>;
+      quietly(s.put(record as FreshetDB[S]['value']));
+      await tx.done;
+      return record;
+    });
+  });
+  if (changed) afterWrite([kind], [id]);
+  return changed;
+}
+
+/** Deletes by tombstone (deleted: true, new rev); returns the tombstone, or undefined when already deleted. */
+export function tombstoneIn<S extends RecordStore>(store: S, id: string): Promise<RecordOf<S> | undefined> {
+  return setDeleted(store, id, true);
+}
+
+/** Undoes a deletion: writes the record again without the tombstone under a new rev; undefined when not deleted. */
+export function restoreIn<S extends RecordStore>(store: S, id: string): Promise<RecordOf<S> | undefined> {
+  return setDeleted(store, id, false);
+}
+
+/** Removes a local-only record outright (drafts, conflicts: they never sync, so no tombstone is needed). */
+export async function removeIn(store: 'drafts' | 'conflicts', id: string): Promise<void> {
+  await withDb(async (db) => {
+    const tx = db.transaction(store, 'readwrite');
+    await inTx(tx, async () => {
+      quietly(tx.objectStore(store).delete(id));
+      await tx.done;
+    });
+  });
+  afterWrite([KIND_OF_STORE[store]], [id]);
+}
+
+/** Records of store S whose index key lies in [lower, upper], in index order; tombstones only with includeDeleted. */
+export async function listRange<S extends RecordStore>(
+  store: S,
+  index: IndexNames<FreshetDB, S>,
+  lower: IDBValidKey,
+  upper: IDBValidKey,
+  options: ReadOptions = {},
+): Promise<RecordOf<S>[]> {
+  const all = (await withDb((db) => db.getAllFromIndex(store, index, IDBKeyRange.bound(lower, upper)))) as RecordOf<S>[];
+  return options.includeDeleted ? all : all.filter((r) => !r.deleted);
+}
+
+/** Every record of store S; tombstones only with includeDeleted. */
+export async function listAll<S extends RecordStore>(store: S, options: ReadOptions = {}): Promise<RecordOf<S>[]> {
+  const all = (await withDb((db) => db.getAll(store))) as RecordOf<S>[];
+  return options.includeDeleted ? all : all.filter((r) => !r.deleted);
+}
+
+/** Records of store S (tombstones included) whose rev sorts after `afterRev`, oldest first: what sync sends. */
+export async function changedSince<S extends 'sites' | 'readings' | 'gaugings' | 'ratings' | 'analyses'>(
+  store: S,
+  afterRev: string | undefined,
+): Promise<RecordOf<S>[]> {
+  const range = afterRev === undefined ? undefined : IDBKeyRange.lowerBound(afterRev, true);
+  return (await withDb((db) => db.getAllFromIndex(store, 'by-rev' as IndexNames<FreshetDB, S>, range))) as RecordOf<S>[];
+}

@@ -1,0 +1,47 @@
+// The whole IndexedDB schema as one type: a wrong store, index or value fails to compile.
+import type { DBSchema } from 'idb';
+import type {
+  AnalysisRecord, ConflictRecord, DraftRecord, GaugingRecord, RatingRecord, ReadingRecord, SiteRecord,
+} from '../../core/records/index';
+
+/** Name of the app's database. */
+export const DB_NAME = 'freshet';
+/** Current schema version: the highest step of the upgrade ladder in upgrade.ts. */
+export const DB_VERSION = 1;
+
+/** Values kept in the meta store, by key: device id, last revision issued, sync cursors. */
+export interface MetaValues {
+  /** This browser profile's device id (a UUID), generated once. */
+  deviceId: string;
+  /** The highest revision this device has issued or seen; the clock continues from it. */
+  lastRev: string;
+  /** Sync cursors, e.g. "cursor:office" → the last revision exchanged with that peer. */
+  [cursor: `cursor:${string}`]: string;
+}
+
+/** Keys of the meta store. */
+export type MetaKey = keyof MetaValues & string;
+
+/** The Freshet database, version 1. */
+export interface FreshetDB extends DBSchema {
+  sites: { key: string; value: SiteRecord; indexes: { 'by-code': string; 'by-rev': string } };
+  readings: {
+    key: string;
+    value: ReadingRecord;
+    indexes: {
+      'by-site-time': [string, number];
+      /** Duplicate checks: a logger import skips a (site, source, time) already stored. */
+      'by-site-source-time': [string, string, number];
+      'by-rev': string;
+    };
+  };
+  gaugings: { key: string; value: GaugingRecord; indexes: { 'by-site-time': [string, number]; 'by-rev': string } };
+  ratings: { key: string; value: RatingRecord; indexes: { 'by-site-from': [string, number]; 'by-rev': string } };
+  analyses: { key: string; value: AnalysisRecord; indexes: { 'by-site-from': [string, number]; 'by-rev': string } };
+  drafts: { key: string; value: DraftRecord; indexes: { 'by-form': string } };
+  conflicts: { key: string; value: ConflictRecord; indexes: { 'by-record': string } };
+  meta: { key: string; value: MetaValues[MetaKey] };
+}
+
+/** Stores that hold records with an envelope (all but meta). */
+export type RecordStore = 'sites' | 'readings' | 'gaugings' | 'ratings' | 'analyses' | 'drafts' | 'conflicts';

@@ -1,0 +1,33 @@
+// The cumulative upgrade ladder. Never edit a released step: add `if (oldVersion < N)` below it, and a
+// test that opens a database written by version N − 1 and finds every record intact.
+import type { IDBPDatabase, IDBPTransaction, StoreNames } from 'idb';
+import type { FreshetDB } from './schema';
+
+/** Brings a database from oldVersion (0 when new) up to DB_VERSION inside the versionchange transaction. */
+export function upgradeFreshetDb(
+  db: IDBPDatabase<FreshetDB>,
+  oldVersion: number,
+  _tx: IDBPTransaction<FreshetDB, StoreNames<FreshetDB>[], 'versionchange'>,
+): void {
+  if (oldVersion < 1) {
+    const sites = db.createObjectStore('sites', { keyPath: 'id' });
+    sites.createIndex('by-code', 'code');
+    sites.createIndex('by-rev', 'rev');
+    const readings = db.createObjectStore('readings', { keyPath: 'id' });
+    readings.createIndex('by-site-time', ['siteId', 'time_ms']);
+    readings.createIndex('by-site-source-time', ['siteId', 'source', 'time_ms']);
+    readings.createIndex('by-rev', 'rev');
+    const gaugings = db.createObjectStore('gaugings', { keyPath: 'id' });
+    gaugings.createIndex('by-site-time', ['siteId', 'time_ms']);
+    gaugings.createIndex('by-rev', 'rev');
+    const ratings = db.createObjectStore('ratings', { keyPath: 'id' });
+    ratings.createIndex('by-site-from', ['siteId', 'validFrom_ms']);
+    ratings.createIndex('by-rev', 'rev');
+    const analyses = db.createObjectStore('analyses', { keyPath: 'id' });
+    analyses.createIndex('by-site-from', ['siteId', 'from_ms']);
+    analyses.createIndex('by-rev', 'rev');
+    db.createObjectStore('drafts', { keyPath: 'id' }).createIndex('by-form', 'form');
+    db.createObjectStore('conflicts', { keyPath: 'id' }).createIndex('by-record', 'recordId');
+    db.createObjectStore('meta');
+  }
+}

@@ -8,6 +8,13 @@ export function segmentIndexAt(segments: readonly RatingSegment[], h_m: number):
   return i;
 }
 
+function dischargeMultiSegment(rating: Rating, h: number): number {
+  validateSegments('dischargeAt', rating);
+  const segments = rating.segments;
+  const s = segments[segmentIndexAt(segments, h)];
+  return h > s.offset_m ? s.coefficient * Math.pow(h - s.offset_m, s.exponent) : 0;
+}
+
 /**
  * Discharge (m³/s) at gauge height stage_m (m) with an optional stage shift shift_m (m):
  * Q = C·(stage + shift − e)^b with the segment that applies at stage + shift; 0 at or below the offset.
@@ -17,18 +24,15 @@ export function dischargeAt(rating: Rating, stage_m: number, shift_m = 0): numbe
   // h − h is 0 for every finite h and NaN for NaN or ±Infinity: one comparison instead of two calls.
   if (!(h - h === 0)) rejectStageAndShift('dischargeAt', stage_m, shift_m);
   const segments = rating.segments;
-  if (segments !== undefined && segments.length === 1) {
-    // Fast path for the common one-segment rating: check the fields inline, allocate nothing.
-    const s = segments[0];
-    const c = s.coefficient;
-    const e = s.offset_m;
-    const b = s.exponent;
-    if (!(c > 0 && c < Infinity && b > 0 && b < Infinity && e - e === 0 && s.fromStage_m - s.fromStage_m === 0)) {
-      validateSegments('dischargeAt', rating);
-    }
-    return h > e ? c * Math.pow(h - e, b) : 0;
+  // Everything but the one-segment case goes out of line, so this stays small enough to be inlined.
+  if (segments === undefined || segments.length !== 1) return dischargeMultiSegment(rating, h);
+  const s = segments[0];
+  const c = s.coefficient;
+  const e = s.offset_m;
+  const b = s.exponent;
+  // One-segment fast path: check the fields inline (NaN fails every comparison), allocate nothing.
+  if (!(c > 0 && c < Infinity && b > 0 && b < Infinity && e - e === 0 && s.fromStage_m - s.fromStage_m === 0)) {
+    validateSegments('dischargeAt', rating);
   }
-  validateSegments('dischargeAt', rating);
-  const s = segments[segmentIndexAt(segments, h)];
-  return h > s.offset_m ? s.coefficient * Math.pow(h - s.offset_m, s.exponent) : 0;
+  return h > e ? c * Math.pow(h - e, b) : 0;
 }

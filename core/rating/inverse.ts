@@ -14,18 +14,17 @@ export function stageAt(rating: Rating, discharge_m3s: number, shift_m = 0): num
   }
   const segments = rating.segments;
   if (discharge_m3s === 0) return segments[0].offset_m - shift_m;
-  for (let i = 0; i < segments.length; i++) {
+  // Each segment is strictly increasing, so the target lies in the first one whose top value exceeds it;
+  // the top segment is unbounded above.
+  let i = 0;
+  for (; i < segments.length - 1; i++) {
     const s = segments[i];
-    const last = i === segments.length - 1;
-    if (!last) {
-      const top = segments[i + 1].fromStage_m;
-      const qTop = top > s.offset_m ? s.coefficient * Math.pow(top - s.offset_m, s.exponent) : 0;
-      // Each segment is strictly increasing, so the target lies in this one when it is below its top value.
-      if (!(discharge_m3s < qTop)) continue;
-    }
-    const h = s.offset_m + Math.pow(discharge_m3s / s.coefficient, 1 / s.exponent);
-    const bottom = i === 0 ? -Infinity : s.fromStage_m;
-    return Math.max(h, bottom) - shift_m;
+    const top = segments[i + 1].fromStage_m;
+    const qTop = top > s.offset_m ? s.coefficient * Math.pow(top - s.offset_m, s.exponent) : 0;
+    if (discharge_m3s < qTop) break;
   }
-  throw new RangeError('stageAt found no segment for the discharge; the rating must have at least one segment');
+  const s = segments[i];
+  const h = s.offset_m + Math.pow(discharge_m3s / s.coefficient, 1 / s.exponent);
+  const bottom = i === 0 ? -Infinity : s.fromStage_m;
+  return Math.max(h, bottom) - shift_m;
 }

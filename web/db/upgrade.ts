@@ -1,15 +1,19 @@
 // The cumulative upgrade ladder. Never edit a released step: add `if (oldVersion < N)` below it, and a
 // test that opens a database written by version N − 1 and finds every record intact.
 import type { IDBPDatabase, IDBPTransaction, StoreNames } from 'idb';
-import type { FreshetDB } from './schema';
+import { DB_VERSION, type FreshetDB } from './schema';
 
-/** Brings a database from oldVersion (0 when new) up to DB_VERSION inside the versionchange transaction. */
+/**
+ * Brings a database from oldVersion (0 when new) up to `target` (DB_VERSION; tests pass an older
+ * version to build the database an earlier release wrote) inside the versionchange transaction.
+ */
 export function upgradeFreshetDb(
   db: IDBPDatabase<FreshetDB>,
   oldVersion: number,
   _tx: IDBPTransaction<FreshetDB, StoreNames<FreshetDB>[], 'versionchange'>,
+  target: number = DB_VERSION,
 ): void {
-  if (oldVersion < 1) {
+  if (oldVersion < 1 && target >= 1) {
     const sites = db.createObjectStore('sites', { keyPath: 'id' });
     sites.createIndex('by-code', 'code');
     sites.createIndex('by-rev', 'rev');

@@ -61,7 +61,8 @@ export function findEventPointsDetailed(series: Series, options?: EventPointOpti
     } else {
       notes.push(`The end of runoff is the peak + N = 0.827·A^0.2 = ${days.toPrecision(3)} days.`);
     }
-    const inflection = inflectionOnPrepared(t, q, t[peak], end_ms).inflection_ms;
+    const searchEnd = Math.min(end_ms, t[fallEnd]);
+    const inflection = inflectionOnPrepared(t, q, t[peak], searchEnd).inflection_ms;
     return { points: { riseStart_ms: t[rise], peak_ms: t[peak], inflection_ms: inflection, runoffEnd_ms: end_ms }, notes };
   }
   const inflection = inflectionOnPrepared(t, q, t[peak], t[fallEnd]).inflection_ms;

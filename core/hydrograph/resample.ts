@@ -7,15 +7,6 @@ export interface RegularRecord {
   step_ms: number;
 }
 
-/** True when every interval equals the first within one part in a million. */
-export function isRegular(t: Float64Array): boolean {
-  if (t.length < 3) return true;
-  const step = t[1] - t[0];
-  const tol = 1e-6 * step;
-  for (let i = 2; i < t.length; i++) if (Math.abs(t[i] - t[i - 1] - step) > tol) return false;
-  return true;
-}
-
 /** Median interval (ms) between consecutive times. */
 export function medianInterval_ms(t: Float64Array): number {
   if (t.length < 2) return 0;

@@ -7,7 +7,7 @@ import { eckhardt } from './filters/eckhardt';
 import { defaultLyneHollick, lyneHollick } from './filters/lyne-hollick';
 import { findEventPointsDetailed } from './key-points';
 import { localMinimum, localMinimumInterval_days } from './local-minimum';
-import { interpolateOnto, isRegular, medianInterval_ms, resampleRegular } from './resample';
+import { interpolateOnto, medianInterval_ms, resampleRegular } from './resample';
 import { checkArea, checkEventPoints, prepareSeries, type EventPoints, type PreparedSeries, type Series } from './series';
 import { defaultSmoothedMinima, smoothedMinima } from './smoothed-minima';
 import { straightLine } from './straight-line';
@@ -163,6 +163,10 @@ function recursiveFilter(
   const maxBridge = context?.maxBridge_ms ?? 5 * grid.step_ms;
   positive(maxBridge, 'maxBridge_ms');
   const pieces: Piece[] = splitAtLongGaps(prepared, grid.time_ms, maxBridge, name, notes);
+  if (pieces.length === 1 && grid.time_ms === t) {
+    // The filters keep 0 ≤ b ≤ Q themselves: on a regular record in one piece their output is the answer.
+    return { baseflow: filter(q), notes };
+  }
   const gridB = new Float64Array(grid.time_ms.length);
   let previousEnd = -1;
   for (const piece of pieces) {
@@ -194,7 +198,7 @@ function minimaMethod(
 function regularGrid(prepared: PreparedSeries, name: string, notes: string[]) {
   const { time_ms: t, discharge_m3s: q } = prepared;
   if (t.length < 2) throw new RangeError(`${FN} needs at least 2 readings for ${name}; got ${t.length}`);
-  if (isRegular(t)) return { time_ms: t, discharge_m3s: q, step_ms: t[1] - t[0] };
+  if (prepared.regular) return { time_ms: t, discharge_m3s: q, step_ms: t[1] - t[0] };
   const grid = resampleRegular(t, q, medianInterval_ms(t));
   notes.push(
     `The readings are irregular: ${t.length} readings were resampled by linear interpolation to ` +

@@ -20,18 +20,20 @@ export interface Gap {
   last: number;
 }
 
-/** A checked series: times and discharges as Float64Array (m³/s), gaps filled by linear interpolation. */
+/** A checked series: times (ms) and discharges (m³/s) as Float64Array, gaps filled by linear interpolation; may share the caller's arrays, never written to when shared. */
 export interface PreparedSeries {
   time_ms: Float64Array;
   discharge_m3s: Float64Array;
   gaps: Gap[];
   notes: string[];
+  /** True when every interval equals the others within one part in a million. */
+  regular: boolean;
 }
 
 /** Milliseconds per day. */
 export const MS_PER_DAY = 86_400_000;
 
-/** Checks a series and returns a copy with interior gaps bridged linearly and end gaps held level. */
+/** Checks a series; returns it as Float64Arrays with interior gaps bridged linearly and end gaps held level. */
 export function prepareSeries(series: Series, fn: string): PreparedSeries {
   if (series === null || typeof series !== 'object' || !series.time_ms || !series.discharge_m3s) {
     throw new RangeError(`${fn} needs a series with time_ms and discharge_m3s`);
@@ -43,36 +45,67 @@ export function prepareSeries(series: Series, fn: string): PreparedSeries {
       `${fn} needs as many discharges as times; got ${series.discharge_m3s.length} discharges and ${n} times`,
     );
   }
-  const t = new Float64Array(n);
-  const q = new Float64Array(n);
+  const tIn = series.time_ms;
+  const qIn = series.discharge_m3s;
+  // The caller's Float64Arrays are used as they are (core never writes to them); anything else is copied.
+  const t = tIn instanceof Float64Array ? tIn : Float64Array.from(tIn);
+  const scan = quickScan(t, qIn);
+  let valid = n;
+  if (!scan.clean) valid = slowScan(t, qIn, fn);
+  const stepMin = scan.stepMin;
+  const stepMax = scan.stepMax;
+  if (valid === 0) throw new RangeError(`${fn} needs at least one reading with a discharge; all ${n} are gaps (NaN)`);
+  const q = valid === n && qIn instanceof Float64Array ? qIn : Float64Array.from(qIn);
+  const regular = n < 3 || stepMax - stepMin <= 1e-6 * stepMin;
+  const gaps = valid === n ? [] : bridgeGaps(t, q);
+  const notes = gaps.map((g) => gapNote(t, g, n));
+  return { time_ms: t, discharge_m3s: q, gaps, notes, regular };
+}
+
+/** One quick pass: clean when times are finite and ascending and every discharge is finite and ≥ 0. */
+function quickScan(t: Float64Array, q: ArrayLike<number>): { clean: boolean; stepMin: number; stepMax: number } {
+  const n = t.length;
+  let ok = t[0] > -Infinity && t[0] < Infinity && q[0] >= 0 && q[0] < Infinity;
+  let stepMin = Infinity;
+  let stepMax = 0;
+  let previous = t[0];
+  for (let i = 1; i < n; i++) {
+    const ti = t[i];
+    const qi = q[i];
+    const step = ti - previous;
+    if (!(step > 0 && ti < Infinity && qi >= 0 && qi < Infinity)) ok = false;
+    stepMin = step < stepMin ? step : stepMin;
+    stepMax = step > stepMax ? step : stepMax;
+    previous = ti;
+  }
+  return { clean: ok, stepMin, stepMax };
+}
+
+/** The detailed pass when the quick one found something: throws on bad input, else counts valid discharges. */
+function slowScan(t: Float64Array, q: ArrayLike<number>, fn: string): number {
   let previous = -Infinity;
   let valid = 0;
-  for (let i = 0; i < n; i++) {
-    const ti = series.time_ms[i];
-    if (!Number.isFinite(ti)) throw new RangeError(`${fn} needs finite times; time_ms[${i}] is ${String(ti)}`);
-    if (!(ti > previous)) {
+  for (let i = 0; i < t.length; i++) {
+    const ti = t[i];
+    if (!(ti > previous) || ti === Infinity) {
+      if (!Number.isFinite(ti)) throw new RangeError(`${fn} needs finite times; time_ms[${i}] is ${String(ti)}`);
       throw new RangeError(
         `${fn} needs time_ms strictly ascending; reading ${i} (${ti}) is not after reading ${i - 1} (${previous})`,
       );
     }
     previous = ti;
-    t[i] = ti;
-    const qi = series.discharge_m3s[i];
-    if (Number.isNaN(qi)) {
-      q[i] = NaN;
+    const qi = q[i];
+    if (qi >= 0 && qi !== Infinity) {
+      valid++;
       continue;
     }
-    if (!Number.isFinite(qi)) {
+    if (Number.isNaN(qi)) continue;
+    if (typeof qi !== 'number' || !Number.isFinite(qi)) {
       throw new RangeError(`${fn} needs finite discharges (NaN marks a gap); discharge_m3s[${i}] is ${String(qi)}`);
     }
-    if (qi < 0) throw new RangeError(`${fn} needs discharge ≥ 0 m³/s; discharge_m3s[${i}] is ${qi}`);
-    q[i] = qi;
-    valid++;
+    throw new RangeError(`${fn} needs discharge ≥ 0 m³/s; discharge_m3s[${i}] is ${qi}`);
   }
-  if (valid === 0) throw new RangeError(`${fn} needs at least one reading with a discharge; all ${n} are gaps (NaN)`);
-  const gaps = valid === n ? [] : bridgeGaps(t, q);
-  const notes = gaps.map((g) => gapNote(t, g, n));
-  return { time_ms: t, discharge_m3s: q, gaps, notes };
+  return valid;
 }
 
 function bridgeGaps(t: Float64Array, q: Float64Array): Gap[] {

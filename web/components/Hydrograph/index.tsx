@@ -15,6 +15,13 @@ export interface PlotLine {
   fill?: string;
 }
 
+/** A labelled vertical line at a time (UTC ms), e.g. a key point of a storm event. */
+export interface PlotMarker {
+  time_ms: number;
+  /** A short label drawn at the top of the line (one or two characters read best). */
+  label: string;
+}
+
 /** Props: times (UTC ms), lines, the y-axis label with its unit, the site's zone, height in CSS px. */
 export interface HydrographProps {
   time_ms: ArrayLike<number>;
@@ -26,6 +33,8 @@ export interface HydrographProps {
   logScale?: boolean;
   /** Text for screen readers, summarising what the plot shows. */
   description: string;
+  /** Optional vertical lines at given times; changing them redraws without rebuilding the plot. */
+  markers?: PlotMarker[];
 }
 
 function cssVar(name: string, fallback: string): string {
@@ -41,7 +50,32 @@ function toData(props: HydrographProps): uPlot.AlignedData {
   return [xs as unknown as number[], ...ys];
 }
 
-function makeOptions(props: HydrographProps, width: number): uPlot.Options {
+/** Draws the markers as dashed vertical lines with their labels, in canvas pixels. */
+function drawMarkers(u: uPlot, markers: readonly PlotMarker[] | undefined): void {
+  if (!markers || markers.length === 0) return;
+  const { ctx, bbox } = u;
+  const px = uPlot.pxRatio;
+  ctx.save();
+  ctx.strokeStyle = cssVar('--muted', '#4a5358');
+  ctx.fillStyle = cssVar('--text', '#15191c');
+  ctx.lineWidth = 1.5 * px;
+  ctx.setLineDash([4 * px, 3 * px]);
+  ctx.font = `600 ${12 * px}px system-ui, sans-serif`;
+  ctx.textAlign = 'center';
+  ctx.textBaseline = 'top';
+  for (const m of markers) {
+    const x = u.valToPos(m.time_ms / 1000, 'x', true);
+    if (!Number.isFinite(x) || x < bbox.left || x > bbox.left + bbox.width) continue;
+    ctx.beginPath();
+    ctx.moveTo(x, bbox.top + 14 * px);
+    ctx.lineTo(x, bbox.top + bbox.height);
+    ctx.stroke();
+    ctx.fillText(m.label, x, bbox.top);
+  }
+  ctx.restore();
+}
+
+function makeOptions(props: HydrographProps, width: number, markers: () => PlotMarker[] | undefined): uPlot.Options {
   const text = cssVar('--text', '#15191c');
   const grid = cssVar('--line', '#c9c4b8');
   const palette = [cssVar('--accent', '#0a6d8c'), cssVar('--warn-line', '#a15c00'), cssVar('--bad-line', '#b3261e')];
@@ -51,6 +85,7 @@ function makeOptions(props: HydrographProps, width: number): uPlot.Options {
     height: props.height ?? 200,
     tzDate: (ts) => uPlot.tzDate(new Date(ts * 1000), props.timeZone),
     cursor: { drag: { x: false, y: false } },
+    hooks: { draw: [(u) => drawMarkers(u, markers())] },
     legend: { show: true, live: true },
     scales: { x: { time: true }, y: props.logScale ? { distr: 3 } : { range: (_u, min, max) => [Math.min(0, min), max > 0 ? max * 1.05 : 1] } },
     axes: [{ ...axis }, { ...axis, label: props.yLabel, size: 56 }],
@@ -73,10 +108,13 @@ function makeOptions(props: HydrographProps, width: number): uPlot.Options {
 export function Hydrograph(props: HydrographProps) {
   const host = useRef<HTMLDivElement>(null);
   const plot = useRef<uPlot | undefined>(undefined);
+  // Read by the draw hook, so new markers need only a redraw, not a new plot.
+  const markers = useRef(props.markers);
+  markers.current = props.markers;
   const shape = `${props.lines.map((l) => l.label).join('|')}|${props.yLabel}|${props.logScale}|${props.timeZone}`;
   useEffect(() => {
     const el = host.current!;
-    const u = new uPlot(makeOptions(props, el.clientWidth || 320), toData(props), el);
+    const u = new uPlot(makeOptions(props, el.clientWidth || 320, () => markers.current), toData(props), el);
     plot.current = u;
     const resize = new ResizeObserver(() => u.setSize({ width: el.clientWidth || 320, height: props.height ?? 200 }));
     resize.observe(el);
@@ -89,6 +127,9 @@ export function Hydrograph(props: HydrographProps) {
   useEffect(() => {
     plot.current?.setData(toData(props));
   }, [props.time_ms, props.lines]);
+  useEffect(() => {
+    plot.current?.redraw(false);
+  }, [props.markers]);
   return (
     <figure class="hydrograph">
       <div ref={host} role="img" aria-label={props.description} />

@@ -4,7 +4,7 @@ import { Cautions } from '../../components/Cautions';
 import { checkForUpdate, offlineReady, updateStatus } from '../../app/updates';
 import { themeChoice, type ThemeChoice } from '../../app/theme';
 import { useStore } from '../../store';
-import { storageState, type StorageState } from '../../app/storage-state';
+import { storageState, type StorageState } from '../../db';
 
 function formatBytes(bytes: number): string {
   if (bytes < 1024) return `${bytes} B`;

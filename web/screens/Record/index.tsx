@@ -1,6 +1,364 @@
-// Record screen (being built in the field-screens work).
+// Record a stage reading in a few taps: a big stage field, the time (now, or edited in the site's
+// zone), source, quality, observer, note and an optional location. The discharge from the rating in
+// force appears as the stage is typed, with plain warnings that never block saving. A half-filled form
+// is kept as a draft on every change and restored when the app reopens.
+import { useEffect, useMemo, useReducer, useRef, useState } from 'preact/hooks';
+import {
+  checkReading, fromDisplay, fromLocalInput, displayUnit, READING_QUALITIES, READING_SOURCES, RecordValidationError,
+  toDisplay, toLocalInput, type ReadingQuality, type ReadingSource, type SiteRecord,
+} from '../../../core';
+import { currentRating, discardDraft, getReading, getSite, listDrafts, listReadings, listSites, saveDraft, saveReading, StorageError } from '../../db';
 import type { ScreenProps } from '../../app/routes';
+import { onBeforeUpdate } from '../../app/updates';
+import { useRecords } from '../../app/use-records';
+import { Cautions } from '../../components/Cautions';
+import { describedBy, Field } from '../../components/Field';
+import { formatQuantity, formatTime, parseDecimal } from '../../format';
+import { href, navigate } from '../../router';
+import { blankForm, formOfReading, formReducer, fromDraftFields, hasContent, toDraftFields, type ReadingForm } from './form';
+import './style.css';
 
-export default function Record(_props: ScreenProps) {
-  return <h2 id="screen-title" tabIndex={-1}>Record</h2>;
+const OBSERVER_KEY = 'freshet.observer';
+const DRAFT_DELAY_MS = 300;
+const DAY_MS = 86_400_000;
+
+const SOURCE_LABELS: Record<ReadingSource, string> = { staff: 'Staff gauge', 'wire-weight': 'Wire-weight gauge', 'crest-stage': 'Crest-stage gauge', logger: 'Logger display' };
+const QUALITY_LABELS: Record<ReadingQuality, string> = { good: 'Good', fair: 'Fair', poor: 'Poor', estimated: 'Estimated' };
+
+function rememberedObserver(): string {
+  try {
+    return localStorage.getItem(OBSERVER_KEY) ?? '';
+  } catch {
+    return '';
+  }
+}
+
+/** Ticks every 30 s so a time that follows the clock stays current. */
+function useClock(): number {
+  const [now, setNow] = useState(Date.now());
+  useEffect(() => {
+    const t = setInterval(() => setNow(Date.now()), 30_000);
+    return () => clearInterval(t);
+  }, []);
+  return now;
+}
+
+/** Picks the site to record at, when the route names none. */
+function ChooseSite() {
+  const sites = useRecords(() => listSites(), ['site'], []);
+  return (
+    <>
+      <h2 id="screen-title" tabIndex={-1}>Record a reading</h2>
+      {sites.state === 'loading' && <p aria-busy="true">Reading the sites…</p>}
+      {sites.state === 'failed' && <p class="callout bad" role="alert">{sites.message}</p>}
+      {sites.state === 'ready' && sites.value.length === 0 && (
+        <p>There is no site on this phone yet. <a href={href('sites')}>Add a site or load the demo site</a> first.</p>
+      )}
+      {sites.state === 'ready' && sites.value.length > 0 && (
+        <>
+          <p>Which site are you at?</p>
+          <ul class="list card" aria-label="Sites">
+            {sites.value.map((s) => (
+              <li key={s.id}>
+                <a class="item" href={href('record', s.id)}>
+                  <span><strong>{s.name}</strong><span class="hint">{s.code}</span></span>
+                  <span aria-hidden="true">›</span>
+                </a>
+              </li>
+            ))}
+          </ul>
+        </>
+      )}
+    </>
+  );
+}
+
+/** The reading form for one site; with readingId it edits that reading. */
+function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: string }) {
+  const u = site.displayUnits;
+  const [form, dispatch] = useReducer(formReducer, undefined, () => blankForm(rememberedObserver()));
+  const [ready, setReady] = useState(false);
+  const [restoredAt, setRestoredAt] = useState<number>();
+  const [saving, setSaving] = useState(false);
+  const [saved, setSaved] = useState<string>();
+  const [error, setError] = useState<{ field?: string; text: string }>();
+  const [gpsState, setGpsState] = useState<string>();
+  const draftId = useRef<string | undefined>(undefined);
+  const pendingDraft = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
+  const formRef = useRef(form);
+  formRef.current = form;
+  const now = useClock();
+
+  // Open: restore this site's draft (for the same reading) or load the reading being edited.
+  useEffect(() => {
+    let live = true;
+    void (async () => {
+      const drafts = await listDrafts('reading', site.id);
+      const draft = drafts.find((d) => (d.fields.readingId ?? undefined) === readingId);
+      if (!live) return;
+      if (draft) {
+        draftId.current = draft.id;
+        dispatch({ type: 'replace', form: fromDraftFields(draft.fields, rememberedObserver()) });
+        setRestoredAt(draft.updated_ms);
+      } else if (readingId) {
+        const r = await getReading(readingId);
+        if (!live) return;
+        if (r) dispatch({ type: 'replace', form: formOfReading(r, toDisplay('stage', r.stage_m, u).toFixed(u === 'us' ? 2 : 3), toLocalInput(r.time_ms, site.timeZone)) });
+        else setError({ text: 'That reading is not on this phone any more.' });
+      }
+      setReady(true);
+    })();
+    return () => {
+      live = false;
+    };
+  }, [site.id, readingId]);
+
+  const writeDraft = async (f: ReadingForm): Promise<void> => {
+    if (!hasContent(f)) {
+      if (draftId.current) {
+        const id = draftId.current;
+        draftId.current = undefined;
+        await discardDraft(id);
+      }
+      return;
+    }
+    const d = await saveDraft({ ...(draftId.current && { id: draftId.current }), form: 'reading', siteId: site.id, fields: toDraftFields(f) });
+    draftId.current = d.id;
+  };
+  const flushDraft = async (): Promise<void> => {
+    if (pendingDraft.current === undefined) return;
+    clearTimeout(pendingDraft.current);
+    pendingDraft.current = undefined;
+    await writeDraft(formRef.current);
+  };
+
+  // Keep the draft on every change (debounced), before an accepted update, and when the app is hidden.
+  useEffect(() => {
+    if (!ready) return;
+    clearTimeout(pendingDraft.current);
+    pendingDraft.current = setTimeout(() => {
+      pendingDraft.current = undefined;
+      void writeDraft(formRef.current).catch((err: unknown) => setError({ text: `The draft could not be kept: ${String(err)}` }));
+    }, DRAFT_DELAY_MS);
+  }, [form, ready]);
+  useEffect(() => {
+    const stopUpdate = onBeforeUpdate(flushDraft);
+    const onHide = () => document.visibilityState === 'hidden' && void flushDraft();
+    document.addEventListener('visibilitychange', onHide);
+    return () => {
+      stopUpdate();
+      document.removeEventListener('visibilitychange', onHide);
+      void flushDraft();
+    };
+  }, []);
+
+  // What the typed values mean: stage in m, time in UTC ms (or why not).
+  const stage = useMemo(() => {
+    if (!form.stageText.trim()) return { empty: true as const };
+    const v = parseDecimal(form.stageText);
+    return v === undefined ? { error: `Type the stage as a number, like ${u === 'us' ? '2.41' : '0.734'}.` } : { stage_m: fromDisplay('stage', v, u) };
+  }, [form.stageText, u]);
+  const time = useMemo(() => {
+    if (!form.timeText) return { time_ms: Math.floor(now / 1000) * 1000, followsClock: true };
+    try {
+      return { time_ms: fromLocalInput(form.timeText, site.timeZone), followsClock: false };
+    } catch (err) {
+      return { error: (err as Error).message };
+    }
+  }, [form.timeText, now, site.timeZone]);
+  const t = 'time_ms' in time ? time.time_ms : undefined;
+  const context = useRecords(
+    async () => {
+      if (t === undefined) return undefined;
+      const [rating, before] = await Promise.all([currentRating(site.id, t), listReadings(site.id, t - 30 * DAY_MS, t - 1)]);
+      const previous = [...before].reverse().find((r) => r.id !== readingId);
+      return { rating, previous };
+    },
+    ['rating', 'reading'],
+    [site.id, t === undefined ? 'none' : Math.floor(t / 60_000), readingId],
+  );
+  const check = useMemo(() => {
+    if (!('stage_m' in stage) || t === undefined || context.state !== 'ready' || !context.value) return undefined;
+    const { rating, previous } = context.value;
+    return checkReading({
+      stage_m: stage.stage_m!, time_ms: t, now_ms: now, jumpLimit_m: site.jumpLimit_m, units: u,
+      previous: previous && { stage_m: previous.stage_m, time_ms: previous.time_ms },
+      rating: rating && { rating: { segments: rating.segments, gaugedRange_m: rating.gaugedRange_m }, shifts: rating.shifts },
+    });
+  }, [stage, t, now, context, site.jumpLimit_m, u]);
+
+  async function onSave(e: Event) {
+    e.preventDefault();
+    setSaved(undefined);
+    if (!('stage_m' in stage)) {
+      setError({ field: 'stage', text: ('error' in stage && stage.error) || 'Type the stage first.' });
+      return;
+    }
+    if (t === undefined || !check) {
+      setError({ field: 'time', text: ('error' in time && time.error) || 'The time could not be read yet; try again.' });
+      return;
+    }
+    setSaving(true);
+    setError(undefined);
+    try {
+      await flushDraft(); // the draft stays until the reading itself is safely stored
+      const record = await saveReading({
+        ...(form.readingId && { id: form.readingId }),
+        siteId: site.id, time_ms: t, stage_m: stage.stage_m!, source: form.source, quality: form.quality,
+        observer: form.observer.trim(), note: form.note.trim(), warnings: check.warnings.map((w) => w.text),
+        ...(form.gps && { gps: form.gps }),
+      });
+      try {
+        localStorage.setItem(OBSERVER_KEY, record.observer);
+      } catch {
+        // No local storage: the observer is simply not remembered.
+      }
+      if (draftId.current) {
+        const id = draftId.current;
+        draftId.current = undefined;
+        await discardDraft(id);
+      }
+      clearTimeout(pendingDraft.current);
+      pendingDraft.current = undefined;
+      const q = check.discharge_m3s === undefined ? 'no discharge (no rating)' : formatQuantity('discharge', check.discharge_m3s, u) + (check.extrapolated ? ', extrapolated' : '');
+      setSaved(`Saved: ${formatQuantity('stage', record.stage_m, u)} at ${formatTime(record.time_ms, site.timeZone)}, ${q}.`);
+      setRestoredAt(undefined);
+      if (form.readingId) navigate(href('sites', site.id), true);
+      else dispatch({ type: 'saved' });
+    } catch (err) {
+      if (err instanceof RecordValidationError) setError({ field: err.field.startsWith('stage') ? 'stage' : err.field.startsWith('time') ? 'time' : undefined, text: `Not saved: ${err.message}` });
+      else setError({ text: err instanceof StorageError ? err.message : `Not saved: ${String(err)}` });
+    } finally {
+      setSaving(false);
+    }
+  }
+
+  function addLocation() {
+    if (!('geolocation' in navigator)) {
+      setGpsState('This phone gives no location to the browser.');
+      return;
+    }
+    setGpsState('Finding your location…');
+    navigator.geolocation.getCurrentPosition(
+      (p) => {
+        dispatch({ type: 'gps', value: { lat: p.coords.latitude, lon: p.coords.longitude, accuracy_m: p.coords.accuracy, time_ms: Math.round(p.timestamp) } });
+        setGpsState(undefined);
+      },
+      (err) => setGpsState(`No location: ${err.message}. The reading can be saved without it.`),
+      { enableHighAccuracy: true, timeout: 30_000, maximumAge: 60_000 },
+    );
+  }
+
+  if (!ready) return <p aria-busy="true">Opening the form…</p>;
+  const stageError = 'error' in stage ? stage.error : error?.field === 'stage' ? error.text : undefined;
+  const timeError = 'error' in time ? time.error : error?.field === 'time' ? error.text : undefined;
+  const unit = displayUnit('stage', u);
+  return (
+    <form class="record" onSubmit={onSave} noValidate>
+      <h2 id="screen-title" tabIndex={-1}>{form.readingId ? 'Edit reading' : 'New reading'}</h2>
+      <p class="muted">{site.name} · {site.code}</p>
+      {restoredAt !== undefined && (
+        <p class="callout" role="status">
+          Restored the unsaved reading you started at {formatTime(restoredAt, site.timeZone)}.{' '}
+          <button type="button" onClick={() => { dispatch({ type: 'replace', form: blankForm(form.observer) }); setRestoredAt(undefined); }}>Start over</button>
+        </p>
+      )}
+      {saved && <p class="callout ok" role="status" data-testid="saved">{saved}</p>}
+      <Field id="stage" label={`Stage (${unit})`} error={stageError}>
+        <input
+          id="stage"
+          class="big"
+          type="text"
+          inputMode="decimal"
+          autoComplete="off"
+          enterKeyHint="done"
+          placeholder={u === 'us' ? '0.00' : '0.000'}
+          value={form.stageText}
+          aria-invalid={stageError ? true : undefined}
+          aria-describedby={describedBy('stage', false, !!stageError)}
+          onInput={(e) => dispatch({ type: 'set', field: 'stageText', value: e.currentTarget.value })}
+        />
+      </Field>
+      <section class="live card" aria-live="polite" aria-label="Discharge">
+        {!check && <p class="muted">The discharge appears here as you type the stage.</p>}
+        {check && (
+          <>
+            <p class="figure" data-testid="discharge">
+              {check.discharge_m3s === undefined ? 'No discharge' : formatQuantity('discharge', check.discharge_m3s, u)}
+            </p>
+            {check.discharge_m3s !== undefined && check.warnings.every((w) => w.code !== 'extrapolated' && w.code !== 'below-zero-flow') && (
+              <p class="callout ok">Within the gauged range of the rating.</p>
+            )}
+            {check.shift_m !== 0 && <p class="muted">Includes a shift of {formatQuantity('stage', check.shift_m, u)}.</p>}
+            {check.warnings.map((w) => (
+              <p key={w.code} class="callout warn" data-warning={w.code}>{w.text}</p>
+            ))}
+            {check.warnings.length > 0 && <p class="hint">Warnings do not stop saving; they are stored with the reading.</p>}
+          </>
+        )}
+      </section>
+      <Field id="time" label={`Time (${site.timeZone})`} hint={time.followsClock ? 'now: follows the clock until you change it' : undefined} error={timeError}>
+        <div class="row">
+          <input
+            id="time"
+            type="datetime-local"
+            value={form.timeText || toLocalInput(now, site.timeZone)}
+            aria-invalid={timeError ? true : undefined}
+            aria-describedby={describedBy('time', !!time.followsClock, !!timeError)}
+            onInput={(e) => dispatch({ type: 'set', field: 'timeText', value: e.currentTarget.value })}
+          />
+          {!time.followsClock && <button type="button" style="flex:0 0 auto" onClick={() => dispatch({ type: 'set', field: 'timeText', value: '' })}>Now</button>}
+        </div>
+      </Field>
+      <div class="row two">
+        <Field id="source" label="Read from">
+          <select id="source" value={form.source} onChange={(e) => dispatch({ type: 'source', value: e.currentTarget.value as ReadingSource })}>
+            {READING_SOURCES.map((s) => <option key={s} value={s}>{SOURCE_LABELS[s]}</option>)}
+          </select>
+        </Field>
+        <Field id="quality" label="Quality">
+          <select id="quality" value={form.quality} onChange={(e) => dispatch({ type: 'quality', value: e.currentTarget.value as ReadingQuality })}>
+            {READING_QUALITIES.map((q) => <option key={q} value={q}>{QUALITY_LABELS[q]}</option>)}
+          </select>
+        </Field>
+      </div>
+      <Field id="observer" label="Observer">
+        <input id="observer" autoComplete="name" value={form.observer} onInput={(e) => dispatch({ type: 'set', field: 'observer', value: e.currentTarget.value })} />
+      </Field>
+      <Field id="note" label="Note" hint="conditions: debris on the control, weed, ice, high water…">
+        <textarea id="note" value={form.note} aria-describedby="note-hint" onInput={(e) => dispatch({ type: 'set', field: 'note', value: e.currentTarget.value })} />
+      </Field>
+      {form.gps ? (
+        <p class="callout" data-testid="gps">
+          Location {form.gps.lat.toFixed(5)}, {form.gps.lon.toFixed(5)} (± {Math.round(form.gps.accuracy_m)} m){' '}
+          <button type="button" onClick={() => dispatch({ type: 'gps', value: undefined })}>Remove location</button>
+        </p>
+      ) : (
+        <button type="button" class="wide" onClick={addLocation}>Add location</button>
+      )}
+      {gpsState && <p class="muted" role="status">{gpsState}</p>}
+      {error && !error.field && <p class="callout bad" role="alert">{error.text}</p>}
+      <button type="submit" class="primary wide save" disabled={saving}>{saving ? 'Saving…' : form.readingId ? 'Save changes' : 'Save reading'}</button>
+      <p><a href={href('sites', site.id)}>Readings of this site</a></p>
+      <Cautions compact />
+    </form>
+  );
+}
+
+/** The Record area: choose a site, then the reading form. */
+export default function Record({ route }: ScreenProps) {
+  const [, siteId, readingId] = route.segments;
+  const site = useRecords(async () => (siteId ? getSite(siteId) : undefined), ['site'], [siteId]);
+  if (!siteId) return <ChooseSite />;
+  if (site.state === 'loading') return <p aria-busy="true">Opening the site…</p>;
+  if (site.state === 'failed') return <p class="callout bad" role="alert">{site.message}</p>;
+  if (!site.value) {
+    return (
+      <>
+        <h2 id="screen-title" tabIndex={-1}>Site not found</h2>
+        <p>This site is not on this phone. <a href={href('record')}>Choose another site</a></p>
+      </>
+    );
+  }
+  return <ReadingEntry key={`${siteId}/${readingId ?? ''}`} site={site.value} readingId={readingId} />;
 }

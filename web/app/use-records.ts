@@ -1,0 +1,34 @@
+// Reads records for a screen and reads them again whenever records of the given kinds change (in this
+// tab or another). A late answer for an older request is dropped, never shown over a newer one.
+import { useEffect, useState } from 'preact/hooks';
+import type { RecordKind } from '../../core';
+import { onRecordsChanged } from '../db';
+
+/** The state of a read: loading, the value, or an error in words. */
+export type Loaded<T> = { state: 'loading' } | { state: 'ready'; value: T } | { state: 'failed'; message: string };
+
+/** Runs `read` now, when `deps` change, and after any change to records of `kinds`. */
+export function useRecords<T>(read: () => Promise<T>, kinds: RecordKind[], deps: unknown[]): Loaded<T> {
+  const [loaded, setLoaded] = useState<Loaded<T>>({ state: 'loading' });
+  useEffect(() => {
+    let latest = 0;
+    let live = true;
+    const run = () => {
+      const ticket = ++latest;
+      read().then(
+        (value) => live && ticket === latest && setLoaded({ state: 'ready', value }),
+        (err: unknown) => live && ticket === latest && setLoaded({ state: 'failed', message: err instanceof Error ? err.message : String(err) }),
+      );
+    };
+    setLoaded({ state: 'loading' });
+    run();
+    const stop = onRecordsChanged((c) => {
+      if (c.kinds.some((k) => kinds.includes(k))) run();
+    });
+    return () => {
+      live = false;
+      stop();
+    };
+  }, deps);
+  return loaded;
+}

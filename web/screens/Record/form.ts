@@ -1,0 +1,90 @@
+// The reading form's state and its typed actions: the screen owns this draft through useReducer.
+import type { GpsFix, JsonValue, ReadingQuality, ReadingRecord, ReadingSource } from '../../../core';
+
+/** What the technician has typed so far. `timeText` is empty while the time follows the clock. */
+export interface ReadingForm {
+  stageText: string;
+  timeText: string;
+  source: ReadingSource;
+  quality: ReadingQuality;
+  observer: string;
+  note: string;
+  gps?: GpsFix;
+  /** Set when editing a stored reading. */
+  readingId?: string;
+}
+
+/** Changes to the form. */
+export type FormAction =
+  | { type: 'set'; field: 'stageText' | 'timeText' | 'observer' | 'note'; value: string }
+  | { type: 'source'; value: ReadingSource }
+  | { type: 'quality'; value: ReadingQuality }
+  | { type: 'gps'; value: GpsFix | undefined }
+  | { type: 'replace'; form: ReadingForm }
+  | { type: 'saved' };
+
+/** A fresh form: staff reading, good quality, the remembered observer, time following the clock. */
+export function blankForm(observer: string): ReadingForm {
+  return { stageText: '', timeText: '', source: 'staff', quality: 'good', observer, note: '' };
+}
+
+/** The form of a stored reading being edited (stage and time shown as typed values). */
+export function formOfReading(r: ReadingRecord, stageText: string, timeText: string): ReadingForm {
+  return { stageText, timeText, source: r.source, quality: r.quality, observer: r.observer, note: r.note, gps: r.gps, readingId: r.id };
+}
+
+/** The reducer behind the reading form. */
+export function formReducer(form: ReadingForm, action: FormAction): ReadingForm {
+  switch (action.type) {
+    case 'set':
+      return { ...form, [action.field]: action.value };
+    case 'source':
+      return { ...form, source: action.value };
+    case 'quality':
+      return { ...form, quality: action.value };
+    case 'gps':
+      return { ...form, gps: action.value };
+    case 'replace':
+      return action.form;
+    case 'saved':
+      // Ready for the next reading at the same site: keep who, how and from where; clear what was read.
+      return { ...blankForm(form.observer), source: form.source, quality: 'good' };
+  }
+}
+
+/** The form as draft fields (JSON). */
+export function toDraftFields(form: ReadingForm): { [key: string]: JsonValue } {
+  const fields: { [key: string]: JsonValue } = {
+    stageText: form.stageText, timeText: form.timeText, source: form.source, quality: form.quality,
+    observer: form.observer, note: form.note,
+  };
+  if (form.gps) fields.gps = { ...form.gps };
+  if (form.readingId) fields.readingId = form.readingId;
+  return fields;
+}
+
+const SOURCES: readonly string[] = ['staff', 'wire-weight', 'crest-stage', 'logger'];
+const QUALITIES: readonly string[] = ['good', 'fair', 'poor', 'estimated'];
+
+/** A form restored from draft fields; anything malformed falls back to the blank form's value. */
+export function fromDraftFields(fields: { [key: string]: JsonValue }, observer: string): ReadingForm {
+  const text = (k: string, d: string) => (typeof fields[k] === 'string' ? (fields[k] as string) : d);
+  const base = blankForm(observer);
+  const gps = fields.gps as unknown as GpsFix | undefined;
+  const gpsOk = !!gps && typeof gps === 'object' && [gps.lat, gps.lon, gps.accuracy_m, gps.time_ms].every((v) => typeof v === 'number' && Number.isFinite(v));
+  return {
+    stageText: text('stageText', ''),
+    timeText: text('timeText', ''),
+    source: SOURCES.includes(text('source', '')) ? (fields.source as ReadingSource) : base.source,
+    quality: QUALITIES.includes(text('quality', '')) ? (fields.quality as ReadingQuality) : base.quality,
+    observer: text('observer', observer),
+    note: text('note', ''),
+    ...(gpsOk && { gps: { lat: gps.lat, lon: gps.lon, accuracy_m: gps.accuracy_m, time_ms: gps.time_ms } }),
+    ...(typeof fields.readingId === 'string' && { readingId: fields.readingId }),
+  };
+}
+
+/** Whether the form holds anything worth keeping as a draft. */
+export function hasContent(form: ReadingForm): boolean {
+  return form.stageText.trim() !== '' || form.note.trim() !== '' || form.timeText !== '' || !!form.gps;
+}

@@ -1,0 +1,171 @@
+// One site's readings: newest first with stage and discharge in the site's units, flags for warnings
+// and extrapolation, edit and delete (with undo), and a small hydrograph of the last days.
+import { useMemo, useState } from 'preact/hooks';
+import type { SiteRecord } from '../../../core';
+import { currentRating, deleteReading, getSite, listGaugings, readingsWithDischarge, restoreReading, type ReadingWithDischarge } from '../../db';
+import { useRecords } from '../../app/use-records';
+import { Hydrograph } from '../../components/Hydrograph';
+import { formatAgo, formatQuantity, formatTime } from '../../format';
+import { href } from '../../router';
+import { toDisplay, displayUnit } from '../../../core';
+
+const DAY_MS = 86_400_000;
+/** How many days the small hydrograph shows, ending at the latest reading. */
+const PLOT_DAYS = 7;
+const PAGE = 50;
+
+interface SiteView {
+  site: SiteRecord;
+  readings: ReadingWithDischarge[];
+  ratingNote?: string;
+  gaugingCount: number;
+}
+
+async function readSite(siteId: string, days: number): Promise<SiteView | undefined> {
+  const site = await getSite(siteId);
+  if (!site) return undefined;
+  const now = Date.now();
+  // Readings of the last `days` days and anything typed with a time ahead of the clock.
+  const readings = (await readingsWithDischarge(siteId, now - days * DAY_MS, now + 365 * DAY_MS)).reverse();
+  const rating = await currentRating(siteId, now);
+  const gaugings = await listGaugings(siteId);
+  const ratingNote = rating
+    ? `Rating in force since ${formatTime(rating.validFrom_ms, site.timeZone)}: ${rating.segments.length} segment${rating.segments.length > 1 ? 's' : ''}` +
+      (rating.gaugedRange_m ? `, gauged from ${formatQuantity('stage', rating.gaugedRange_m[0], site.displayUnits)} to ${formatQuantity('stage', rating.gaugedRange_m[1], site.displayUnits)}` : '') +
+      (rating.shifts.length ? `, ${rating.shifts.length} dated shift${rating.shifts.length > 1 ? 's' : ''}` : '')
+    : undefined;
+  return { site, readings, ratingNote, gaugingCount: gaugings.length };
+}
+
+function SmallPlot({ site, readings }: { site: SiteRecord; readings: ReadingWithDischarge[] }) {
+  const data = useMemo(() => {
+    if (readings.length < 2) return undefined;
+    const last = readings[0].reading.time_ms;
+    const window = readings.filter((r) => r.reading.time_ms >= last - PLOT_DAYS * DAY_MS && r.discharge_m3s !== null).reverse();
+    if (window.length < 2) return undefined;
+    return {
+      time_ms: window.map((r) => r.reading.time_ms),
+      values: window.map((r) => toDisplay('discharge', r.discharge_m3s!, site.displayUnits)),
+    };
+  }, [readings, site.displayUnits]);
+  if (!data) return null;
+  const unit = displayUnit('discharge', site.displayUnits);
+  const peak = Math.max(...data.values);
+  return (
+    <Hydrograph
+      time_ms={data.time_ms}
+      lines={[{ label: `Discharge (${unit})`, values: data.values }]}
+      yLabel={unit}
+      timeZone={site.timeZone}
+      height={170}
+      description={`Discharge over the last ${PLOT_DAYS} days of readings: ${data.values.length} points, highest ${peak.toPrecision(3)} ${unit}.`}
+    />
+  );
+}
+
+/** The readings screen of one site. */
+export default function SiteReadings({ siteId }: { siteId: string }) {
+  const [days, setDays] = useState(30);
+  const [shown, setShown] = useState(PAGE);
+  const [undo, setUndo] = useState<{ id: string; text: string }>();
+  const [message, setMessage] = useState<string>();
+  const view = useRecords(() => readSite(siteId, days), ['site', 'reading', 'rating', 'gauging'], [siteId, days]);
+  if (view.state === 'loading') return <p aria-busy="true">Reading the site…</p>;
+  if (view.state === 'failed') return <p class="callout bad" role="alert">The site could not be read: {view.message}</p>;
+  if (!view.value) {
+    return (
+      <>
+        <h2 id="screen-title" tabIndex={-1}>Site not found</h2>
+        <p>This site is not on this phone (it may have been deleted). <a href={href('sites')}>Back to the sites</a></p>
+      </>
+    );
+  }
+  const { site, readings, ratingNote, gaugingCount } = view.value;
+  const u = site.displayUnits;
+  const now = Date.now();
+
+  async function remove(r: ReadingWithDischarge) {
+    try {
+      await deleteReading(r.reading.id);
+      setUndo({ id: r.reading.id, text: `Reading of ${formatQuantity('stage', r.reading.stage_m, u)} at ${formatTime(r.reading.time_ms, site.timeZone)} deleted.` });
+    } catch (err) {
+      setMessage(err instanceof Error ? err.message : String(err));
+    }
+  }
+
+  return (
+    <>
+      <h2 id="screen-title" tabIndex={-1}>{site.name}</h2>
+      <p class="muted">
+        {site.code}
+        {site.area_km2 !== undefined && ` · ${formatQuantity('area', site.area_km2, u)}`} · {site.timeZone}
+      </p>
+      <div class="row">
+        <a class="button primary" href={href('record', site.id)}>Record a reading</a>
+        <a class="button" href={href('storm', site.id)}>Storm runoff</a>
+        <a class="button" href={href('sites', site.id, 'edit')}>Edit site</a>
+      </div>
+      <p class={ratingNote ? 'callout' : 'callout warn'}>
+        {ratingNote ?? 'No rating yet: readings are kept as stage only until a rating is added.'}
+        {` · ${gaugingCount} gauging${gaugingCount === 1 ? '' : 's'} on this phone`}
+      </p>
+      <SmallPlot site={site} readings={readings} />
+      {message && <p class="callout bad" role="alert">{message}</p>}
+      {undo && (
+        <div class="notice" role="status">
+          <p>{undo.text}</p>
+          <button
+            type="button"
+            onClick={async () => {
+              await restoreReading(undo.id);
+              setUndo(undefined);
+            }}
+          >
+            Undo
+          </button>
+          <button type="button" onClick={() => setUndo(undefined)} aria-label="Dismiss">OK</button>
+        </div>
+      )}
+      <h3>Readings, newest first</h3>
+      {readings.length === 0 ? (
+        <p>No readings in the last {days} days.</p>
+      ) : (
+        <ul class="list card" aria-label={`Readings of ${site.name}`}>
+          {readings.slice(0, shown).map((r) => (
+            <li key={r.reading.id} class="reading-row">
+              <div class="item">
+                <span>
+                  <strong>{formatQuantity('stage', r.reading.stage_m, u)}</strong>
+                  <span class="hint">
+                    {r.discharge_m3s === null ? 'no rating' : formatQuantity('discharge', r.discharge_m3s, u)}
+                    {r.extrapolated && <> <span class="tag">extrapolated</span></>}
+                    {r.reading.warnings.length > 0 && <> <span class="tag" title={r.reading.warnings.join(' ')}>{r.reading.warnings.length} warning{r.reading.warnings.length > 1 ? 's' : ''}</span></>}
+                  </span>
+                </span>
+                <span style="text-align:right">
+                  <span>{formatTime(r.reading.time_ms, site.timeZone)}</span>
+                  <span class="hint">{r.reading.source} · {formatAgo(r.reading.time_ms, now)}</span>
+                </span>
+              </div>
+              {r.reading.warnings.length > 0 && (
+                <details>
+                  <summary>Warnings and note</summary>
+                  <ul>{r.reading.warnings.map((w, i) => <li key={i}>{w}</li>)}</ul>
+                  {r.reading.note && <p>Note: {r.reading.note}</p>}
+                </details>
+              )}
+              <div class="row reading-actions">
+                <a class="button" href={href('record', site.id, r.reading.id)} aria-label={`Edit the reading at ${formatTime(r.reading.time_ms, site.timeZone)}`}>Edit</a>
+                <button type="button" class="danger" onClick={() => void remove(r)} aria-label={`Delete the reading at ${formatTime(r.reading.time_ms, site.timeZone)}`}>Delete</button>
+              </div>
+            </li>
+          ))}
+        </ul>
+      )}
+      <div class="row">
+        {readings.length > shown && <button type="button" onClick={() => setShown(shown + PAGE)}>Show {Math.min(PAGE, readings.length - shown)} more</button>}
+        <button type="button" onClick={() => setDays(days * 3)}>Show older readings (last {days * 3} days)</button>
+      </div>
+    </>
+  );
+}

@@ -7,3 +7,4 @@ export * from './records/index';
 export * from './demo/index';
 export * from './time/index';
 export * from './readings/index';
+export * from './exchange/index';

@@ -6,7 +6,7 @@ import { RecordValidationError, validateReadingBody, type ReadingBody, type Read
 import { withDb } from './connection';
 import { now_ms, stampInTx } from './clock';
 import { StorageError, storageMessage } from './errors';
-import { afterWrite, inTx } from './records';
+import { afterWrite, DURABLE, inTx } from './records';
 
 /** Readings written per batch unless told otherwise. */
 export const DEFAULT_IMPORT_BATCH = 5000;
@@ -94,7 +94,7 @@ export async function importReadings(readings: readonly ReadingBody[], options: 
   const ids = keep.map(() => crypto.randomUUID());
 
   const result = await withDb(async (db) => {
-    const tx = db.transaction(['readings', 'meta'], 'readwrite');
+    const tx = db.transaction(['readings', 'meta'], 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const rev = await stampInTx(tx, at);
       const index = tx.objectStore('readings').index('by-site-source-time');

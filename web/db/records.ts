@@ -32,6 +32,13 @@ export interface ReadOptions {
   includeDeleted?: boolean;
 }
 
+/**
+ * Transaction options for every record write: 'strict' asks the browser to flush to disk before
+ * reporting complete, so "saved" survives the phone dying a moment later (a human-paced save can
+ * afford the flush; a bulk import pays it once).
+ */
+export const DURABLE: IDBTransactionOptions = { durability: 'strict' };
+
 /** Runs fn inside tx; on any failure aborts tx (so nothing of it is written) and rethrows. */
 export async function inTx<T>(tx: { abort(): void; done: Promise<void> }, fn: () => Promise<T>): Promise<T> {
   try {
@@ -67,7 +74,7 @@ export async function saveIn<S extends RecordStore>(store: S, input: SaveInput<R
   const id = given ?? crypto.randomUUID();
   const at = now_ms();
   const saved = await withDb(async (db) => {
-    const tx = db.transaction([store, 'meta'], 'readwrite');
+    const tx = db.transaction([store, 'meta'], 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const rev = await stampInTx(tx, at);
       const record = { ...body, id, rev, updated_ms: at } as unknown as RecordOf<S>;
@@ -92,7 +99,7 @@ async function setDeleted<S extends RecordStore>(store: S, id: string, deleted: 
   const kind = KIND_OF_STORE[store];
   const at = now_ms();
   const changed = await withDb(async (db) => {
-    const tx = db.transaction([store, 'meta'], 'readwrite');
+    const tx = db.transaction([store, 'meta'], 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const s = tx.objectStore(store);
       const existing = (await s.get(id)) as RecordOf<S> | undefined;

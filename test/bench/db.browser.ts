@@ -1,0 +1,42 @@
+// Storage benchmark in Chromium (real IndexedDB): the 100,000-reading bulk import against a bare put loop
+// of the same records in one transaction, measured in the same browser run, and reading a 30-day window
+// of 15-minute readings (2,880) with their discharges. Prints JSON lines; asserts nothing.
+// Run: node --import tsx test/bench/db.browser.ts
+import { launchBrowser, startPreview } from '../browser/harness';
+import { buildDbPages, DB_PAGES_DIR } from '../browser/db-pages';
+import { emit, sig3 } from './measure';
+
+const N = Number(process.env.FRESHET_BENCH_READINGS ?? 100_000);
+const ROUNDS = Number(process.env.FRESHET_BENCH_ROUNDS ?? 3);
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)];
+}
+
+buildDbPages();
+const server = await startPreview(4312, DB_PAGES_DIR);
+const browser = await launchBrowser();
+try {
+  const page = await browser.context.newPage();
+  await page.goto(`${server.url}db.html`);
+  await page.waitForFunction(() => document.body.dataset.ready === 'true');
+  const imports: number[] = [];
+  const bare: number[] = [];
+  // Alternate the two so drift in the machine's load affects both alike.
+  for (let round = 0; round < ROUNDS; round++) {
+    bare.push(await page.evaluate((n) => window.freshetDbTest.timeBarePut(n), N));
+    imports.push(await page.evaluate((n) => window.freshetDbTest.timeImport(n), N));
+  }
+  const importMs = median(imports);
+  const bareMs = median(bare);
+  emit({ name: 'db-bulk-import-100k-ratio', value: sig3(importMs / bareMs), target: '<= 1.3', import_ms: sig3(importMs), bare_put_ms: sig3(bareMs), readings: N, rounds: ROUNDS });
+  const window30 = await page.evaluate(() => window.freshetDbTest.timeWindow(21));
+  emit({
+    name: 'db-window-30d-with-discharge-ms', value: sig3(window30.median_ms), target: '< 30', unit: 'ms',
+    bare_getall_ms: sig3(window30.bareGetAll_ms), rows: window30.rows, runs: 21,
+  });
+} finally {
+  await browser.close();
+  await server.stop();
+}

@@ -1,0 +1,116 @@
+// Test-only page: exposes web/db to page.evaluate in the Chromium test and benchmark.
+import { unwrap } from 'idb';
+import type { ReadingBody, ReadingRecord } from '../../../core/records/index';
+import {
+  getDb, getSite, importReadings, listReadings, readingsWithDischarge, saveRating, saveSite, storageState,
+} from '../../../web/db/index';
+import { deleteFreshetDbForTests } from '../../../web/db/testing';
+
+const T0 = Date.UTC(2026, 2, 1);
+const QUARTER_HOUR_MS = 900_000;
+
+/** n invented logger readings every 15 minutes from T0. */
+function series(siteId: string, n: number): ReadingBody[] {
+  const out: ReadingBody[] = [];
+  for (let i = 0; i < n; i++) {
+    out.push({
+      siteId, time_ms: T0 + i * QUARTER_HOUR_MS, stage_m: 0.5 + 0.3 * Math.sin(i / 96),
+      source: 'logger', quality: 'good', observer: '', note: '', warnings: [],
+    });
+  }
+  return out;
+}
+
+async function freshSite(): Promise<string> {
+  await deleteFreshetDbForTests();
+  const site = await saveSite({
+    code: 'BW-07', name: 'Birchwater Brook at Mill Lane', area_km2: 31.5, timeZone: 'Europe/London',
+    displayUnits: 'metric', jumpLimit_m: 0.25,
+  });
+  return site.id;
+}
+
+const api = {
+  /** Saves an invented site and returns its id. */
+  async saveSite(): Promise<string> {
+    const site = await saveSite({ code: 'BW-07', name: 'Birchwater Brook at Mill Lane', timeZone: 'Europe/London', displayUnits: 'metric', jumpLimit_m: 0.25 });
+    return site.id;
+  },
+  /** The name of the site with this id, or null. */
+  async siteName(id: string): Promise<string | null> {
+    return (await getSite(id))?.name ?? null;
+  },
+  /** Imports n readings into an empty database; returns the count written, progress figures and stored count. */
+  async importSample(n: number, batchSize: number): Promise<{ imported: number; progress: number[]; stored: number }> {
+    const siteId = await freshSite();
+    const progress: number[] = [];
+    const result = await importReadings(series(siteId, n), { batchSize, onProgress: (p) => progress.push(p.written) });
+    const stored = (await listReadings(siteId, -Infinity, Infinity)).length;
+    return { imported: result.imported, progress, stored };
+  },
+  /** Wall time (ms) of importReadings for n readings into an empty database. */
+  async timeImport(n: number): Promise<number> {
+    const siteId = await freshSite();
+    const input = series(siteId, n);
+    const t0 = performance.now();
+    await importReadings(input);
+    return performance.now() - t0;
+  },
+  /** Wall time (ms) of a bare IndexedDB put loop of the same n records in one transaction, into an empty database. */
+  async timeBarePut(n: number): Promise<number> {
+    const siteId = await freshSite();
+    const rev = '1767225600000-000000-bench';
+    const records: ReadingRecord[] = series(siteId, n).map((r) => ({ ...r, id: crypto.randomUUID(), rev, updated_ms: T0 }));
+    const db = unwrap(await getDb());
+    const t0 = performance.now();
+    const tx = db.transaction('readings', 'readwrite');
+    const store = tx.objectStore('readings');
+    for (const r of records) store.put(r);
+    await new Promise<void>((resolve, reject) => {
+      tx.oncomplete = () => resolve();
+      tx.onabort = () => reject(tx.error);
+    });
+    return performance.now() - t0;
+  },
+  /** Median wall time (ms) of readingsWithDischarge over 30 days of 15-minute readings (2,880), with a shifted rating. */
+  async timeWindow(runs: number): Promise<{ median_ms: number; bareGetAll_ms: number; rows: number }> {
+    const siteId = await freshSite();
+    await importReadings(series(siteId, 2880 + 960));
+    await saveRating({
+      siteId, validFrom_ms: 0, segments: [{ fromStage_m: 0, coefficient: 8.5, offset_m: 0.12, exponent: 1.7 }],
+      gaugedRange_m: [0.2, 1.1], fittedFrom: [], note: '',
+      shifts: [{ time_ms: T0, toNext: 'prorate', curve: { points: [{ stage_m: 0.3, shift_m: 0.02 }, { stage_m: 0.9, shift_m: 0 }] } },
+        { time_ms: T0 + 20 * 86_400_000, toNext: 'hold', curve: { points: [{ stage_m: 0.3, shift_m: -0.01 }] } }],
+    });
+    const from = T0 + 5 * 86_400_000;
+    const to = from + 30 * 86_400_000 - 1;
+    let rows = 0;
+    const times: number[] = [];
+    const bare: number[] = [];
+    const db = unwrap(await getDb());
+    const range = IDBKeyRange.bound([siteId, from], [siteId, to]);
+    for (let i = 0; i < runs + 3; i++) {
+      const t0 = performance.now();
+      rows = (await readingsWithDischarge(siteId, from, to)).length;
+      const t1 = performance.now();
+      await new Promise((resolve) => {
+        db.transaction('readings').objectStore('readings').index('by-site-time').getAll(range).onsuccess = resolve;
+      });
+      if (i >= 3) {
+        times.push(t1 - t0);
+        bare.push(performance.now() - t1);
+      }
+    }
+    const median = (xs: number[]) => xs.sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+    return { median_ms: median(times), bareGetAll_ms: median(bare), rows };
+  },
+  storageState,
+};
+
+declare global {
+  interface Window {
+    freshetDbTest: typeof api;
+  }
+}
+window.freshetDbTest = api;
+document.body.dataset.ready = 'true';

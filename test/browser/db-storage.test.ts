@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { launchBrowser, startPreview, type Browser, type Preview } from './harness';
-import { buildDbPages, DB_PAGES_DIR } from './db-pages';
+import { buildDbPages, DB_PAGES_DIR } from './pages/build';
 
 let server: Preview;
 let browser: Browser;

@@ -1,7 +1,7 @@
 // Builds the storage test page (test/browser/pages) into dist-test-pages/ for the browser test and benchmark.
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
-import { ROOT } from './harness';
+import { ROOT } from '../harness';
 
 /** Folder (relative to the repo root) the storage test page is built into. */
 export const DB_PAGES_DIR = 'dist-test-pages';

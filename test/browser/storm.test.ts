@@ -13,6 +13,7 @@ import {
   dischargeAt,
   findEventPoints,
   fromLocalInput,
+  toLocalInput,
   separateBaseflow,
   summarizeEvent,
   type EventPoints,
@@ -49,7 +50,7 @@ function numberIn(text: string): number {
  * default window (the 14 days up to the latest reading): one reading per time, the logger's where a staff
  * check shares its minute, discharge through the demo rating (no shifts), key points as whole ms.
  */
-function expectedFor(latest_ms: number, method: SeparationMethod) {
+function expectedFor(latest_ms: number, method: SeparationMethod, edit?: (found: EventPoints) => EventPoints) {
   const scenario = demoScenario(latest_ms);
   const from_ms = latest_ms - 14 * DAY_MS;
   const rating = demoRating();
@@ -65,13 +66,21 @@ function expectedFor(latest_ms: number, method: SeparationMethod) {
     inflection_ms: Math.round(found.inflection_ms),
     runoffEnd_ms: Math.round(found.runoffEnd_ms),
   };
-  const baseflow = separateBaseflow(series, method, { points, area_km2 });
-  const summary = summarizeEvent(series, baseflow, { area_km2, from_ms: points.riseStart_ms, to_ms: points.runoffEnd_ms });
+  const used = edit ? edit(points) : points;
+  const baseflow = separateBaseflow(series, method, { points: used, area_km2 });
+  const summary = summarizeEvent(series, baseflow, { area_km2, from_ms: used.riseStart_ms, to_ms: used.runoffEnd_ms });
   return { points, summary, skipped: inWindow.length - logger.length };
 }
 
 describe('storm runoff on the demo site', () => {
   let latest_ms = 0;
+
+  it('says plainly that there are no sites yet and links to the Sites screen', async () => {
+    await page.goto(`${server.url}#/storm`);
+    const message = page.getByTestId('storm-no-sites');
+    await message.waitFor();
+    await expect(message.locator('a').getAttribute('href')).resolves.toBe('#/sites');
+  });
 
   it('loads the demo site and opens its storm analysis with key points found', async () => {
     await page.goto(`${server.url}#/sites`);
@@ -116,6 +125,25 @@ describe('storm runoff on the demo site', () => {
     const shown = await page.getByTestId('runoff-coefficient').textContent();
     // Runoff coefficient = runoff depth / rainfall (DOMAIN.md §5).
     expect(numberIn(shown!)).toBeCloseTo(expected.summary.runoffDepth_mm! / 38, 2);
+  });
+
+  it('recomputes from an end of runoff typed by hand, and finds the key points again on request', async () => {
+    const found = expectedFor(latest_ms, { kind: 'variable-slope' });
+    // A whole minute a day after the peak, typed as the site's wall time.
+    const end_ms = Math.floor((found.points.peak_ms + DAY_MS) / 60_000) * 60_000;
+    const edited = expectedFor(latest_ms, { kind: 'variable-slope' }, (p) => ({ ...p, runoffEnd_ms: end_ms }));
+    expect(Math.round(edited.summary.directVolume_m3)).not.toBe(Math.round(found.summary.directVolume_m3));
+    await page.locator('input[data-point="runoffEnd_ms"]').fill(toLocalInput(end_ms, 'Pacific/Auckland'));
+    await page.getByText('Key points (set by hand)').waitFor();
+    await page.waitForFunction(
+      (v) => document.querySelector('[data-testid="direct-volume"]')?.textContent === v,
+      `${Math.round(edited.summary.directVolume_m3).toLocaleString('en')} m³`,
+    );
+    await page.getByRole('button', { name: 'Find key points again' }).click();
+    await page.getByText('Key points (found automatically)').waitFor();
+    await expect(page.getByTestId('direct-volume').textContent()).resolves.toBe(
+      `${Math.round(found.summary.directVolume_m3).toLocaleString('en')} m³`,
+    );
   });
 
   it('changes the figures when the method changes', async () => {

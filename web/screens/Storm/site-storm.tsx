@@ -232,52 +232,6 @@ export function SiteStorm({ site }: { site: SiteRecord }) {
         <p class="callout warn" role="alert">No storm event found in this window: {found.message}</p>
       )}
 
-      {series && points && (
-        <>
-          <KeyPointFields
-            value={points}
-            onChange={(next) => {
-              setSave({ status: 'idle' });
-              dispatch({ type: 'points', points: next });
-            }}
-            timeZone={zone}
-            first_ms={series.time_ms[0]}
-            last_ms={series.time_ms[series.time_ms.length - 1]}
-            edited={draft.points !== undefined}
-            onFindAgain={() => dispatch({ type: 'find-again' })}
-            crossCheck={crossCheck}
-          />
-          <SeparationPicker
-            value={draft.method}
-            onChange={(method) => {
-              setSave({ status: 'idle' });
-              dispatch({ type: 'method', method });
-            }}
-          />
-          {!usesKeyPoints(draft.method.kind) && (
-            <p class="hint">
-              A filter runs over the whole readings window; the key points only set the event whose volumes are summed.
-            </p>
-          )}
-          <label for="storm-rain">
-            Rainfall depth ({depthUnit})
-            <span class="hint" id="storm-rain-hint">
-              {area === undefined ? 'The runoff coefficient needs the catchment area: add it to the site.' : 'From the rain gauge, for the runoff coefficient.'}
-            </span>
-          </label>
-          <input
-            id="storm-rain"
-            inputMode="decimal"
-            autocomplete="off"
-            aria-describedby="storm-rain-hint"
-            aria-invalid={rain.problem ? true : undefined}
-            value={draft.rainfall}
-            onInput={(e) => dispatch({ type: 'rainfall', text: e.currentTarget.value })}
-          />
-          {rain.problem && <p class="callout warn">{rain.problem}</p>}
-        </>
-      )}
-
       {result && !result.ok && (
         <p class="callout warn" role="alert" data-testid="storm-error">The results cannot be worked out: {result.message}</p>
       )}
@@ -335,6 +289,52 @@ export function SiteStorm({ site }: { site: SiteRecord }) {
             </dl>
           )}
         </section>
+      )}
+
+      {series && points && (
+        <>
+          <SeparationPicker
+            value={draft.method}
+            onChange={(method) => {
+              setSave({ status: 'idle' });
+              dispatch({ type: 'method', method });
+            }}
+          />
+          {!usesKeyPoints(draft.method.kind) && (
+            <p class="hint">
+              A filter runs over the whole readings window; the key points only set the event whose volumes are summed.
+            </p>
+          )}
+          <label for="storm-rain">
+            Rainfall depth ({depthUnit})
+            <span class="hint" id="storm-rain-hint">
+              {area === undefined ? 'The runoff coefficient needs the catchment area: add it to the site.' : 'From the rain gauge, for the runoff coefficient.'}
+            </span>
+          </label>
+          <input
+            id="storm-rain"
+            inputMode="decimal"
+            autocomplete="off"
+            aria-describedby="storm-rain-hint"
+            aria-invalid={rain.problem ? true : undefined}
+            value={draft.rainfall}
+            onInput={(e) => dispatch({ type: 'rainfall', text: e.currentTarget.value })}
+          />
+          {rain.problem && <p class="callout warn">{rain.problem}</p>}
+          <KeyPointFields
+            value={points}
+            onChange={(next) => {
+              setSave({ status: 'idle' });
+              dispatch({ type: 'points', points: next });
+            }}
+            timeZone={zone}
+            first_ms={series.time_ms[0]}
+            last_ms={series.time_ms[series.time_ms.length - 1]}
+            edited={draft.points !== undefined}
+            onFindAgain={() => dispatch({ type: 'find-again' })}
+            crossCheck={crossCheck}
+          />
+        </>
       )}
 
       {notes.length > 0 && (

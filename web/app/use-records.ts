@@ -1,5 +1,6 @@
 // Reads records for a screen and reads them again whenever records of the given kinds change (in this
-// tab or another). A late answer for an older request is dropped, never shown over a newer one.
+// tab or another). A late answer for an older request is dropped, never shown over a newer one; the
+// previous answer stays shown while a new one is read.
 import { useEffect, useState } from 'preact/hooks';
 import type { RecordKind } from '../../core';
 import { onRecordsChanged } from '../db';
@@ -20,7 +21,7 @@ export function useRecords<T>(read: () => Promise<T>, kinds: RecordKind[], deps:
         (err: unknown) => live && ticket === latest && setLoaded({ state: 'failed', message: err instanceof Error ? err.message : String(err) }),
       );
     };
-    setLoaded({ state: 'loading' });
+    // The last answer stays on screen until the new one arrives, so live figures do not flicker.
     run();
     const stop = onRecordsChanged((c) => {
       if (c.kinds.some((k) => kinds.includes(k))) run();

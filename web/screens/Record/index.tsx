@@ -283,8 +283,9 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
         {!check && <p class="muted">The discharge appears here as you type the stage.</p>}
         {check && (
           <>
-            <p class="figure" data-testid="discharge">
-              {check.discharge_m3s === undefined ? 'No discharge' : formatQuantity('discharge', check.discharge_m3s, u)}
+            <p class="figure">
+              <span data-testid="discharge">{check.discharge_m3s === undefined ? 'No discharge' : formatQuantity('discharge', check.discharge_m3s, u)}</span>
+              {check.extrapolated && <> <span class="tag">extrapolated</span></>}
             </p>
             {check.discharge_m3s !== undefined && check.warnings.every((w) => w.code !== 'extrapolated' && w.code !== 'below-zero-flow') && (
               <p class="callout ok">Within the gauged range of the rating.</p>

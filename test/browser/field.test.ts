@@ -86,6 +86,7 @@ describe('demo site', () => {
     await page.waitForURL(new RegExp(`#/sites/${DEMO_SITE_ID}$`), { timeout: 60_000 });
     expect(await storedReadings(DEMO_SITE_ID)).toEqual(before);
     await go('#/sites');
+    await page.locator('ul[aria-label="Sites"] > li').first().waitFor();
     await expect(page.locator('ul[aria-label="Sites"] > li').count()).resolves.toBe(1);
     await shot('sites');
     await noSeriousViolations('sites list');
@@ -168,6 +169,41 @@ describe('recording a reading', () => {
     await page.getByRole('button', { name: 'Save reading' }).click();
     await page.locator('[data-testid="saved"]').waitFor();
     await expect(page.locator('[data-testid="saved"]').textContent()).resolves.toContain('no discharge (no rating)');
+  });
+});
+
+describe('location', () => {
+  it('sorts sites nearest first and stores a location fix with its accuracy', async () => {
+    await browser.context.grantPermissions(['geolocation'], { origin: server.url.replace(/\/$/, '') });
+    // 0.01° of latitude south of the demo gauge: 6371.0088 km × π/180 × 0.01 = 1.112 km (mean Earth radius, IUGG).
+    await browser.context.setGeolocation({ latitude: -41.2971, longitude: 174.6302, accuracy: 12 });
+    await go('#/record');
+    await page.getByRole('button', { name: 'Nearest first' }).click();
+    const first = page.locator('ul[aria-label="Sites"] > li').first();
+    await page.getByText('1.1 km').waitFor();
+    await expect(first.textContent()).resolves.toContain('Pellow Burn');
+    await expect(page.locator('ul[aria-label="Sites"] > li').last().textContent()).resolves.toContain('Tarn Knott');
+    await first.locator('a').click();
+    await typeStage('0.37');
+    await page.getByRole('button', { name: 'Add location' }).click();
+    await expect(page.locator('[data-testid="gps"]').textContent()).resolves.toMatch(/^Location -41\.29710, 174\.63020 \(± 12 m\)/);
+    await page.getByRole('button', { name: 'Save reading' }).click();
+    await page.locator('[data-testid="saved"]').waitFor();
+    const gps = await page.evaluate(
+      () =>
+        new Promise<unknown>((resolve) => {
+          const open = indexedDB.open('freshet');
+          open.onsuccess = () => {
+            const req = open.result.transaction('readings').objectStore('readings').getAll();
+            req.onsuccess = () => {
+              const r = (req.result as { stage_m: number; source: string; gps?: unknown }[]).find((x) => x.stage_m === 0.37 && x.source === 'staff');
+              open.result.close();
+              resolve(r?.gps);
+            };
+          };
+        }),
+    );
+    expect(gps).toMatchObject({ lat: -41.2971, lon: 174.6302, accuracy_m: 12 });
   });
 });
 

@@ -124,6 +124,8 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   const pendingDraft = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
   const formRef = useRef(form);
   formRef.current = form;
+  /** The form as last written to the draft (or restored from it): nothing to flush while they match. */
+  const written = useRef<ReadingForm>(form);
   const now = useClock();
 
   // Open: restore this site's draft (for the same reading) or load the reading being edited.
@@ -135,7 +137,9 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       if (!live) return;
       if (draft) {
         draftId.current = draft.id;
-        dispatch({ type: 'replace', form: fromDraftFields(draft.fields, rememberedObserver()) });
+        const restored = fromDraftFields(draft.fields, rememberedObserver());
+        written.current = restored;
+        dispatch({ type: 'replace', form: restored });
         setRestoredAt(draft.updated_ms);
       } else if (readingId) {
         const r = await getReading(readingId);
@@ -151,6 +155,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   }, [site.id, readingId]);
 
   const writeDraft = async (f: ReadingForm): Promise<void> => {
+    written.current = f;
     if (!hasContent(f)) {
       if (draftId.current) {
         const id = draftId.current;
@@ -162,10 +167,11 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
     const d = await saveDraft({ ...(draftId.current && { id: draftId.current }), form: 'reading', siteId: site.id, fields: toDraftFields(f) });
     draftId.current = d.id;
   };
+  /** Writes the form to the draft now if it changed since the last write (before an update, on hide, on leave). */
   const flushDraft = async (): Promise<void> => {
-    if (pendingDraft.current === undefined) return;
     clearTimeout(pendingDraft.current);
     pendingDraft.current = undefined;
+    if (formRef.current === written.current) return;
     await writeDraft(formRef.current);
   };
 

@@ -108,6 +108,22 @@ describe('phone layout and accessibility at 360×640', () => {
     });
   }
 
+  it('follows the phone: dark colours in dark mode, sunlight colours when more contrast is asked for', async () => {
+    await page.goto(server.url);
+    await page.evaluate(() => localStorage.setItem('freshet.theme', 'system'));
+    const theme = () => page.evaluate(() => document.documentElement.dataset.theme);
+    await page.emulateMedia({ colorScheme: 'dark', contrast: 'no-preference' });
+    await page.reload();
+    expect(await theme()).toBe('night');
+    const bg = await page.evaluate(() => getComputedStyle(document.documentElement).backgroundColor);
+    expect(bg).toBe('rgb(15, 21, 24)'); // the night background, #0f1518
+    await page.emulateMedia({ colorScheme: 'light' });
+    await page.waitForFunction(() => document.documentElement.dataset.theme === 'day');
+    await page.emulateMedia({ contrast: 'more' });
+    await page.waitForFunction(() => document.documentElement.dataset.theme === 'sunlight');
+    await page.emulateMedia({ colorScheme: 'light', contrast: 'no-preference' });
+  });
+
   it('gives every control a touch target of at least 44 × 44 CSS px', async () => {
     await page.goto(server.url);
     for (const area of AREAS) {

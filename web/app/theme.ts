@@ -18,15 +18,25 @@ function readChoice(): ThemeChoice {
 
 export const themeChoice = createStore<ThemeChoice>(readChoice());
 
-/** Applies the chosen theme to the document and keeps it applied when the choice changes. */
+/**
+ * Applies the chosen theme to the document and keeps it applied when the choice or the system's
+ * setting changes. 'system' resolves to sunlight when the system asks for more contrast, to night in
+ * dark mode, and to the plain light theme otherwise.
+ */
 export function applyTheme(): void {
-  const apply = (choice: ThemeChoice) => {
-    if (choice === 'system') delete document.documentElement.dataset.theme;
-    else document.documentElement.dataset.theme = choice;
+  const dark = matchMedia('(prefers-color-scheme: dark)');
+  const contrast = matchMedia('(prefers-contrast: more)');
+  const apply = () => {
+    const choice = themeChoice.get();
+    const theme = choice !== 'system' ? choice : contrast.matches ? 'sunlight' : dark.matches ? 'night' : 'day';
+    document.documentElement.dataset.theme = theme;
+    document.querySelector('meta[name="theme-color"]')?.setAttribute('content', getComputedStyle(document.documentElement).getPropertyValue('--primary').trim() || '#0d4a5c');
   };
-  apply(themeChoice.get());
+  apply();
+  dark.addEventListener('change', apply);
+  contrast.addEventListener('change', apply);
   themeChoice.subscribe((choice) => {
-    apply(choice);
+    apply();
     try {
       localStorage.setItem(KEY, choice);
     } catch {

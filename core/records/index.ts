@@ -12,3 +12,4 @@ export { validateAnalysisBody } from './validate-analysis';
 export { validateDraftBody } from './validate-draft';
 export { validateBody, validateRecord, validateSyncRecord, validateConflictBody, isSyncKind } from './validate-record';
 export { toSyncRecord, fromSyncRecord } from './sync-record';
+export { READING_SOURCE_CODES, readingSourceOfCode, type ReadingSourceCode } from './source-codes';

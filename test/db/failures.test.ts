@@ -4,8 +4,9 @@ import { describe, expect, it, vi } from 'vitest';
 import { openDB } from 'idb';
 import type { SiteRecord } from '../../core/records/index';
 import {
-  DB_NAME, DB_VERSION, getDb, getMeta, getSite, listReadings, onDbEvent, saveReading, saveSite, StorageError,
-  type DbEvent, type FreshetDB,
+  DB_NAME, DB_VERSION, getDb, getMeta, getSite, listReadings, onDbEvent, READING_SOURCE_CODES, saveReading, saveSite,
+  StorageError,
+  type DbEvent, type FreshetDB, type SeriesChunk,
 } from '../../web/db/index';
 import { upgradeFreshetDb } from '../../web/db/upgrade';
 import { closeDbForTests } from '../../web/db/testing';
@@ -79,7 +80,7 @@ describe('the connection', () => {
 // The upgrade ladder: for each released version, write every store as that version did, close, open
 // with the current code, and find every record intact. A new version adds a row here.
 describe('upgrade ladder', () => {
-  const ladder: { version: number; write: (db: Awaited<ReturnType<typeof openDB<FreshetDB>>>) => Promise<unknown[]> }[] = [
+  const ladder: { version: number; write: (db: Awaited<ReturnType<typeof openDB<FreshetDB>>>) => Promise<{ records: unknown[]; series: SeriesChunk[] }> }[] = [
     {
       version: 1,
       write: async (db) => {
@@ -92,11 +93,17 @@ describe('upgrade ladder', () => {
           ['gaugings', { ...gauging(s.id, T0), ...env(4) }], ['ratings', { ...rating(s.id, T0), ...env(5) }],
           ['drafts', { form: 'reading', fields: { stage: '0.7' }, ...env(6) }],
         ] as const;
-        const tx = db.transaction(['sites', 'readings', 'gaugings', 'ratings', 'drafts', 'meta'], 'readwrite');
+        const series = {
+          siteId: s.id, day: Math.floor(T0 / 86_400_000), time_ms: Float64Array.of(T0), stage_m: Float64Array.of(0.7),
+          source: Uint8Array.of(READING_SOURCE_CODES.staff), id: [id(2)],
+        };
+        const tx = db.transaction(['sites', 'readings', 'gaugings', 'ratings', 'drafts', 'meta', 'series'], 'readwrite');
         for (const [store, value] of records) await tx.objectStore(store).put(value as never);
         await tx.objectStore('meta').put('dev', 'deviceId');
+        // The derived series of the one live reading, as version 1 keeps it beside the readings.
+        await tx.objectStore('series').put(series);
         await tx.done;
-        return records.map(([, v]) => v);
+        return { records: records.map(([, v]) => v), series: [series] };
       },
     },
   ];
@@ -107,7 +114,7 @@ describe('upgrade ladder', () => {
       const old = await openDB<FreshetDB>(DB_NAME, step.version, {
         upgrade: (db, oldVersion, _n, tx) => upgradeFreshetDb(db, oldVersion, tx, step.version),
       });
-      const written = await step.write(old);
+      const { records: written, series } = await step.write(old);
       old.close();
       const db = await getDb();
       expect(db.version).toBe(DB_VERSION);
@@ -117,6 +124,7 @@ describe('upgrade ladder', () => {
       for (const w of written) expect(all).toContainEqual(w);
       expect(await getMeta('deviceId')).toBe('dev');
       expect((await db.getAllFromIndex('readings', 'by-site-time')).length).toBe(2);
+      expect(await db.getAll('series')).toEqual(series);
     });
   }
 });

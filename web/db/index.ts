@@ -1,7 +1,7 @@
 // web/db: the only way screens read and write stored records. Every save is validated, written in one
 // transaction and resolves only once durable; deletion is a tombstone that restore undoes.
 export { openFreshetDb, getDb, type FreshetDb } from './connection';
-export { DB_NAME, DB_VERSION, type FreshetDB, type MetaKey, type MetaValues } from './schema';
+export { DB_NAME, DB_VERSION, type FreshetDB, type MetaKey, type MetaValues, type SeriesChunk } from './schema';
 export { StorageError, storageMessage, toStorageError, type StorageFailure } from './errors';
 export { onDbEvent, onRecordsChanged, type DbEvent, type RecordsChange } from './events';
 export { storageState, type StorageState } from './persist';
@@ -10,6 +10,9 @@ export { changedSince, type ReadOptions, type SaveInput } from './records';
 export { saveSite, getSite, deleteSite, restoreSite, listSites } from './sites';
 export { saveReading, getReading, deleteReading, restoreReading, listReadings, latestReading, latestReadings } from './readings';
 export { readingsWithDischarge, type ReadingWithDischarge } from './readings-discharge';
+export { readingSeries, type ReadingSeries } from './readings-series';
+export { seriesWithDischarge, type SeriesWithDischarge } from './series-discharge';
+export { READING_SOURCE_CODES, readingSourceOfCode, type ReadingSourceCode } from '../../core/records/index';
 export {
   importReadings, DEFAULT_IMPORT_BATCH, type ImportOptions, type ImportProgress, type ImportDuplicate, type ImportResult,
 } from './readings-import';

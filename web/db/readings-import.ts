@@ -1,12 +1,15 @@
 // Bulk import of logger readings: validated first, then written in batches inside ONE readwrite
 // transaction (all or nothing), with progress after each batch; (site, source, time) duplicates, already
-// stored or repeated in the input, are reported and skipped.
+// stored or repeated in the input, are reported and skipped. The series (series-chunks.ts) of the days
+// imported is merged in memory and each day's chunk put once, in the same transaction.
 import { unwrap } from 'idb';
 import { RecordValidationError, validateReadingBody, type ReadingBody, type ReadingRecord, type ReadingSource } from '../../core/records/index';
 import { withDb } from './connection';
 import { now_ms, stampInTx } from './clock';
 import { StorageError, storageMessage } from './errors';
 import { afterWrite, DURABLE, inTx } from './records';
+import type { SeriesChunk } from './schema';
+import { dayOf, mergeIntoChunks } from './series-chunks';
 
 /** Readings written per batch unless told otherwise. */
 export const DEFAULT_IMPORT_BATCH = 5000;
@@ -92,15 +95,28 @@ export async function importReadings(readings: readonly ReadingBody[], options: 
   if (options.signal?.aborted) throw abortError();
   const at = now_ms();
   const ids = keep.map(() => crypto.randomUUID());
+  const days = new Map<string, { min: number; max: number }>();
+  for (const g of groups.values()) {
+    const d = days.get(g.siteId);
+    if (!d) days.set(g.siteId, { min: dayOf(g.min_ms), max: dayOf(g.max_ms) });
+    else {
+      d.min = Math.min(d.min, dayOf(g.min_ms));
+      d.max = Math.max(d.max, dayOf(g.max_ms));
+    }
+  }
 
   const result = await withDb(async (db) => {
-    const tx = db.transaction(['readings', 'meta'], 'readwrite', DURABLE);
+    const tx = db.transaction(['readings', 'series', 'meta'], 'readwrite', DURABLE);
     return inTx(tx, async () => {
-      const rev = await stampInTx(tx, at);
       const index = tx.objectStore('readings').index('by-site-source-time');
-      const stored = await Promise.all(
-        [...groups.values()].map((g) => index.getAll(IDBKeyRange.bound([g.siteId, g.source, g.min_ms], [g.siteId, g.source, g.max_ms]))),
-      );
+      const series = tx.objectStore('series');
+      const [rev, stored, chunks] = await Promise.all([
+        stampInTx(tx, at),
+        Promise.all(
+          [...groups.values()].map((g) => index.getAll(IDBKeyRange.bound([g.siteId, g.source, g.min_ms], [g.siteId, g.source, g.max_ms]))),
+        ),
+        Promise.all([...days].map(([siteId, d]) => series.getAll(IDBKeyRange.bound([siteId, d.min], [siteId, d.max])))),
+      ]);
       const skip = new Set<number>();
       [...groups.values()].forEach((g, gi) => {
         for (const old of stored[gi]) {
@@ -114,7 +130,12 @@ export async function importReadings(readings: readonly ReadingBody[], options: 
       keep.forEach((i, j) => {
         if (!skip.has(i)) toWrite.push({ ...readings[i], id: ids[j], rev, updated_ms: at });
       });
+      const storedChunks = new Map<string, SeriesChunk>();
+      for (const c of chunks.flat()) storedChunks.set(`${c.siteId}\u0000${c.day}`, c);
+      const merged = mergeIntoChunks(toWrite, storedChunks);
       await writeInBatches(unwrap(tx.objectStore('readings')), toWrite, batch, options);
+      const rawSeries = unwrap(series);
+      for (const c of merged) rawSeries.put(c);
       await tx.done;
       return { imported: toWrite.length, duplicates: duplicates.sort((a, b) => a.index - b.index), rev };
     });

@@ -1,6 +1,6 @@
 // The operations every record store shares: save, get, tombstone, restore, list by index range.
 // Each write is one transaction over the store and meta (for the revision), awaited to tx.done.
-import type { IndexNames } from 'idb';
+import type { IndexNames, StoreNames } from 'idb';
 import { isUuid, RecordValidationError, validateBody, type RecordKind, type StoredRecords } from '../../core/records/index';
 import type { FreshetDB, RecordStore } from './schema';
 import { withDb } from './connection';
@@ -9,6 +9,7 @@ import { StorageError, storageMessage } from './errors';
 import { notifyRecordsChanged } from './events';
 import { requestPersistenceOnce } from './persist';
 import { quietly } from './quietly';
+import { updateSeriesInTx } from './series-chunks';
 
 /** The record kind kept in each store. */
 export const KIND_OF_STORE = {
@@ -54,6 +55,11 @@ export async function inTx<T>(tx: { abort(): void; done: Promise<void> }, fn: ()
   }
 }
 
+/** The stores a write to `store` touches: readings also keep the series (series-chunks.ts) in step. */
+function writeScope(store: RecordStore): StoreNames<FreshetDB>[] {
+  return store === 'readings' ? ['readings', 'series', 'meta'] : [store, 'meta'];
+}
+
 /** After a write is durable: ask for persistent storage (first time) and tell the screens. */
 export function afterWrite(kinds: RecordKind[], ids?: string[]): void {
   requestPersistenceOnce();
@@ -74,11 +80,14 @@ export async function saveIn<S extends RecordStore>(store: S, input: SaveInput<R
   const id = given ?? crypto.randomUUID();
   const at = now_ms();
   const saved = await withDb(async (db) => {
-    const tx = db.transaction([store, 'meta'], 'readwrite', DURABLE);
+    const tx = db.transaction(writeScope(store), 'readwrite', DURABLE);
     return inTx(tx, async () => {
-      const rev = await stampInTx(tx, at);
+      const s = tx.objectStore(store);
+      // A reading's earlier version says where it sat in the series.
+      const [rev, before] = await Promise.all([stampInTx(tx, at), store === 'readings' ? s.get(id) : undefined]);
       const record = { ...body, id, rev, updated_ms: at } as unknown as RecordOf<S>;
-      quietly(tx.objectStore(store).put(record as FreshetDB[S]['value']));
+      quietly(s.put(record as FreshetDB[S]['value']));
+      if (store === 'readings') await updateSeriesInTx(tx, before as RecordOf<'readings'> | undefined, record as RecordOf<'readings'>);
       await tx.done;
       return record;
     });
@@ -99,7 +108,7 @@ async function setDeleted<S extends RecordStore>(store: S, id: string, deleted: 
   const kind = KIND_OF_STORE[store];
   const at = now_ms();
   const changed = await withDb(async (db) => {
-    const tx = db.transaction([store, 'meta'], 'readwrite', DURABLE);
+    const tx = db.transaction(writeScope(store), 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const s = tx.objectStore(store);
       const existing = (await s.get(id)) as RecordOf<S> | undefined;
@@ -112,6 +121,7 @@ async function setDeleted<S extends RecordStore>(store: S, id: string, deleted: 
       const { deleted: _was, ...rest } = existing as RecordOf<S> & { deleted?: true };
       const record = (deleted ? { ...rest, rev, updated_ms: at, deleted: true } : { ...rest, rev, updated_ms: at }) as RecordOf<S>;
       quietly(s.put(record as FreshetDB[S]['value']));
+      if (store === 'readings') await updateSeriesInTx(tx, existing as RecordOf<'readings'>, record as RecordOf<'readings'>);
       await tx.done;
       return record;
     });

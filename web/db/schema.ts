@@ -19,6 +19,25 @@ export interface MetaValues {
   [cursor: `cursor:${string}`]: string;
 }
 
+/**
+ * One site-day of the compact series derived from the readings store: the non-deleted readings of a site
+ * whose time falls in one UTC day, sorted by time (then id), as parallel arrays. Local only and never
+ * synced: it is rebuilt from readings, and every write to readings updates it in the same transaction.
+ */
+export interface SeriesChunk {
+  siteId: string;
+  /** UTC day index: floor(time_ms / 86 400 000). */
+  day: number;
+  /** Reading times, UTC ms, ascending. */
+  time_ms: Float64Array;
+  /** Stages, m above gauge datum. */
+  stage_m: Float64Array;
+  /** Reading sources as READING_SOURCE_CODES. */
+  source: Uint8Array;
+  /** Reading ids, so an edited, moved or deleted reading can be found in its chunk. */
+  id: string[];
+}
+
 /** Keys of the meta store. */
 export type MetaKey = keyof MetaValues & string;
 
@@ -41,6 +60,8 @@ export interface FreshetDB extends DBSchema {
   drafts: { key: string; value: DraftRecord; indexes: { 'by-form': string } };
   conflicts: { key: string; value: ConflictRecord; indexes: { 'by-record': string } };
   meta: { key: string; value: MetaValues[MetaKey] };
+  /** Derived from readings, local only, never synced (see SeriesChunk); key [siteId, day]. */
+  series: { key: [string, number]; value: SeriesChunk };
 }
 
 /** Stores that hold records with an envelope (all but meta). */

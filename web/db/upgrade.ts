@@ -33,5 +33,7 @@ export function upgradeFreshetDb(
     db.createObjectStore('drafts', { keyPath: 'id' }).createIndex('by-form', 'form');
     db.createObjectStore('conflicts', { keyPath: 'id' }).createIndex('by-record', 'recordId');
     db.createObjectStore('meta');
+    // Derived from readings (local only, never synced): one chunk of arrays per site and UTC day.
+    db.createObjectStore('series', { keyPath: ['siteId', 'day'] });
   }
 }

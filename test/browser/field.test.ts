@@ -227,6 +227,7 @@ describe('drafts, delete and undo', () => {
     const before = await storedReadings(DEMO_SITE_ID);
     const first = page.locator('ul[aria-label^="Readings of"] > li').first();
     const text = await first.locator('.item').textContent();
+    await first.locator('summary').click(); // a tap on the row shows its details and actions
     await first.getByRole('button', { name: /^Delete the reading/ }).click();
     await page.getByRole('button', { name: 'Undo' }).waitFor();
     expect(await storedReadings(DEMO_SITE_ID)).toEqual({ all: before.all, live: before.live - 1 });

@@ -8,6 +8,7 @@ import { Hydrograph } from '../../components/Hydrograph';
 import { formatAgo, formatQuantity, formatTime } from '../../format';
 import { href } from '../../router';
 import { toDisplay, displayUnit } from '../../../core';
+import './style.css';
 
 const DAY_MS = 86_400_000;
 /** How many days the small hydrograph shows, ending at the latest reading. */
@@ -133,31 +134,35 @@ export default function SiteReadings({ siteId }: { siteId: string }) {
         <ul class="list card" aria-label={`Readings of ${site.name}`}>
           {readings.slice(0, shown).map((r) => (
             <li key={r.reading.id} class="reading-row">
-              <div class="item">
-                <span>
-                  <strong>{formatQuantity('stage', r.reading.stage_m, u)}</strong>
-                  <span class="hint">
-                    {r.discharge_m3s === null ? 'no rating' : formatQuantity('discharge', r.discharge_m3s, u)}
-                    {r.extrapolated && <> <span class="tag">extrapolated</span></>}
-                    {r.reading.warnings.length > 0 && <> <span class="tag" title={r.reading.warnings.join(' ')}>{r.reading.warnings.length} warning{r.reading.warnings.length > 1 ? 's' : ''}</span></>}
+              <details>
+                <summary class="item">
+                  <span>
+                    <strong>{formatQuantity('stage', r.reading.stage_m, u)}</strong>
+                    <span class="hint">
+                      {r.discharge_m3s === null ? 'no rating' : formatQuantity('discharge', r.discharge_m3s, u)}
+                      {r.extrapolated && <> <span class="tag">extrapolated</span></>}
+                      {r.reading.warnings.length > 0 && <> <span class="tag">{r.reading.warnings.length} warning{r.reading.warnings.length > 1 ? 's' : ''}</span></>}
+                    </span>
                   </span>
-                </span>
-                <span style="text-align:right">
-                  <span>{formatTime(r.reading.time_ms, site.timeZone)}</span>
-                  <span class="hint">{r.reading.source} · {formatAgo(r.reading.time_ms, now)}</span>
-                </span>
-              </div>
-              {r.reading.warnings.length > 0 && (
-                <details>
-                  <summary>Warnings and note</summary>
-                  <ul>{r.reading.warnings.map((w, i) => <li key={i}>{w}</li>)}</ul>
+                  <span>
+                    <span>{formatTime(r.reading.time_ms, site.timeZone)}</span>
+                    <span class="hint">{r.reading.source} · {formatAgo(r.reading.time_ms, now)}</span>
+                  </span>
+                </summary>
+                <div class="reading-more">
+                  {r.reading.warnings.length > 0 && <ul>{r.reading.warnings.map((w, i) => <li key={i}>{w}</li>)}</ul>}
                   {r.reading.note && <p>Note: {r.reading.note}</p>}
-                </details>
-              )}
-              <div class="row reading-actions">
-                <a class="button" href={href('record', site.id, r.reading.id)} aria-label={`Edit the reading at ${formatTime(r.reading.time_ms, site.timeZone)}`}>Edit</a>
-                <button type="button" class="danger" onClick={() => void remove(r)} aria-label={`Delete the reading at ${formatTime(r.reading.time_ms, site.timeZone)}`}>Delete</button>
-              </div>
+                  <p class="hint">
+                    {r.reading.quality} quality{r.reading.observer && ` · read by ${r.reading.observer}`}
+                    {r.shift_m !== 0 && ` · shift ${formatQuantity('stage', r.shift_m, u)}`}
+                    {r.reading.gps && ` · location ± ${Math.round(r.reading.gps.accuracy_m)} m`}
+                  </p>
+                  <div class="row reading-actions">
+                    <a class="button" href={href('record', site.id, r.reading.id)} aria-label={`Edit the reading at ${formatTime(r.reading.time_ms, site.timeZone)}`}>Edit</a>
+                    <button type="button" class="danger" onClick={() => void remove(r)} aria-label={`Delete the reading at ${formatTime(r.reading.time_ms, site.timeZone)}`}>Delete</button>
+                  </div>
+                </div>
+              </details>
             </li>
           ))}
         </ul>

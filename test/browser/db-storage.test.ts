@@ -1,5 +1,5 @@
 // Storage in Chromium (real IndexedDB): a saved record survives a reload, and a 100,000-reading logger
-// import completes with progress events and every reading stored.
+// import completes with progress events, every reading stored and the series holding exactly those readings.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { launchBrowser, startPreview, type Browser, type Preview } from './harness';
@@ -41,6 +41,12 @@ describe('web/db in Chromium', () => {
     expect(result.stored).toBe(100_000);
     // exact: ten batches of 10,000.
     expect(result.progress).toEqual([10_000, 20_000, 30_000, 40_000, 50_000, 60_000, 70_000, 80_000, 90_000, 100_000]);
+    // The series holds exactly the imported readings, position by position (time, stage, source), as the
+    // readings store lists them too.
+    expect(result.seriesLength).toBe(100_000);
+    expect(result.seriesMismatches).toBe(0);
+    // exact: 100,000 quarter hours from midnight UTC fill 1,041 whole UTC days and 64 readings of one more.
+    expect(result.seriesChunks).toBe(1_042);
   }, 300_000); // about a minute on a busy 2-core machine; the speed itself is the benchmark's business
 
   it('answers the storage state with a usage estimate', async () => {

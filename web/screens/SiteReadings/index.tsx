@@ -2,7 +2,9 @@
 // and extrapolation, edit and delete (with undo), and a small hydrograph of the last days.
 import { useMemo, useState } from 'preact/hooks';
 import type { SiteRecord } from '../../../core';
-import { currentRating, deleteReading, getSite, listGaugings, readingsWithDischarge, restoreReading, type ReadingWithDischarge } from '../../db';
+import {
+  currentRating, deleteReading, getSite, listGaugings, readingsWithDischarge, restoreReading, seriesWithDischarge, type ReadingWithDischarge,
+} from '../../db';
 import { useRecords } from '../../app/use-records';
 import { Hydrograph } from '../../components/Hydrograph';
 import { formatAgo, formatQuantity, formatTime } from '../../format';
@@ -38,17 +40,26 @@ async function readSite(siteId: string, days: number): Promise<SiteView | undefi
   return { site, readings, ratingNote, gaugingCount: gaugings.length };
 }
 
-function SmallPlot({ site, readings }: { site: SiteRecord; readings: ReadingWithDischarge[] }) {
+/** The discharge of the PLOT_DAYS days up to the latest reading (last_ms, UTC ms), read as the compact series. */
+function SmallPlot({ site, last_ms }: { site: SiteRecord; last_ms: number | undefined }) {
+  const series = useRecords(
+    () => (last_ms === undefined ? Promise.resolve(undefined) : seriesWithDischarge(site.id, last_ms - PLOT_DAYS * DAY_MS, last_ms)),
+    ['reading', 'rating'],
+    [site.id, last_ms],
+  );
   const data = useMemo(() => {
-    if (readings.length < 2) return undefined;
-    const last = readings[0].reading.time_ms;
-    const window = readings.filter((r) => r.reading.time_ms >= last - PLOT_DAYS * DAY_MS && r.discharge_m3s !== null).reverse();
-    if (window.length < 2) return undefined;
-    return {
-      time_ms: window.map((r) => r.reading.time_ms),
-      values: window.map((r) => toDisplay('discharge', r.discharge_m3s!, site.displayUnits)),
-    };
-  }, [readings, site.displayUnits]);
+    if (series.state !== 'ready' || !series.value) return undefined;
+    const { time_ms, discharge_m3s } = series.value;
+    const times: number[] = [];
+    const values: number[] = [];
+    for (let i = 0; i < time_ms.length; i++) {
+      // NaN marks a reading with no rating in force: it has no discharge to plot.
+      if (Number.isNaN(discharge_m3s[i])) continue;
+      times.push(time_ms[i]);
+      values.push(toDisplay('discharge', discharge_m3s[i], site.displayUnits));
+    }
+    return times.length < 2 ? undefined : { time_ms: times, values };
+  }, [series, site.displayUnits]);
   if (!data) return null;
   const unit = displayUnit('discharge', site.displayUnits);
   const peak = Math.max(...data.values);
@@ -110,7 +121,7 @@ export default function SiteReadings({ siteId }: { siteId: string }) {
         {ratingNote ?? 'No rating yet: readings are kept as stage only until a rating is added.'}
         {` · ${gaugingCount} gauging${gaugingCount === 1 ? '' : 's'} on this phone`}
       </p>
-      <SmallPlot site={site} readings={readings} />
+      <SmallPlot site={site} last_ms={readings[0]?.reading.time_ms} />
       {message && <p class="callout bad" role="alert">{message}</p>}
       {undo && (
         <div class="notice" role="status">

@@ -1,4 +1,4 @@
-// Glue between stored readings and the core's storm functions: one discharge per time, the method the
+// Glue between the stored series and the core's storm functions: one discharge per time, the method the
 // user picked as a core SeparationMethod, and the whole analysis as one result or one plain error.
 import {
   BFI_MAX_PRESETS,
@@ -15,7 +15,7 @@ import {
   type EventSummary,
   type SeparationMethod,
 } from '../../../core';
-import type { ReadingWithDischarge } from '../../db';
+import { READING_SOURCE_CODES, type SeriesWithDischarge } from '../../db';
 import type { MethodChoice, MethodKind } from '../../components/SeparationPicker';
 
 /** A discharge record ready for the core: times (UTC ms, ascending) and discharges (m³/s). */
@@ -38,38 +38,56 @@ export type SeriesFromReadings =
   | { kind: 'empty' };
 
 /**
- * One discharge (m³/s) per time from readings in time order. Where several readings share a time, the
- * logger readings win (averaged if there are several); without a logger reading the manual ones are
- * averaged. Why: the logger record is the continuous series a storm is read from, and a staff check at
+ * One discharge (m³/s) per time from a window's series (times ascending). Where several readings share a
+ * time, the logger readings win (averaged if there are several); without a logger reading the manual ones
+ * are averaged. Why: the logger record is the continuous series a storm is read from, and a staff check at
  * the same minute checks the logger (its correction is applied at logger import); mixing it in would put
  * a step of a few millimetres into the record.
  */
-export function seriesFromReadings(rows: readonly ReadingWithDischarge[]): SeriesFromReadings {
-  if (rows.length === 0) return { kind: 'empty' };
-  const unrated = rows.filter((r) => r.discharge_m3s === null);
-  if (unrated.length > 0) {
-    return { kind: 'unrated', count: unrated.length, total: rows.length, firstTime_ms: unrated[0].reading.time_ms };
+export function seriesFromReadings(rows: SeriesWithDischarge): SeriesFromReadings {
+  const t = rows.time_ms;
+  const q = rows.discharge_m3s;
+  const n = t.length;
+  if (n === 0) return { kind: 'empty' };
+  let unrated = 0;
+  let firstUnrated = -1;
+  for (let i = 0; i < n; i++) {
+    // NaN is how the series marks a reading with no rating in force.
+    if (Number.isNaN(q[i])) {
+      unrated++;
+      if (firstUnrated < 0) firstUnrated = i;
+    }
   }
-  const times: number[] = [];
-  const discharges: number[] = [];
+  if (unrated > 0) return { kind: 'unrated', count: unrated, total: n, firstTime_ms: t[firstUnrated] };
+  const logger = READING_SOURCE_CODES.logger;
+  const times = new Float64Array(n);
+  const discharges = new Float64Array(n);
+  let m = 0;
   let skipped = 0;
   let extrapolated = 0;
   let i = 0;
-  while (i < rows.length) {
+  while (i < n) {
     let j = i;
-    while (j + 1 < rows.length && rows[j + 1].reading.time_ms === rows[i].reading.time_ms) j++;
-    const group = rows.slice(i, j + 1);
-    const loggers = group.filter((r) => r.reading.source === 'logger');
-    const chosen = loggers.length > 0 ? loggers : group;
-    skipped += group.length - chosen.length;
-    extrapolated += chosen.filter((r) => r.extrapolated).length;
-    times.push(rows[i].reading.time_ms);
-    discharges.push(chosen.reduce((sum, r) => sum + (r.discharge_m3s ?? 0), 0) / chosen.length);
+    while (j + 1 < n && t[j + 1] === t[i]) j++;
+    let loggers = 0;
+    for (let k = i; k <= j; k++) if (rows.source[k] === logger) loggers++;
+    let sum = 0;
+    let chosen = 0;
+    for (let k = i; k <= j; k++) {
+      if (loggers > 0 && rows.source[k] !== logger) continue;
+      sum += q[k];
+      extrapolated += rows.extrapolated[k];
+      chosen++;
+    }
+    skipped += j + 1 - i - chosen;
+    times[m] = t[i];
+    discharges[m] = sum / chosen;
+    m++;
     i = j + 1;
   }
   return {
     kind: 'ready',
-    series: { time_ms: Float64Array.from(times), discharge_m3s: Float64Array.from(discharges) },
+    series: { time_ms: times.slice(0, m), discharge_m3s: discharges.slice(0, m) },
     skipped,
     extrapolated,
   };

@@ -15,7 +15,7 @@ import { EventFigures } from '../../components/EventFigures';
 import { Hydrograph, type PlotLine, type PlotMarker } from '../../components/Hydrograph';
 import { KeyPointFields, type InflectionCrossCheck } from '../../components/KeyPointFields';
 import { SeparationPicker } from '../../components/SeparationPicker';
-import { latestReading, readingsWithDischarge, saveAnalysis } from '../../db';
+import { latestReading, saveAnalysis, seriesWithDischarge } from '../../db';
 import { formatQuantity, formatTime, parseDecimal } from '../../format';
 import { analyse, findPoints, polynomialInflection, seriesFromReadings, usesKeyPoints, type StormSeries } from './analysis';
 import { initialDraft, stormReducer, type TimeWindow } from './draft';
@@ -82,12 +82,13 @@ export function SiteStorm({ site }: { site: SiteRecord }) {
       ? { from_ms: latest.value.time_ms - DEFAULT_WINDOW_DAYS * DAY_MS, to_ms: latest.value.time_ms }
       : undefined;
   const win = draft.window ?? defaultWindow;
+  // The compact series (times, stages, sources) with discharges: all the storm needs, read fast.
   const rows = useLoad(
-    () => (win ? readingsWithDischarge(site.id, win.from_ms, win.to_ms) : Promise.resolve([])),
+    () => (win ? seriesWithDischarge(site.id, win.from_ms, win.to_ms) : Promise.resolve(undefined)),
     [site.id, win?.from_ms, win?.to_ms, dataVersion],
   );
 
-  const made = useMemo(() => (rows.status === 'ready' ? seriesFromReadings(rows.value) : undefined), [rows]);
+  const made = useMemo(() => (rows.status === 'ready' && rows.value ? seriesFromReadings(rows.value) : undefined), [rows]);
   const series = made?.kind === 'ready' ? made.series : undefined;
   const found = useMemo(() => (series ? findPoints(series, area) : undefined), [series, area]);
   const foundPoints = useMemo(() => (found?.ok ? wholeMs(found.value.points) : undefined), [found]);

@@ -7,7 +7,7 @@ export interface InflectionOptions {
   halfWindow_readings?: number;
 }
 
-/** Result of the smooth-fit inflection search: the time (UTC ms) and the bracket the root was found in. */
+/** Result of the smooth-fit inflection search: the time (UTC ms, whole) and the bracket the root was found in. */
 export interface InflectionResult {
   inflection_ms: number;
   bracket_ms: [number, number] | null;
@@ -54,7 +54,7 @@ export function inflectionOnPrepared(
   const m = halfWindow_readings ?? Math.min(15, Math.max(3, Math.round(count / 25)));
   const h = (m + 1) * medianStep(t, first, last);
   if (count < 3 || t.length < 4) {
-    return { inflection_ms: 0.5 * (peak_ms + end_ms), bracket_ms: null, halfWidth_ms: h };
+    return { inflection_ms: Math.round(0.5 * (peak_ms + end_ms)), bracket_ms: null, halfWidth_ms: h };
   }
   const slope = new Float64Array(count).fill(NaN);
   const curv = new Float64Array(count).fill(NaN);
@@ -77,7 +77,8 @@ export function inflectionOnPrepared(
     shapeAt(k);
     if (slope[k] < slope[steepest]) steepest = k;
   }
-  const clampTime = (x: number) => Math.min(end_ms, Math.max(peak_ms, x));
+  // Times are returned as whole milliseconds (records store integer ms), kept within [peak_ms, end_ms].
+  const clampTime = (x: number) => Math.round(Math.min(end_ms, Math.max(peak_ms, x)));
   for (let d = 0; d < count; d++) {
     for (const k of d === 0 ? [steepest - 1, steepest] : [steepest - 1 - d, steepest + d]) {
       if (k < 0 || k + 1 >= count) continue;
@@ -87,7 +88,7 @@ export function inflectionOnPrepared(
         const a = t[first + k];
         const b = t[first + k + 1];
         const root = bracketedRoot((x) => localPolynomial(t, q, x, h)?.curvature ?? 0, a, b, curv[k], curv[k + 1]);
-        return { inflection_ms: clampTime(root), bracket_ms: [a, b], halfWidth_ms: h };
+        return { inflection_ms: clampTime(root), bracket_ms: [Math.round(a), Math.round(b)], halfWidth_ms: h };
       }
     }
   }

@@ -33,7 +33,7 @@ export function findEventPoints(series: Series, options?: EventPointOptions): Ev
   return findEventPointsDetailed(series, options).points;
 }
 
-/** Like findEventPoints, with notes saying how the points were found (clamping, gaps). */
+/** Like findEventPoints, with notes saying how the points were found (clamping, gaps); times in whole ms. */
 export function findEventPointsDetailed(series: Series, options?: EventPointOptions): EventPointsDetailed {
   const fn = 'findEventPoints';
   const prepared = prepareSeries(series, fn);
@@ -52,7 +52,7 @@ export function findEventPointsDetailed(series: Series, options?: EventPointOpti
   let end_ms: number;
   if (area !== undefined) {
     const days = runoffDuration_days(area);
-    end_ms = t[peak] + days * MS_PER_DAY;
+    end_ms = Math.round(t[peak] + days * MS_PER_DAY);
     if (end_ms > t[n - 1]) {
       notes.push(
         `The end of runoff (peak + ${days.toPrecision(3)} days) is after the last reading; it was set to the last reading.`,
@@ -63,15 +63,29 @@ export function findEventPointsDetailed(series: Series, options?: EventPointOpti
     }
     const searchEnd = Math.min(end_ms, t[fallEnd]);
     const inflection = inflectionOnPrepared(t, q, t[peak], searchEnd).inflection_ms;
-    return { points: { riseStart_ms: t[rise], peak_ms: t[peak], inflection_ms: inflection, runoffEnd_ms: end_ms }, notes };
+    return { points: wholeMs({ riseStart_ms: t[rise], peak_ms: t[peak], inflection_ms: inflection, runoffEnd_ms: end_ms }, t[0], t[n - 1]), notes };
   }
   const inflection = inflectionOnPrepared(t, q, t[peak], t[fallEnd]).inflection_ms;
-  end_ms = semiLogBreak(t, q, inflection, fallEnd);
+  end_ms = Math.round(semiLogBreak(t, q, inflection, fallEnd));
   notes.push('The end of runoff is where the recession becomes straight on a semi-log plot (two-line fit of ln Q).');
   return {
-    points: { riseStart_ms: t[rise], peak_ms: t[peak], inflection_ms: Math.min(inflection, end_ms), runoffEnd_ms: end_ms },
+    points: wholeMs({ riseStart_ms: t[rise], peak_ms: t[peak], inflection_ms: Math.min(inflection, end_ms), runoffEnd_ms: end_ms }, t[0], t[n - 1]),
     notes,
   };
+}
+
+/** Key points rounded to whole milliseconds (records store integer ms), in order and inside [t_first, t_last]. */
+function wholeMs(p: EventPoints, first_ms: number, last_ms: number): EventPoints {
+  const lo = Math.ceil(first_ms);
+  const hi = Math.floor(last_ms);
+  const whole = (x: number, from: number) => {
+    const v = Math.max(from, Math.round(x));
+    return lo <= hi ? Math.min(hi, Math.max(lo, v)) : v;
+  };
+  const rise = whole(p.riseStart_ms, -Infinity);
+  const peak = whole(p.peak_ms, rise);
+  const inflection = whole(p.inflection_ms, peak);
+  return { riseStart_ms: rise, peak_ms: peak, inflection_ms: inflection, runoffEnd_ms: whole(p.runoffEnd_ms, inflection) };
 }
 
 /** The last reading at the pre-event level before the peak (noise below 1 % of the rise ignored). */

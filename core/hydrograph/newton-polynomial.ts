@@ -69,7 +69,7 @@ export function inflectionByNewtonPolynomial(
   }
   const root = safeguardedNewton(d2, d3, bracket[0], bracket[1]);
   return {
-    inflection_ms: from_ms + root.x * step,
+    inflection_ms: Math.round(from_ms + root.x * step),
     nodes_ms,
     nodes_m3s,
     differences,

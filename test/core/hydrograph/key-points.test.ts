@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { findEventPoints, findEventPointsDetailed, runoffDuration_days } from '../../../core/hydrograph/index';
-import { DAY, fromHours, H, T0, triangleSeries } from './fixtures';
+import {
+  findEventPoints,
+  findEventPointsDetailed,
+  findInflection,
+  findInflectionDetailed,
+  inflectionByNewtonPolynomial,
+  runoffDuration_days,
+} from '../../../core/hydrograph/index';
+import { DAY, fromHours, gammaSeries, H, T0, triangleSeries } from './fixtures';
 
 // NIST SP 811, Appendix B: 1 mi² = 2.589 988 110 336 km² (exact, 1.609344²).
 const KM2_PER_MI2 = 2.589988110336;
@@ -86,6 +93,24 @@ describe('findEventPoints', () => {
     expect(p.runoffEnd_ms).toBeLessThanOrEqual(T0 + 41 * H);
     // exact, derived: inflection at 10 + 6(1 + 1/√3) = 19.46 h (the second event adds nothing before 40 h)
     expect(Math.abs((p.inflection_ms - T0) / H - (16 + 6 / Math.sqrt(3)))).toBeLessThan(0.2);
+  });
+
+  it('returns every time as a whole millisecond (records store integer ms)', () => {
+    // N = 0.827·7^0.2 days is not a whole number of ms; the inflection root and the semi-log break are not either.
+    const storm = gammaSeries(1.5, 20, 9, 3, 0.25, 96);
+    for (const options of [undefined, { area_km2: 7 }, { area_km2: 123.4 }]) {
+      const r = findEventPointsDetailed(storm, options);
+      for (const v of Object.values(r.points)) expect(Number.isInteger(v)).toBe(true);
+      expect(findEventPoints(storm, options)).toEqual(r.points);
+    }
+    const found = findInflectionDetailed(storm, T0 + 9 * H, T0 + 60 * H);
+    expect(Number.isInteger(found.inflection_ms)).toBe(true);
+    for (const v of found.bracket_ms ?? []) expect(Number.isInteger(v)).toBe(true);
+    expect(Number.isInteger(findInflection(storm, T0 + 9 * H, T0 + 60 * H))).toBe(true);
+    expect(Number.isInteger(inflectionByNewtonPolynomial(storm, T0 + 9 * H, T0 + 40 * H).inflection_ms)).toBe(true);
+    // the area rule still holds to the millisecond: peak + N days, rounded (Linsley, Kohler & Paulhus)
+    const p = findEventPoints(storm, { area_km2: 7 });
+    expect(p.runoffEnd_ms).toBe(Math.round(p.peak_ms + 0.827 * Math.pow(7, 0.2) * DAY));
   });
 
   it('throws a RangeError when there is no rise or no fall', () => {

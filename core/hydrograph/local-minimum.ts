@@ -11,7 +11,7 @@ export function localMinimumInterval_days(area_km2: number): number {
 }
 
 /**
- * Baseflow (m³/s) of a regular record: a reading is a local minimum when it is the lowest within
+ * Baseflow (m³/s) of a regular record of daily (or coarser) flows: a reading is a local minimum when it is the lowest within
  * (interval − 1)/2 days either side; baseflow is linear between local minima, held level beyond, ≤ Q.
  */
 export function localMinimum(t: Float64Array, q: Float64Array, step_ms: number, interval_days: number): Float64Array {

@@ -13,9 +13,10 @@ export interface SmoothedMinimaDetail {
 }
 
 /**
- * Baseflow (m³/s) of a regular record: minima of non-overlapping blocks; a block minimum is a turning
- * point when factor × it is at or below both neighbouring block minima; baseflow is linear between
- * turning points, held level before the first and after the last, and capped at Q.
+ * Baseflow (m³/s) of a regular record of daily (or coarser) flows: minima of non-overlapping blocks; a block
+ * minimum is a turning point when factor × it is at or below both neighbouring block minima; baseflow is
+ * linear between turning points, held level before the first and after the last, and capped at Q.
+ * window_days (the record's length in days) is only for the message when the record is too short.
  */
 export function smoothedMinima(
   t: Float64Array,
@@ -23,12 +24,16 @@ export function smoothedMinima(
   step_ms: number,
   block_days: number = defaultSmoothedMinima.block_days,
   factor: number = defaultSmoothedMinima.factor,
+  window_days: number = (q.length * step_ms) / MS_PER_DAY,
 ): SmoothedMinimaDetail {
   const block = Math.max(1, Math.round((block_days * MS_PER_DAY) / step_ms));
   const blocks = Math.floor(q.length / block);
   if (blocks < 3) {
+    const blockDays = Number(((block * step_ms) / MS_PER_DAY).toPrecision(6));
+    const has = Math.floor(window_days * 10 + 1e-9) / 10;
     throw new RangeError(
-      `smoothed-minima needs at least 3 whole blocks of ${block} readings (${block_days} days); got ${blocks}`,
+      `Smoothed minima needs at least ${Number((3 * blockDays).toPrecision(6))} days of flows (three ${blockDays}-day blocks); ` +
+        `this window has ${has} days. Widen the window.`,
     );
   }
   const blockMinima: number[] = [];

@@ -1,13 +1,18 @@
 // Lyne & Hollick (1979) recursive digital filter, passes alternating forward and backward
 // (Nathan & McMahon 1990), with reflected ends (Ladson et al. 2013).
 
-/** Default Lyne–Hollick settings: α = 0.925 per step, 3 passes, 30 values reflected at each end. */
+/**
+ * Default Lyne–Hollick settings: α = 0.925 per day (published for daily data), 3 passes, 30 values reflected at
+ * each end (30 days on daily data). separateBaseflow applies α at the record's step as α^(Δt/1 day) and
+ * reflects 30 days of readings on sub-daily data.
+ */
 export const defaultLyneHollick = { alpha: 0.925, passes: 3, reflect: 30 } as const;
 
 /**
- * Baseflow (m³/s) of a regular, gap-free record by the Lyne–Hollick filter:
+ * Baseflow (m³/s) of a regular, gap-free record by the Lyne–Hollick filter with α per step of the record:
  * quickflow f_k = α·f_{k−1} + (1+α)/2·(x_k − x_{k−1}) kept within 0 ≤ f_k ≤ x_k, baseflow x_k − f_k,
- * where x is the discharge on the first pass and the previous pass's baseflow after that.
+ * where x is the discharge on the first pass and the previous pass's baseflow after that. The record is
+ * extended by `reflect` mirrored values at each end; only the output array (length n) is the size of the record.
  */
 export function lyneHollick(
   q: Float64Array,
@@ -18,42 +23,89 @@ export function lyneHollick(
   const n = q.length;
   if (n === 1) return Float64Array.of(q[0]);
   const r = Math.min(reflect, n - 1);
-  const x = new Float64Array(n + 2 * r);
-  x.set(q, r);
-  for (let j = 1; j <= r; j++) {
-    x[r - j] = q[j];
-    x[r + n - 1 + j] = q[n - 1 - j];
+  // The extended record is head (r values) + body (n) + tail (r): head[i] = q[r − i], tail[i] = q[n − 2 − i].
+  const head = new Float64Array(r);
+  const tail = new Float64Array(r);
+  for (let i = 0; i < r; i++) {
+    head[i] = q[r - i];
+    tail[i] = q[n - 2 - i];
   }
+  const body = new Float64Array(n);
   const c = (1 + alpha) / 2;
   for (let pass = 0; pass < passes; pass++) {
-    if (pass % 2 === 0) forward(x, alpha, c);
-    else backward(x, alpha, c);
+    const source = pass === 0 ? q : body;
+    if (pass % 2 === 0) forward(head, source, body, tail, alpha, c);
+    else backward(head, body, tail, alpha, c);
   }
-  return x.slice(r, r + n);
+  return body;
 }
 
-function forward(x: Float64Array, alpha: number, c: number): void {
+/** A forward pass over head, body (read from `source`, written to `body`) and tail; the first value is kept. */
+function forward(head: Float64Array, source: Float64Array, body: Float64Array, tail: Float64Array, alpha: number, c: number): void {
+  const r = head.length;
+  const n = body.length;
   let f = 0;
-  let previous = x[0];
-  for (let k = 1; k < x.length; k++) {
-    const xk = x[k];
+  let previous = r > 0 ? head[0] : source[0];
+  for (let k = 1; k < r; k++) {
+    const xk = head[k];
     f = alpha * f + c * (xk - previous);
     if (f < 0) f = 0;
     else if (f > xk) f = xk;
     previous = xk;
-    x[k] = xk - f;
+    head[k] = xk - f;
   }
-}
-
-function backward(x: Float64Array, alpha: number, c: number): void {
-  let f = 0;
-  let previous = x[x.length - 1];
-  for (let k = x.length - 2; k >= 0; k--) {
-    const xk = x[k];
+  let from = 0;
+  if (r === 0) {
+    body[0] = source[0];
+    from = 1;
+  }
+  for (let k = from; k < n; k++) {
+    const xk = source[k];
     f = alpha * f + c * (xk - previous);
     if (f < 0) f = 0;
     else if (f > xk) f = xk;
     previous = xk;
-    x[k] = xk - f;
+    body[k] = xk - f;
+  }
+  for (let k = 0; k < r; k++) {
+    const xk = tail[k];
+    f = alpha * f + c * (xk - previous);
+    if (f < 0) f = 0;
+    else if (f > xk) f = xk;
+    previous = xk;
+    tail[k] = xk - f;
+  }
+}
+
+/** A backward pass over tail, body and head, in place; the last value of the extended record is kept. */
+function backward(head: Float64Array, body: Float64Array, tail: Float64Array, alpha: number, c: number): void {
+  const r = tail.length;
+  const n = body.length;
+  let f = 0;
+  let previous = r > 0 ? tail[r - 1] : body[n - 1];
+  for (let k = r - 2; k >= 0; k--) {
+    const xk = tail[k];
+    f = alpha * f + c * (xk - previous);
+    if (f < 0) f = 0;
+    else if (f > xk) f = xk;
+    previous = xk;
+    tail[k] = xk - f;
+  }
+  const from = r === 0 ? n - 2 : n - 1;
+  for (let k = from; k >= 0; k--) {
+    const xk = body[k];
+    f = alpha * f + c * (xk - previous);
+    if (f < 0) f = 0;
+    else if (f > xk) f = xk;
+    previous = xk;
+    body[k] = xk - f;
+  }
+  for (let k = r - 1; k >= 0; k--) {
+    const xk = head[k];
+    f = alpha * f + c * (xk - previous);
+    if (f < 0) f = 0;
+    else if (f > xk) f = xk;
+    previous = xk;
+    head[k] = xk - f;
   }
 }

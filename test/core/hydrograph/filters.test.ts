@@ -114,8 +114,19 @@ describe('smoothed minima (Institute of Hydrology 1980; Gustard et al. 1992, IH 
     for (let i = 0; i < Q.length; i++) expect(b[i]).toBeCloseTo(expected[i], 12);
   });
 
-  it('throws when the record has fewer than three whole blocks', () => {
-    expect(() => separateBaseflow(daily(Q.slice(0, 14)), { kind: 'smoothed-minima' })).toThrow(/at least 3 whole blocks/);
+  it('throws when the record has fewer than three whole blocks, saying how many days it has and needs', () => {
+    // 14 daily flows are 14 days; three 5-day blocks need 15 (IH 1980 block rule)
+    const call = () => separateBaseflow(daily(Q.slice(0, 14)), { kind: 'smoothed-minima' });
+    expect(call).toThrow(RangeError);
+    expect(call).toThrow(
+      'Smoothed minima needs at least 15 days of flows (three 5-day blocks); this window has 14 days. Widen the window.',
+    );
+    // 6-minute readings over 9.2 days (2208 steps): 9 whole days of daily means, one 5-day block
+    const n = 2209;
+    const sub = { time_ms: Float64Array.from({ length: n }, (_, i) => T0 + i * 360_000), discharge_m3s: new Float64Array(n).fill(3) };
+    expect(() => separateBaseflow(sub, { kind: 'smoothed-minima' })).toThrow(
+      'Smoothed minima needs at least 15 days of flows (three 5-day blocks); this window has 9.2 days. Widen the window.',
+    );
   });
 });
 
@@ -146,5 +157,52 @@ describe('local minimum (Sloto & Crouse 1996, USGS WRIR 96-4040)', () => {
 
   it('needs an interval or an area', () => {
     expect(() => separateBaseflow(daily(Q), { kind: 'local-minimum' })).toThrow(/interval_days or a catchment area_km2/);
+  });
+});
+
+// On sub-daily records both minima methods work on daily mean flows, as published (IH 1980; Sloto & Crouse 1996).
+describe('minima methods on sub-daily readings', () => {
+  // The hand-checkable daily series above as 6-hourly readings with a made-up ripple (invented). The test
+  // computes its own daily means by the trapezoid rule and feeds them to the daily method checked by hand above.
+  const step = 6 * 3_600_000;
+  const n = Q.length * 4 + 1;
+  const time_ms = Float64Array.from({ length: n }, (_, i) => T0 + i * step);
+  const discharge_m3s = Float64Array.from({ length: n }, (_, i) => Q[Math.min(Q.length - 1, Math.floor(i / 4))] * (1 + 0.2 * Math.sin(i)));
+  const sub = { time_ms, discharge_m3s };
+
+  /** The test's own daily means: trapezoid rule over each whole day from the first reading. */
+  function ownDailyMeans(): number[] {
+    const means: number[] = [];
+    for (let d = 0; (d + 1) * 4 < n; d++) {
+      let sum = 0;
+      for (let i = d * 4; i < d * 4 + 4; i++) sum += (discharge_m3s[i] + discharge_m3s[i + 1]) / 2;
+      means.push(sum / 4);
+    }
+    return means;
+  }
+
+  for (const method of [{ kind: 'smoothed-minima' }, { kind: 'local-minimum', interval_days: 5 }] as const) {
+    it(`${method.kind}: the daily method on daily means, interpolated to the readings between day middles, capped at Q`, () => {
+      const means = ownDailyMeans();
+      expect(means.length).toBe(Q.length);
+      const onDays = separateBaseflow(daily(means), method);
+      const r = separateBaseflowDetailed(sub, method);
+      for (let i = 0; i < n; i++) {
+        // the day middle of day d is at 4d + 2 readings; held level before the first and after the last middle
+        const x = (i - 2) / 4;
+        const d = Math.max(0, Math.min(means.length - 1, Math.floor(x)));
+        const v =
+          x <= 0 ? onDays[0] : x >= means.length - 1 ? onDays[means.length - 1] : onDays[d] + (onDays[d + 1] - onDays[d]) * (x - d);
+        expect(r.baseflow[i]).toBeCloseTo(Math.min(v, discharge_m3s[i]), 12);
+      }
+      expect(r.notes.join(' ')).toMatch(/means of the 25 whole days/);
+    });
+  }
+
+  it('local minimum needs at least one whole day on sub-daily readings', () => {
+    const short = { time_ms: time_ms.subarray(0, 4), discharge_m3s: discharge_m3s.subarray(0, 4) };
+    expect(() => separateBaseflow(short, { kind: 'local-minimum', interval_days: 5 })).toThrow(
+      /at least one whole day of readings for local minimum .* this window has 0.7 days/,
+    );
   });
 });

@@ -56,9 +56,10 @@ describe('resampling irregular readings for the filters', () => {
     expect(r.baseflow.length).toBe(hours.length);
   });
 
-  it('does not resample regular data', () => {
+  it('does not resample regular data (the only note is the per-day α applied at the hourly step)', () => {
+    // α is per day since the constants became per day: 0.925^(1/24) = 0.996757… per hour
     const r = separateBaseflowDetailed(hourly([3, 4, 9, 7, 5, 4, 3.5, 3.2]), { kind: 'lyne-hollick' });
-    expect(r.notes).toEqual([]);
+    expect(r.notes).toEqual(['Lyne–Hollick α 0.925 per day applied as 0.996757 per 1-h step.']);
   });
 
   it('resampled baseflow is capped at the readings', () => {

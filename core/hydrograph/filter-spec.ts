@@ -1,7 +1,8 @@
 // The recursive filters as specifications: checked settings, the note about the time step, and how to run.
 import { chapmanMaxwell, chapmanMaxwellCoefficients } from './filters/chapman-maxwell';
 import { eckhardt, eckhardtCoefficients } from './filters/eckhardt';
-import { defaultLyneHollick, lyneHollick } from './filters/lyne-hollick';
+import { firstOrderFilterChecked } from './filters/first-order';
+import { defaultLyneHollick, lyneHollick, lyneHollickChecked } from './filters/lyne-hollick';
 import { perStep, perStepNote } from './filters/time-step';
 import { inOpenUnit, SEPARATE_FN } from './method-checks';
 import { MS_PER_DAY } from './series';
@@ -13,8 +14,11 @@ export interface FilterSpec {
   note(step_ms: number): string;
   /** Baseflow (m³/s) of a regular, gap-free record with the given step. */
   run(q: Float64Array, step_ms: number): Float64Array;
-  /** For one-store filters: b_k = carry·b_{k−1} + gain·Q_k from b₀ = start·Q₀ at the given step. */
-  firstOrder?(step_ms: number): { carry: number; gain: number; start: number };
+  /**
+   * The same on the caller's arrays, checking the record in the filter's own loop; null unless the record is
+   * clean (finite ascending times, finite discharges ≥ 0) and regular with step step_ms.
+   */
+  runChecked(t: Float64Array, q: Float64Array, step_ms: number): Float64Array | null;
 }
 
 /** The recursive filter methods of SeparationMethod. */
@@ -42,6 +46,7 @@ export function filterSpec(method: FilterMethod): FilterSpec {
         name: 'Lyne–Hollick',
         note: (step) => perStepNote('Lyne–Hollick α', alpha, step),
         run: (q, step) => lyneHollick(q, perStep(alpha, step), passes, reflectedReadings(step)),
+        runChecked: (t, q, step) => lyneHollickChecked(t, q, perStep(alpha, step), passes, reflectedReadings(step)),
       };
     }
     case 'eckhardt': {
@@ -54,7 +59,10 @@ export function filterSpec(method: FilterMethod): FilterSpec {
         name: 'Eckhardt',
         note: (step) => perStepNote('Recession constant', a, step),
         run: (q, step) => eckhardt(q, bfiMax, perStep(a, step)),
-        firstOrder: (step) => ({ ...eckhardtCoefficients(bfiMax, perStep(a, step)), start: bfiMax }),
+        runChecked: (t, q, step) => {
+          const { carry, gain } = eckhardtCoefficients(bfiMax, perStep(a, step));
+          return firstOrderFilterChecked(t, q, carry, gain, bfiMax);
+        },
       };
     }
     case 'chapman-maxwell': {
@@ -63,7 +71,10 @@ export function filterSpec(method: FilterMethod): FilterSpec {
         name: 'Chapman–Maxwell',
         note: (step) => perStepNote('Recession constant', k, step),
         run: (q, step) => chapmanMaxwell(q, perStep(k, step)),
-        firstOrder: (step) => ({ ...chapmanMaxwellCoefficients(perStep(k, step)), start: 0.5 }),
+        runChecked: (t, q, step) => {
+          const { carry, gain } = chapmanMaxwellCoefficients(perStep(k, step));
+          return firstOrderFilterChecked(t, q, carry, gain, 0.5);
+        },
       };
     }
     default: {

@@ -1,7 +1,6 @@
 // Running a recursive filter on a record: a fused check-and-filter pass for clean regular records, otherwise
 // resampling to a regular grid and splitting at long gaps, then mapping the baseflow back to the readings.
 import type { FilterSpec } from './filter-spec';
-import { firstOrderFilterChecked } from './filters/first-order';
 import { positive, SEPARATE_FN } from './method-checks';
 import { interpolateOnto, medianInterval_ms, resampleRegular } from './resample';
 import type { PreparedSeries, Series } from './series';
@@ -14,18 +13,17 @@ export interface FilterRun {
 }
 
 /**
- * The quick path for one-store filters on a clean regular record given as Float64Arrays: one loop checks the
- * record and filters it. Null when the path does not apply; the general path then checks and reports.
+ * The quick path for a clean regular record given as Float64Arrays: the filter's own loop checks the record
+ * while filtering. Null when the path does not apply; the general path then checks and reports.
  */
-export function firstOrderQuick(series: Series, spec: FilterSpec): FilterRun | null {
+export function filterQuick(series: Series, spec: FilterSpec): FilterRun | null {
   const t = series?.time_ms;
   const q = series?.discharge_m3s;
-  if (!spec.firstOrder || !(t instanceof Float64Array) || !(q instanceof Float64Array)) return null;
+  if (!(t instanceof Float64Array) || !(q instanceof Float64Array)) return null;
   if (t.length !== q.length || t.length < 3) return null;
   const step = t[1] - t[0];
   if (!(step > 0 && step < Infinity)) return null;
-  const { carry, gain, start } = spec.firstOrder(step);
-  const baseflow = firstOrderFilterChecked(t, q, carry, gain, start);
+  const baseflow = spec.runChecked(t, q, step);
   return baseflow === null ? null : { baseflow, notes: [spec.note(step)] };
 }
 

@@ -8,7 +8,7 @@ import { findEventPointsDetailed } from './key-points';
 import { localMinimum, localMinimumInterval_days } from './local-minimum';
 import { positive, SEPARATE_FN as FN } from './method-checks';
 import { medianInterval_ms } from './resample';
-import { backToReadings, firstOrderQuick, recursiveFilter, regularGrid } from './run-filter';
+import { backToReadings, filterQuick, recursiveFilter, regularGrid } from './run-filter';
 import {
   checkArea,
   checkEventPoints,
@@ -69,10 +69,11 @@ export function separateBaseflowDetailed(
   method: SeparationMethod,
   context?: SeparationContext,
 ): SeparationResult {
-  if ((method?.kind === 'eckhardt' || method?.kind === 'chapman-maxwell') && context?.maxBridge_ms === undefined) {
+  const kind = method?.kind;
+  if ((kind === 'eckhardt' || kind === 'chapman-maxwell' || kind === 'lyne-hollick') && context?.maxBridge_ms === undefined) {
     const spec = filterSpec(method);
     if (context?.area_km2 !== undefined) checkArea(context.area_km2, FN);
-    const quick = firstOrderQuick(series, spec);
+    const quick = filterQuick(series, spec);
     if (quick !== null) return quick;
   }
   const prepared = prepareSeries(series, FN);

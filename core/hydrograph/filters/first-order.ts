@@ -38,23 +38,29 @@ export function firstOrderFilterChecked(
   const n = q.length;
   const out = new Float64Array(n);
   const q0 = q[0];
-  let ok = q0 >= 0 && q0 < Infinity && t[0] > -Infinity;
   let level = start * q0;
   out[0] = level;
+  // The checks are kept free of branches: a NaN or infinity anywhere makes the sums non-finite.
+  let qMin = q0;
+  let qSum = q0;
   let stepMin = Infinity;
-  let stepMax = 0;
+  let stepMax = -Infinity;
+  let stepSum = 0;
   let previous = t[0];
   for (let k = 1; k < n; k++) {
     const qk = q[k];
     const tk = t[k];
     const step = tk - previous;
     previous = tk;
-    ok = ok && step > 0 && tk < Infinity && qk >= 0 && qk < Infinity;
+    qMin = qk < qMin ? qk : qMin;
+    qSum += qk;
+    stepSum += step;
     stepMin = step < stepMin ? step : stepMin;
     stepMax = step > stepMax ? step : stepMax;
     level = carry * level + gain * qk;
     if (level > qk) level = qk;
     out[k] = level;
   }
-  return ok && stepMax - stepMin <= 1e-6 * stepMin ? out : null;
+  const clean = qMin >= 0 && Number.isFinite(qSum) && Number.isFinite(t[0]) && Number.isFinite(stepSum) && stepMin > 0;
+  return clean && stepMax - stepMin <= 1e-6 * stepMin ? out : null;
 }

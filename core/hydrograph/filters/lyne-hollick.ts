@@ -40,6 +40,84 @@ export function lyneHollick(
   return body;
 }
 
+/**
+ * The same filter, checking the record during the first pass: returns null unless every time is finite and
+ * ascending, every interval equals the others within one part in a million (the rule of prepareSeries), and
+ * every discharge is finite and ≥ 0. On null the caller takes the general path, which says what is wrong.
+ */
+export function lyneHollickChecked(
+  t: Float64Array,
+  q: Float64Array,
+  alpha: number,
+  passes: number,
+  reflect: number,
+): Float64Array | null {
+  const n = q.length;
+  if (n < 3 || t.length !== n || !(t[0] > -Infinity) || !(q[0] >= 0 && q[0] < Infinity)) return null;
+  const r = Math.min(reflect, n - 1);
+  const head = new Float64Array(r);
+  const tail = new Float64Array(r);
+  for (let i = 0; i < r; i++) {
+    head[i] = q[r - i];
+    tail[i] = q[n - 2 - i];
+  }
+  const body = new Float64Array(n);
+  const c = (1 + alpha) / 2;
+  let f = 0;
+  let previous = r > 0 ? head[0] : q[0];
+  for (let k = 1; k < r; k++) {
+    const xk = head[k];
+    f = alpha * f + c * (xk - previous);
+    if (f < 0) f = 0;
+    else if (f > xk) f = xk;
+    previous = xk;
+    head[k] = xk - f;
+  }
+  let from = 0;
+  if (r === 0) {
+    body[0] = q[0];
+    from = 1;
+  }
+  // The checks are kept free of branches: a NaN or infinity anywhere makes the sums non-finite.
+  let qMin = q[0];
+  let qSum = 0;
+  let stepMin = Infinity;
+  let stepMax = -Infinity;
+  let stepSum = 0;
+  let previousT = t[0];
+  for (let k = from; k < n; k++) {
+    const xk = q[k];
+    const tk = t[k];
+    const step = tk - previousT;
+    previousT = tk;
+    qMin = xk < qMin ? xk : qMin;
+    qSum += xk;
+    stepSum += step;
+    stepMin = step < stepMin && k > 0 ? step : stepMin;
+    stepMax = step > stepMax ? step : stepMax;
+    f = alpha * f + c * (xk - previous);
+    if (f < 0) f = 0;
+    else if (f > xk) f = xk;
+    previous = xk;
+    body[k] = xk - f;
+  }
+  const clean = qMin >= 0 && Number.isFinite(qSum) && Number.isFinite(stepSum) && stepMin > 0;
+  if (!clean || stepMax - stepMin > 1e-6 * stepMin) return null;
+  for (let k = 0; k < r; k++) {
+    const xk = tail[k];
+    f = alpha * f + c * (xk - previous);
+    if (f < 0) f = 0;
+    else if (f > xk) f = xk;
+    previous = xk;
+    tail[k] = xk - f;
+  }
+  for (let pass = 1; pass < passes; pass++) {
+    if (pass % 2 === 0) forward(head, body, body, tail, alpha, c);
+    else backward(head, body, tail, alpha, c);
+  }
+  return body;
+}
+
 /** A forward pass over head, body (read from `source`, written to `body`) and tail; the first value is kept. */
 function forward(head: Float64Array, source: Float64Array, body: Float64Array, tail: Float64Array, alpha: number, c: number): void {
   const r = head.length;

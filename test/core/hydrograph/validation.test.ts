@@ -42,6 +42,33 @@ describe('bad series', () => {
   }
 });
 
+describe('bad series as Float64Arrays (the filters check these inside their own loop first)', () => {
+  const f64 = (t: number[], q: number[]): Series => ({ time_ms: Float64Array.from(t), discharge_m3s: Float64Array.from(q) });
+  const cases: [string, Series, RegExp][] = [
+    ['times not ascending', f64([0, 1, 2, 1.5, 4], [1, 1, 1, 1, 1]), /time_ms strictly ascending; reading 3/],
+    ['repeated time', f64([0, 1, 1, 2], [1, 1, 1, 1]), /time_ms strictly ascending; reading 2/],
+    ['negative discharge', f64([0, 1, 2, 3], [1, 1, -0.5, 1]), /discharge ≥ 0 m³\/s; discharge_m3s\[2\] is -0.5/],
+    ['negative first discharge', f64([0, 1, 2, 3], [-1, 1, 1, 1]), /discharge_m3s\[0\] is -1/],
+    ['infinite discharge', f64([0, 1, 2, 3], [1, 1, 1, Infinity]), /finite discharges/],
+    ['infinite time', f64([0, 1, 2, Infinity], [1, 1, 1, 1]), /finite times; time_ms\[3\]/],
+    ['non-finite time', f64([0, NaN, 2, 3], [1, 1, 1, 1]), /finite times; time_ms\[1\]/],
+    ['length mismatch', f64([0, 1, 2, 3], [1, 1, 1]), /as many discharges as times/],
+  ];
+  const filters: SeparationMethod[] = [
+    { kind: 'lyne-hollick' },
+    { kind: 'eckhardt', bfiMax: 0.8, recession: 0.98 },
+    { kind: 'chapman-maxwell', recession: 0.925 },
+  ];
+  for (const [name, s, message] of cases) {
+    it(name, () => {
+      for (const method of filters) {
+        expect(() => separateBaseflow(s, method)).toThrow(RangeError);
+        expect(() => separateBaseflow(s, method)).toThrow(message);
+      }
+    });
+  }
+});
+
 describe('bad key points', () => {
   const p: EventPoints = { riseStart_ms: T0 + 10 * H, peak_ms: T0 + 14 * H, inflection_ms: T0 + 18 * H, runoffEnd_ms: T0 + 30 * H };
   const cases: [string, EventPoints, RegExp][] = [

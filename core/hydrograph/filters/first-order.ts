@@ -24,9 +24,10 @@ export function firstOrderFilter(
 }
 
 /**
- * The same filter, checking the record in the same loop: returns null unless every time is finite and
- * ascending, every interval equals the others within one part in a million (the rule of prepareSeries),
- * and every discharge is finite and ≥ 0. On null the caller takes the general path, which says what is wrong.
+ * The same filter, checking the record in the same loop: returns null unless every step is within 4·10⁻⁷ of
+ * the first (hence the record is regular by the rule of prepareSeries, one part in a million, and its times
+ * finite and ascending) and every discharge is finite and ≥ 0. The step test is a sum of squared deviations,
+ * a sufficient condition: on null the caller takes the general path, which decides and says what is wrong.
  */
 export function firstOrderFilterChecked(
   t: Float64Array,
@@ -40,27 +41,29 @@ export function firstOrderFilterChecked(
   const q0 = q[0];
   let level = start * q0;
   out[0] = level;
-  // The checks are kept free of branches: a NaN or infinity anywhere makes the sums non-finite.
+  const step0 = t[1] - t[0];
+  // A NaN or infinity anywhere makes the sums non-finite, so the loop needs no early exits.
+  let deviation2 = 0;
   let qMin = q0;
   let qSum = q0;
-  let stepMin = Infinity;
-  let stepMax = -Infinity;
-  let stepSum = 0;
   let previous = t[0];
   for (let k = 1; k < n; k++) {
     const qk = q[k];
     const tk = t[k];
-    const step = tk - previous;
+    const d = tk - previous - step0;
     previous = tk;
-    qMin = qk < qMin ? qk : qMin;
+    deviation2 += d * d;
     qSum += qk;
-    stepSum += step;
-    stepMin = step < stepMin ? step : stepMin;
-    stepMax = step > stepMax ? step : stepMax;
+    qMin = qk < qMin ? qk : qMin;
     level = carry * level + gain * qk;
     if (level > qk) level = qk;
     out[k] = level;
   }
-  const clean = qMin >= 0 && Number.isFinite(qSum) && Number.isFinite(t[0]) && Number.isFinite(stepSum) && stepMin > 0;
-  return clean && stepMax - stepMin <= 1e-6 * stepMin ? out : null;
+  return regularEnough(deviation2, step0) && qMin >= 0 && qSum < Infinity ? out : null;
+}
+
+/** True when a sum of squared step deviations (ms²) proves every step within 4·10⁻⁷ of step0 (ms > 0). */
+export function regularEnough(deviation2: number, step0: number): boolean {
+  const tolerance = 4e-7 * step0;
+  return step0 > 0 && step0 < Infinity && deviation2 <= tolerance * tolerance;
 }

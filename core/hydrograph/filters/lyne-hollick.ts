@@ -1,5 +1,6 @@
 // Lyne & Hollick (1979) recursive digital filter, passes alternating forward and backward
 // (Nathan & McMahon 1990), with reflected ends (Ladson et al. 2013).
+import { regularEnough } from './first-order';
 
 /**
  * Default Lyne–Hollick settings: α = 0.925 per day (published for daily data), 3 passes, 30 values reflected at
@@ -41,9 +42,9 @@ export function lyneHollick(
 }
 
 /**
- * The same filter, checking the record during the first pass: returns null unless every time is finite and
- * ascending, every interval equals the others within one part in a million (the rule of prepareSeries), and
- * every discharge is finite and ≥ 0. On null the caller takes the general path, which says what is wrong.
+ * The same filter, checking the record during the first pass (as firstOrderFilterChecked does): null unless
+ * every step is within 4·10⁻⁷ of the first and every discharge is finite and ≥ 0; the caller then takes the
+ * general path, which decides and says what is wrong.
  */
 export function lyneHollickChecked(
   t: Float64Array,
@@ -78,31 +79,27 @@ export function lyneHollickChecked(
     body[0] = q[0];
     from = 1;
   }
-  // The checks are kept free of branches: a NaN or infinity anywhere makes the sums non-finite.
+  // A NaN or infinity anywhere makes the sums non-finite; steps are tested as in firstOrderFilterChecked.
+  const step0 = t[1] - t[0];
+  let deviation2 = 0;
   let qMin = q[0];
   let qSum = 0;
-  let stepMin = Infinity;
-  let stepMax = -Infinity;
-  let stepSum = 0;
-  let previousT = t[0];
+  let previousT = from === 0 ? t[0] - step0 : t[0];
   for (let k = from; k < n; k++) {
     const xk = q[k];
     const tk = t[k];
-    const step = tk - previousT;
+    const d = tk - previousT - step0;
     previousT = tk;
-    qMin = xk < qMin ? xk : qMin;
+    deviation2 += d * d;
     qSum += xk;
-    stepSum += step;
-    stepMin = step < stepMin && k > 0 ? step : stepMin;
-    stepMax = step > stepMax ? step : stepMax;
+    qMin = xk < qMin ? xk : qMin;
     f = alpha * f + c * (xk - previous);
     if (f < 0) f = 0;
     else if (f > xk) f = xk;
     previous = xk;
     body[k] = xk - f;
   }
-  const clean = qMin >= 0 && Number.isFinite(qSum) && Number.isFinite(stepSum) && stepMin > 0;
-  if (!clean || stepMax - stepMin > 1e-6 * stepMin) return null;
+  if (!(regularEnough(deviation2, step0) && qMin >= 0 && qSum < Infinity)) return null;
   for (let k = 0; k < r; k++) {
     const xk = tail[k];
     f = alpha * f + c * (xk - previous);

@@ -2,6 +2,7 @@
 // epoch milliseconds; every type here is JSON-able (no Dates, Maps or class instances).
 import type { DatedShift, MeasurementGrade, RatingSegment } from '../rating/index';
 import type { UnitSystem } from '../units';
+import type { EventPoints, EventSummary } from '../hydrograph/index';
 
 /** Fields every stored record carries: id (UUID), rev (hybrid-logical-clock string), updated_ms, tombstone. */
 export interface RecordEnvelope {
@@ -127,28 +128,14 @@ export interface RatingBody {
   note: string;
 }
 
-/** The four key times of a storm event, UTC ms. */
-export interface AnalysisKeyPoints {
-  riseStart_ms: number;
-  peak_ms: number;
-  inflection_ms: number;
-  runoffEnd_ms: number;
-}
+/** The four key times of a storm event, UTC ms (the hydrograph core's EventPoints). */
+export type AnalysisKeyPoints = EventPoints;
 
 /** A JSON value (what drafts and method parameters may hold). */
 export type JsonValue = null | boolean | number | string | JsonValue[] | { [key: string]: JsonValue };
 
-/** The figures a storm analysis produced: m³/s, m³, mm, dimensionless ratios. */
-export interface AnalysisResults {
-  peak_m3s: number;
-  peakTime_ms: number;
-  totalVolume_m3: number;
-  baseflowVolume_m3: number;
-  directVolume_m3: number;
-  baseflowIndex: number;
-  runoffDepth_mm?: number;
-  runoffCoefficient?: number;
-}
+/** The figures a storm analysis produced (summarizeEvent's result without its notes): m³/s, m³, mm, ratios. */
+export type AnalysisResults = Omit<EventSummary, 'notes'>;
 
 /** A saved storm analysis: the window (UTC ms), the separation method and its parameters, key points, results. */
 export interface AnalysisBody {

@@ -24,13 +24,7 @@ export function lyneHollick(
   const n = q.length;
   if (n === 1) return Float64Array.of(q[0]);
   const r = Math.min(reflect, n - 1);
-  // The extended record is head (r values) + body (n) + tail (r): head[i] = q[r − i], tail[i] = q[n − 2 − i].
-  const head = new Float64Array(r);
-  const tail = new Float64Array(r);
-  for (let i = 0; i < r; i++) {
-    head[i] = q[r - i];
-    tail[i] = q[n - 2 - i];
-  }
+  const { head, tail } = reflectedEnds(q, r);
   const body = new Float64Array(n);
   const c = (1 + alpha) / 2;
   for (let pass = 0; pass < passes; pass++) {
@@ -39,6 +33,18 @@ export function lyneHollick(
     else backward(head, body, tail, alpha, c);
   }
   return body;
+}
+
+/** The r mirrored values at each end of the extended record: head[i] = q[r − i], tail[i] = q[n − 2 − i]. */
+function reflectedEnds(q: Float64Array, r: number): { head: Float64Array; tail: Float64Array } {
+  const n = q.length;
+  const head = new Float64Array(r);
+  const tail = new Float64Array(r);
+  for (let i = 0; i < r; i++) {
+    head[i] = q[r - i];
+    tail[i] = q[n - 2 - i];
+  }
+  return { head, tail };
 }
 
 /**
@@ -56,12 +62,7 @@ export function lyneHollickChecked(
   const n = q.length;
   if (n < 3 || t.length !== n || !(t[0] > -Infinity) || !(q[0] >= 0 && q[0] < Infinity)) return null;
   const r = Math.min(reflect, n - 1);
-  const head = new Float64Array(r);
-  const tail = new Float64Array(r);
-  for (let i = 0; i < r; i++) {
-    head[i] = q[r - i];
-    tail[i] = q[n - 2 - i];
-  }
+  const { head, tail } = reflectedEnds(q, r);
   const body = new Float64Array(n);
   const c = (1 + alpha) / 2;
   let f = 0;

@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { compareRev, parseRev, RecordValidationError } from '../../core/records/index';
 import {
   currentRating, deleteRating, deleteReading, deleteSite, deviceId, discardDraft, dismissConflict, getDraft, getGauging, getMeta,
-  getReading, getSite, latestReadings, listAnalyses, listConflicts, listDrafts, listGaugings, listRatings,
+  getReading, getSite, latestReadings, readingBefore, listAnalyses, listConflicts, listDrafts, listGaugings, listRatings,
   listReadings, listSites, observeRev, onRecordsChanged, readingsWithDischarge, restoreReading, restoreSite,
   saveAnalysis, saveConflict, saveDraft, saveGauging, saveRating, saveReading, saveSite, setMeta, storageState,
   changedSince, type RecordsChange,
@@ -83,6 +83,22 @@ describe('sites and readings', () => {
     const latest = await latestReadings([a.id, b.id]);
     expect(latest.get(a.id)?.id).toBe(last.id);
     expect(latest.has(b.id)).toBe(false);
+  });
+
+  it('gives the reading just before a time, skipping tombstones, the reading being edited and other sites', async () => {
+    const a = await saveSite(site());
+    const b = await saveSite(site({ code: 'KC-02' }));
+    const first = await saveReading(reading(a.id, T0, 0.4));
+    const second = await saveReading(reading(a.id, T0 + HOUR, 0.45));
+    const deleted = await saveReading(reading(a.id, T0 + 2 * HOUR, 0.5));
+    await deleteReading(deleted.id);
+    const at = await saveReading(reading(a.id, T0 + 3 * HOUR, 0.6));
+    await saveReading(reading(b.id, T0 + 2.5 * HOUR, 9));
+    expect((await readingBefore(a.id, T0 + 3 * HOUR))?.id).toBe(second.id); // strictly before: not `at` itself
+    expect((await readingBefore(a.id, T0 + 4 * HOUR))?.id).toBe(at.id);
+    expect((await readingBefore(a.id, T0 + 4 * HOUR, at.id))?.id).toBe(second.id);
+    expect((await readingBefore(a.id, T0 + HOUR))?.id).toBe(first.id);
+    expect(await readingBefore(a.id, T0)).toBeUndefined();
   });
 });
 

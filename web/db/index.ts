@@ -8,7 +8,7 @@ export { storageState, type StorageState } from './persist';
 export { deviceId, observeRev } from './clock';
 export { changedSince, type ReadOptions, type SaveInput } from './records';
 export { saveSite, getSite, deleteSite, restoreSite, listSites } from './sites';
-export { saveReading, getReading, deleteReading, restoreReading, listReadings, latestReading, latestReadings } from './readings';
+export { saveReading, getReading, deleteReading, restoreReading, listReadings, latestReading, latestReadings, readingBefore } from './readings';
 export { readingsWithDischarge, type ReadingWithDischarge } from './readings-discharge';
 export { readingSeries, type ReadingSeries } from './readings-series';
 export { seriesWithDischarge, type SeriesWithDischarge } from './series-discharge';

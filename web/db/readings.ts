@@ -1,6 +1,8 @@
 // Stage readings: save, get, delete/restore, list by site and time window, latest per site.
 import type { ReadingRecord } from '../../core/records/index';
+import type { IDBPIndex } from 'idb';
 import { withDb } from './connection';
+import type { FreshetDB } from './schema';
 import { getIn, listRange, restoreIn, saveIn, tombstoneIn, type ReadOptions, type SaveInput } from './records';
 
 /** Validates and saves a reading (new id when absent); resolves with the stored record once it is durable. */
@@ -26,15 +28,25 @@ export async function latestReading(siteId: string): Promise<ReadingRecord | und
 export function latestReadings(siteIds: readonly string[]): Promise<Map<string, ReadingRecord>> {
   return withDb(async (db) => {
     const index = db.transaction('readings').store.index('by-site-time');
-    const found = await Promise.all(
-      siteIds.map(async (siteId) => {
-        let cursor = await index.openCursor(IDBKeyRange.bound([siteId, -Infinity], [siteId, Infinity]), 'prev');
-        while (cursor && cursor.value.deleted) cursor = await cursor.continue();
-        return cursor?.value;
-      }),
-    );
+    const found = await Promise.all(siteIds.map((siteId) => lastBefore(index, siteId, Infinity)));
     const out = new Map<string, ReadingRecord>();
     found.forEach((r, i) => r && out.set(siteIds[i], r));
     return out;
   });
+}
+
+/**
+ * The site's last non-deleted reading strictly before before_ms (UTC ms), skipping the reading exceptId
+ * (the one being edited): what a new reading's jump is measured from. One cursor step, not a window read.
+ */
+export function readingBefore(siteId: string, before_ms: number, exceptId?: string): Promise<ReadingRecord | undefined> {
+  return withDb((db) => lastBefore(db.transaction('readings').store.index('by-site-time'), siteId, before_ms, exceptId));
+}
+
+type SiteTimeIndex = IDBPIndex<FreshetDB, ['readings'], 'readings', 'by-site-time'>;
+
+async function lastBefore(index: SiteTimeIndex, siteId: string, before_ms: number, exceptId?: string): Promise<ReadingRecord | undefined> {
+  let cursor = await index.openCursor(IDBKeyRange.bound([siteId, -Infinity], [siteId, before_ms], false, true), 'prev');
+  while (cursor && (cursor.value.deleted || cursor.value.id === exceptId)) cursor = await cursor.continue();
+  return cursor?.value;
 }

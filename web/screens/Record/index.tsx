@@ -7,7 +7,7 @@ import {
   checkReading, fromDisplay, fromLocalInput, displayUnit, READING_QUALITIES, READING_SOURCES, RecordValidationError,
   toDisplay, toLocalInput, type ReadingQuality, type ReadingSource, type SiteRecord,
 } from '../../../core';
-import { currentRating, discardDraft, getReading, getSite, listDrafts, listReadings, listSites, saveDraft, saveReading, StorageError } from '../../db';
+import { currentRating, discardDraft, getReading, getSite, listDrafts, listSites, readingBefore, saveDraft, saveReading, StorageError } from '../../db';
 import type { ScreenProps } from '../../app/routes';
 import { onBeforeUpdate } from '../../app/updates';
 import { useRecords } from '../../app/use-records';
@@ -20,7 +20,6 @@ import './style.css';
 
 const OBSERVER_KEY = 'freshet.observer';
 const DRAFT_DELAY_MS = 300;
-const DAY_MS = 86_400_000;
 
 const SOURCE_LABELS: Record<ReadingSource, string> = { staff: 'Staff gauge', 'wire-weight': 'Wire-weight gauge', 'crest-stage': 'Crest-stage gauge', logger: 'Logger display' };
 const QUALITY_LABELS: Record<ReadingQuality, string> = { good: 'Good', fair: 'Fair', poor: 'Poor', estimated: 'Estimated' };
@@ -213,8 +212,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   const context = useRecords(
     async () => {
       if (t === undefined) return undefined;
-      const [rating, before] = await Promise.all([currentRating(site.id, t), listReadings(site.id, t - 30 * DAY_MS, t - 1)]);
-      const previous = [...before].reverse().find((r) => r.id !== readingId);
+      const [rating, previous] = await Promise.all([currentRating(site.id, t), readingBefore(site.id, t, readingId)]);
       return { rating, previous };
     },
     ['rating', 'reading'],

@@ -6,15 +6,14 @@ import { Cautions } from '../../components/Cautions';
 import { listSites } from '../../db';
 import { href, navigate } from '../../router';
 import { SiteStorm } from './site-storm';
-import { useLoad, useRecordsVersion } from './use-load';
+import { useRecords } from '../../app/use-records';
 import './style.css';
 
 /** The Storm runoff screen; '#/storm/<siteId>' opens it on that site. */
 export default function Storm({ route }: ScreenProps) {
   const siteId = route.segments[1];
-  const version = useRecordsVersion('site');
-  const sites = useLoad(() => listSites(), [version]);
-  const list = sites.status === 'ready' ? sites.value : [];
+  const sites = useRecords(() => listSites(), ['site'], []);
+  const list = sites.state === 'ready' ? sites.value : [];
   const site = siteId === undefined ? undefined : list.find((s) => s.id === siteId);
   useEffect(() => {
     // With a single site there is nothing to choose: open it.
@@ -23,9 +22,9 @@ export default function Storm({ route }: ScreenProps) {
   return (
     <>
       <h2 id="screen-title" tabIndex={-1}>Storm runoff</h2>
-      {sites.status === 'loading' && <p class="muted">Reading the sites…</p>}
-      {sites.status === 'failed' && <p class="callout bad" role="alert">{sites.message}</p>}
-      {sites.status === 'ready' && list.length === 0 && (
+      {sites.state === 'loading' && <p class="muted">Reading the sites…</p>}
+      {sites.state === 'failed' && <p class="callout bad" role="alert">{sites.message}</p>}
+      {sites.state === 'ready' && list.length === 0 && (
         <p class="callout" data-testid="storm-no-sites">
           There are no sites on this phone yet. <a href="#/sites">Add a site</a> first, then come back for the storm.
         </p>
@@ -48,7 +47,7 @@ export default function Storm({ route }: ScreenProps) {
           </select>
         </>
       )}
-      {sites.status === 'ready' && siteId !== undefined && !site && (
+      {sites.state === 'ready' && siteId !== undefined && !site && (
         <p class="callout warn">That site is not on this phone (it may have been deleted). Choose another.</p>
       )}
       {site && <SiteStorm key={site.id} site={site} />}

@@ -4,7 +4,7 @@ import type { AnalysisRecord, UnitSystem } from '../../../core';
 import { METHOD_LABELS, METHOD_KINDS, type MethodKind } from '../../components/SeparationPicker';
 import { deleteAnalysis, listAnalyses } from '../../db';
 import { formatQuantity, formatTime } from '../../format';
-import { useLoad, useRecordsVersion } from './use-load';
+import { useRecords } from '../../app/use-records';
 
 function methodName(kind: string): string {
   return (METHOD_KINDS as readonly string[]).includes(kind) ? METHOD_LABELS[kind as MethodKind] : kind;
@@ -12,8 +12,7 @@ function methodName(kind: string): string {
 
 /** The saved analyses of one site, newest event first, with a delete button each (a tombstone). */
 export function SavedAnalyses({ siteId, units, timeZone }: { siteId: string; units: UnitSystem; timeZone: string }) {
-  const version = useRecordsVersion('analysis');
-  const saved = useLoad(() => listAnalyses(siteId), [siteId, version]);
+  const saved = useRecords(() => listAnalyses(siteId), ['analysis'], [siteId]);
   const [problem, setProblem] = useState<string>();
   const [busy, setBusy] = useState<string>();
   const remove = async (a: AnalysisRecord) => {
@@ -30,11 +29,11 @@ export function SavedAnalyses({ siteId, units, timeZone }: { siteId: string; uni
   return (
     <section aria-labelledby="storm-saved-heading">
       <h3 id="storm-saved-heading">Saved analyses of this site</h3>
-      {saved.status === 'loading' && <p class="muted">Reading saved analyses…</p>}
-      {saved.status === 'failed' && <p class="callout bad">{saved.message}</p>}
+      {saved.state === 'loading' && <p class="muted">Reading saved analyses…</p>}
+      {saved.state === 'failed' && <p class="callout bad">{saved.message}</p>}
       {problem && <p class="callout bad" role="alert">{problem}</p>}
-      {saved.status === 'ready' && saved.value.length === 0 && <p class="muted">None saved yet.</p>}
-      {saved.status === 'ready' && saved.value.length > 0 && (
+      {saved.state === 'ready' && saved.value.length === 0 && <p class="muted">None saved yet.</p>}
+      {saved.state === 'ready' && saved.value.length > 0 && (
         <ul class="list storm-saved" data-testid="saved-analyses">
           {[...saved.value]
             .sort((a, b) => b.points.peak_ms - a.points.peak_ms)

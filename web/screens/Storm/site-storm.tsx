@@ -20,21 +20,11 @@ import { formatQuantity, formatTime, parseDecimal } from '../../format';
 import { analyse, findPoints, polynomialInflection, seriesFromReadings, usesKeyPoints, type StormSeries } from './analysis';
 import { initialDraft, stormReducer, type TimeWindow } from './draft';
 import { SavedAnalyses } from './saved-analyses';
-import { useLoad, useRecordsVersion } from './use-load';
+import { useRecords } from '../../app/use-records';
 
 const DAY_MS = 86_400_000;
 /** The default readings window: this many days up to the latest reading. */
 const DEFAULT_WINDOW_DAYS = 14;
-
-/** Key points as whole milliseconds: the record format stores whole ms, and a saved analysis must repeat exactly. */
-function wholeMs(p: EventPoints): EventPoints {
-  return {
-    riseStart_ms: Math.round(p.riseStart_ms),
-    peak_ms: Math.round(p.peak_ms),
-    inflection_ms: Math.round(p.inflection_ms),
-    runoffEnd_ms: Math.round(p.runoffEnd_ms),
-  };
-}
 
 function resultsOf(s: EventSummary): AnalysisResults {
   const r: AnalysisResults = {
@@ -74,24 +64,23 @@ export function SiteStorm({ site }: { site: SiteRecord }) {
   const zone = site.timeZone;
   const units = site.displayUnits;
   const area = site.area_km2;
-  const dataVersion = useRecordsVersion('reading', 'rating');
-
-  const latest = useLoad(() => latestReading(site.id), [site.id, dataVersion]);
+  const latest = useRecords(() => latestReading(site.id), ['reading'], [site.id]);
   const defaultWindow: TimeWindow | undefined =
-    latest.status === 'ready' && latest.value
+    latest.state === 'ready' && latest.value
       ? { from_ms: latest.value.time_ms - DEFAULT_WINDOW_DAYS * DAY_MS, to_ms: latest.value.time_ms }
       : undefined;
   const win = draft.window ?? defaultWindow;
   // The compact series (times, stages, sources) with discharges: all the storm needs, read fast.
-  const rows = useLoad(
-    () => (win ? seriesWithDischarge(site.id, win.from_ms, win.to_ms) : Promise.resolve(undefined)),
-    [site.id, win?.from_ms, win?.to_ms, dataVersion],
+  const rows = useRecords(
+    async () => (win ? seriesWithDischarge(site.id, win.from_ms, win.to_ms) : undefined),
+    ['reading', 'rating'],
+    [site.id, win?.from_ms, win?.to_ms],
   );
 
-  const made = useMemo(() => (rows.status === 'ready' && rows.value ? seriesFromReadings(rows.value) : undefined), [rows]);
+  const made = useMemo(() => (rows.state === 'ready' && rows.value ? seriesFromReadings(rows.value) : undefined), [rows]);
   const series = made?.kind === 'ready' ? made.series : undefined;
   const found = useMemo(() => (series ? findPoints(series, area) : undefined), [series, area]);
-  const foundPoints = useMemo(() => (found?.ok ? wholeMs(found.value.points) : undefined), [found]);
+  const foundPoints = found?.ok ? found.value.points : undefined;
   const points = draft.points ?? foundPoints;
   const crossCheck = useMemo<InflectionCrossCheck | undefined>(() => {
     if (!series || !points) return undefined;
@@ -189,9 +178,9 @@ export function SiteStorm({ site }: { site: SiteRecord }) {
     <div class="storm">
       <fieldset>
         <legend>Readings window ({zone})</legend>
-        {latest.status === 'loading' && <p class="muted">Reading the site's records…</p>}
-        {latest.status === 'failed' && <p class="callout bad">{latest.message}</p>}
-        {latest.status === 'ready' && !latest.value && (
+        {latest.state === 'loading' && <p class="muted">Reading the site's records…</p>}
+        {latest.state === 'failed' && <p class="callout bad">{latest.message}</p>}
+        {latest.state === 'ready' && !latest.value && (
           <p class="callout" data-testid="storm-no-readings">
             There are no readings at this site yet. <a href="#/record">Record a reading</a> or import the logger first.
           </p>
@@ -214,7 +203,7 @@ export function SiteStorm({ site }: { site: SiteRecord }) {
         )}
       </fieldset>
 
-      {rows.status === 'failed' && <p class="callout bad">{rows.message}</p>}
+      {rows.state === 'failed' && <p class="callout bad">{rows.message}</p>}
       {win && made?.kind === 'empty' && <p class="callout">There are no readings in this window. Move the window to a time with readings.</p>}
       {made?.kind === 'unrated' && (
         <p class="callout warn" data-testid="storm-unrated">

@@ -17,7 +17,7 @@ export {
   importReadings, DEFAULT_IMPORT_BATCH, type ImportOptions, type ImportProgress, type ImportDuplicate, type ImportResult,
 } from './readings-import';
 export { saveGauging, getGauging, deleteGauging, restoreGauging, listGaugings } from './gaugings';
-export { saveRating, getRating, deleteRating, restoreRating, listRatings, currentRating } from './ratings';
+export { saveRating, getRating, deleteRating, restoreRating, listRatings, currentRating, ratingsAndGaugings } from './ratings';
 export { saveAnalysis, getAnalysis, deleteAnalysis, restoreAnalysis, listAnalyses } from './analyses';
 export { saveDraft, getDraft, discardDraft, listDrafts } from './drafts';
 export { saveConflict, dismissConflict, listConflicts } from './conflicts';

@@ -1,5 +1,5 @@
 // Ratings: each in force from its validFrom_ms until the next one of the same site.
-import type { RatingRecord } from '../../core/records/index';
+import type { GaugingRecord, RatingRecord } from '../../core/records/index';
 import { withDb } from './connection';
 import { getIn, listRange, restoreIn, saveIn, tombstoneIn, type ReadOptions, type SaveInput } from './records';
 
@@ -24,5 +24,17 @@ export function currentRating(siteId: string, time_ms: number): Promise<RatingRe
     let cursor = await index.openCursor(IDBKeyRange.bound([siteId, -Infinity], [siteId, time_ms]), 'prev');
     while (cursor && cursor.value.deleted) cursor = await cursor.continue();
     return cursor?.value;
+  });
+}
+
+/** A site's ratings (oldest validFrom_ms first) and gaugings (oldest first), read in one transaction; no tombstones. */
+export function ratingsAndGaugings(siteId: string): Promise<{ ratings: RatingRecord[]; gaugings: GaugingRecord[] }> {
+  return withDb(async (db) => {
+    const tx = db.transaction(['ratings', 'gaugings']);
+    const [ratings, gaugings] = await Promise.all([
+      tx.objectStore('ratings').index('by-site-from').getAll(IDBKeyRange.bound([siteId, -Infinity], [siteId, Infinity])),
+      tx.objectStore('gaugings').index('by-site-time').getAll(IDBKeyRange.bound([siteId, -Infinity], [siteId, Infinity])),
+    ]);
+    return { ratings: ratings.filter((r) => !r.deleted), gaugings: gaugings.filter((g) => !g.deleted) };
   });
 }

@@ -12,6 +12,8 @@ import type { SiteRecord } from '../../../core';
 import SiteForm from '../SiteForm';
 
 const SiteReadings = lazyScreen<{ siteId: string }>(() => import('../SiteReadings'));
+const Ratings = lazyScreen<{ siteId: string; path: string[] }>(() => import('../Ratings'));
+const Gaugings = lazyScreen<{ siteId: string; path: string[] }>(() => import('../Gaugings'));
 
 interface SiteRow {
   site: SiteRecord;
@@ -115,9 +117,11 @@ function SitesList() {
 
 /** The Sites area: the list, one site's readings, or the site form, by route. */
 export default function Sites({ route }: ScreenProps) {
-  const [, id, action] = route.segments;
+  const [, id, action, ...rest] = route.segments;
   if (id === 'new') return <SiteForm />;
   if (id && action === 'edit') return <SiteForm siteId={id} />;
+  if (id && action === 'ratings') return <Ratings siteId={id} path={rest} />;
+  if (id && action === 'gaugings') return <Gaugings siteId={id} path={rest} />;
   if (id) return <SiteReadings siteId={id} />;
   return <SitesList />;
 }

@@ -1,0 +1,51 @@
+// One rating: its segments, gauged range, fit statistics and note; its shifts; its table; delete with undo.
+import { useState } from 'preact/hooks';
+import type { SiteRecord } from '../../../core';
+import { deleteRating, ratingsAndGaugings, restoreRating } from '../../db';
+import { useRecords } from '../../app/use-records';
+import { formatTime } from '../../format';
+import { href } from '../../router';
+import { ratingAt } from '../Gaugings/check';
+import { rangeText, segmentFormula } from './describe';
+import { Shifts } from './shifts';
+import { RatingTableView } from './table';
+
+/** The page of one rating. */
+export function RatingDetail({ site, ratingId }: { site: SiteRecord; ratingId: string }) {
+  const data = useRecords(() => ratingsAndGaugings(site.id), ['rating', 'gauging'], [site.id]);
+  const [deleted, setDeleted] = useState(false);
+  const u = site.displayUnits;
+  if (data.state === 'loading') return <p aria-busy="true">Reading the rating…</p>;
+  if (data.state === 'failed') return <p class="callout bad" role="alert">{data.message}</p>;
+  const rating = data.value.ratings.find((r) => r.id === ratingId);
+  if (deleted || !rating) {
+    return (
+      <>
+        <h2 id="screen-title" tabIndex={-1}>{deleted ? 'Rating deleted' : 'Rating not found'}</h2>
+        {deleted && <button type="button" onClick={async () => { await restoreRating(ratingId); setDeleted(false); }}>Undo the deletion</button>}
+        <p><a href={href('sites', site.id, 'ratings')}>Ratings of this site</a></p>
+      </>
+    );
+  }
+  const inForce = ratingAt(data.value.ratings, Date.now())?.id === rating.id;
+  const table = rating.segments.length > 3;
+  return (
+    <>
+      <h2 id="screen-title" tabIndex={-1}>Rating from {formatTime(rating.validFrom_ms, site.timeZone)}</h2>
+      <p>{inForce ? <span class="tag in-force">in force now</span> : <span class="muted">not in force now</span>}</p>
+      <div class="card">
+        {table ? <p>A table of {rating.segments.length + 1} rows, discharge interpolated log–log between them (ln Q linear in ln(h − e)).</p>
+          : rating.segments.map((s, i, all) => <p key={i} class="formula">{segmentFormula(all, i, u)}</p>)}
+        <p class="hint">{rangeText(rating.gaugedRange_m, u)}</p>
+        {rating.fit && <p class="hint">Standard error {rating.fit.standardError_pct.toFixed(2)} % from {rating.fit.gaugingCount} gaugings.</p>}
+        {rating.fittedFrom.length > 0 && <p class="hint">Fitted from {rating.fittedFrom.length} gaugings of this site.</p>}
+        {rating.fit?.warnings.map((w, i) => <p key={i} class="callout warn">{w}</p>)}
+        {rating.note && <p>{rating.note}</p>}
+      </div>
+      <Shifts site={site} rating={rating} />
+      <RatingTableView site={site} rating={rating} />
+      <h3>Delete</h3>
+      <button type="button" class="danger wide" onClick={async () => { await deleteRating(rating.id); setDeleted(true); }}>Delete this rating</button>
+    </>
+  );
+}

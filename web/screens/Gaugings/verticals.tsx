@@ -80,7 +80,7 @@ export function Verticals({ form, dispatch, units }: { form: GaugingForm; dispat
                   <td>{formatQuantity('length', v.depth_m, units)}</td>
                   <td>{formatQuantity('velocity', verticalMeanVelocity(v.velocity) * v.angleCoefficient, units)}</td>
                   <td>
-                    <button type="button" aria-label={`Correct vertical ${i + 1}`} onClick={() => dispatch({ type: 'editVertical', index: i, units })}>Fix</button>
+                    <button type="button" aria-label={`Fix vertical ${i + 1}`} onClick={() => dispatch({ type: 'editVertical', index: i, units })}>Fix</button>
                     <button type="button" class="danger" aria-label={`Remove vertical ${i + 1}`} onClick={() => dispatch({ type: 'removeVertical', index: i })}>✕</button>
                   </td>
                 </tr>

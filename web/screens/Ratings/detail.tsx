@@ -34,8 +34,12 @@ export function RatingDetail({ site, ratingId }: { site: SiteRecord; ratingId: s
       <h2 id="screen-title" tabIndex={-1}>Rating from {formatTime(rating.validFrom_ms, site.timeZone)}</h2>
       <p>{inForce ? <span class="tag in-force">in force now</span> : <span class="muted">not in force now</span>}</p>
       <div class="card">
-        {table ? <p>A table of {rating.segments.length + 1} rows, discharge interpolated log–log between them (ln Q linear in ln(h − e)).</p>
-          : rating.segments.map((s, i, all) => <p key={i} class="formula">{segmentFormula(all, i, u)}</p>)}
+        {table ? (
+          <details>
+            <summary class="item">{rating.segments.length} segments (show each)</summary>
+            {rating.segments.map((s, i, all) => <p key={i} class="formula">{segmentFormula(all, i, u)}</p>)}
+          </details>
+        ) : rating.segments.map((s, i, all) => <p key={i} class="formula">{segmentFormula(all, i, u)}</p>)}
         <p class="hint">{rangeText(rating.gaugedRange_m, u)}</p>
         {rating.fit && <p class="hint">Standard error {rating.fit.standardError_pct.toFixed(2)} % from {rating.fit.gaugingCount} gaugings.</p>}
         {rating.fittedFrom.length > 0 && <p class="hint">Fitted from {rating.fittedFrom.length} gaugings of this site.</p>}

@@ -47,7 +47,7 @@ function RatingsList({ site }: { site: SiteRecord }) {
                   {r.segments.length <= 3 ? (
                     r.segments.map((s, i) => <span key={i} class="hint formula">{segmentFormula(r.segments, i, u)}</span>)
                   ) : (
-                    <span class="hint">table of {r.segments.length + 1} rows, log–log between them</span>
+                    <span class="hint">{r.segments.length} segments</span>
                   )}
                   <span class="hint">
                     {rangeText(r.gaugedRange_m, u)}

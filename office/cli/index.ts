@@ -3,11 +3,10 @@
 import { checkCommand } from './commands/check';
 import { csvCommand } from './commands/csv';
 import { demoCommand } from './commands/demo';
-import { watermlCommand } from './commands/waterml';
 import { CliError, processIo, type CliIo, type Command } from './io';
 
 /** Every subcommand, in the order `freshet --help` lists them. */
-export const COMMANDS: readonly Command[] = [demoCommand, checkCommand, watermlCommand, csvCommand];
+export const COMMANDS: readonly Command[] = [demoCommand, checkCommand, csvCommand];
 
 /** The top-level help: what the command is and its subcommands. */
 export function topHelp(): string {

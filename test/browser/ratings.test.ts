@@ -6,13 +6,15 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_SITE_ID, demoScenario, dischargeAt, fitSegments, midSection, type Rating } from '../../core';
 import { formatQuantity } from '../../web/format';
-import { ARTIFACTS, launchBrowser, startPreview, type Browser, type Preview } from './harness';
-import { seriousViolations } from './axe';
+import { ARTIFACTS, launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import { seriousViolations } from '../support/browser/axe';
 
 let server: Preview;
 let browser: Browser;
 let page: Page;
 let siteId = '';
+/** Uncaught errors in the page: none are allowed (checked after all tests). */
+const pageErrors: string[] = [];
 // Invented one-segment rating for the new site: Q = 6.2·(h − 0.12)^1.75.
 const RATING: Rating = { segments: [{ fromStage_m: 0.12, coefficient: 6.2, offset_m: 0.12, exponent: 1.75 }] };
 
@@ -31,6 +33,7 @@ beforeAll(async () => {
   server = await startPreview(4460);
   browser = await launchBrowser();
   page = await browser.context.newPage();
+  page.on('pageerror', (e) => pageErrors.push(e.message));
   await page.goto(server.url);
   await page.waitForFunction(() => !!navigator.serviceWorker.controller);
   // Everything below runs from the service worker's cache with no network.
@@ -38,6 +41,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
+  expect(pageErrors).toEqual([]);
   await browser?.close();
   await server?.stop();
 });
@@ -56,6 +60,21 @@ describe('the demo site', () => {
     await page.getByRole('button', { name: 'Keep this rating' }).click();
     await page.getByText('in force now').waitFor();
     await page.getByText(`Standard error ${ref.standardError_pct.toFixed(2)} % from ${pts.length} gaugings.`).waitFor();
+    // the rating plot draws with its gaugings; tapping one shows its figures
+    const plot = page.locator('.rating-plot canvas').first();
+    await plot.waitFor();
+    await plot.scrollIntoViewIfNeeded();
+    await shot('plot');
+    await noSeriousViolations('rating detail with plot');
+    const box = (await page.locator('.rating-plot .u-over').boundingBox())!;
+    // gauging 12 (1.42 m) sits about 85 % across the plot (see ratings-plot.png): tap near it
+    await page.mouse.click(box.x + box.width * 0.84, box.y + box.height / 2);
+    await page.locator('[data-testid="plot-pick"]').waitFor();
+    expect(await page.locator('[data-testid="plot-pick"]').innerText()).toMatch(/^Gauging 12: .* 1\.420 m, /);
+    await page.getByRole('button', { name: 'Log–log' }).click();
+    await page.waitForTimeout(1500);
+    await shot('plot-log');
+    await page.locator('.rating-plot canvas').first().waitFor();
   });
 
   it('imports a table CSV: a line with text is refused by number and nothing is saved; a good one is kept', async () => {

@@ -7,6 +7,7 @@ import { formatTime } from '../../format';
 import { href } from '../../router';
 import { ratingAt } from '../Gaugings/check';
 import { rangeText, segmentFormula } from './describe';
+import { RatingPlot } from './plot';
 import { Shifts } from './shifts';
 import { RatingTableView } from './table';
 
@@ -29,6 +30,10 @@ export function RatingDetail({ site, ratingId }: { site: SiteRecord; ratingId: s
   }
   const inForce = ratingAt(data.value.ratings, Date.now())?.id === rating.id;
   const table = rating.segments.length > 3;
+  // The gaugings of the rating's period (until the next rating) and those it was fitted from.
+  const next = data.value.ratings.find((r) => r.validFrom_ms > rating.validFrom_ms);
+  const used = new Set(rating.fittedFrom);
+  const periodGaugings = data.value.gaugings.filter((g) => used.has(g.id) || (g.time_ms >= rating.validFrom_ms && (!next || g.time_ms < next.validFrom_ms)));
   return (
     <>
       <h2 id="screen-title" tabIndex={-1}>Rating from {formatTime(rating.validFrom_ms, site.timeZone)}</h2>
@@ -46,6 +51,7 @@ export function RatingDetail({ site, ratingId }: { site: SiteRecord; ratingId: s
         {rating.fit?.warnings.map((w, i) => <p key={i} class="callout warn">{w}</p>)}
         {rating.note && <p>{rating.note}</p>}
       </div>
+      <RatingPlot site={site} rating={rating} gaugings={periodGaugings} />
       <Shifts site={site} rating={rating} />
       <RatingTableView site={site} rating={rating} />
       <h3>Delete</h3>

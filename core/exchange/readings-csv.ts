@@ -3,15 +3,11 @@
 // times with the site's offset.
 import { displayUnit, toDisplay, type UnitSystem } from '../units';
 import { toIsoWithOffset } from '../time/index';
-import type { ReadingRecord } from '../records/index';
+import { hasDischarge } from '../rating/index';
+import type { ReadingWithDischarge } from '../readings/index';
 
-/** One reading row to export: the stored reading and its discharge (m³/s, null without a rating). */
-export interface ReadingExportRow {
-  reading: ReadingRecord;
-  discharge_m3s: number | null;
-  shift_m: number;
-  extrapolated: boolean;
-}
+/** One reading row to export: the stored reading and its discharge (m³/s; NaN, none, without a rating). */
+export type ReadingExportRow = Pick<ReadingWithDischarge, 'reading' | 'discharge_m3s' | 'shift_m' | 'extrapolated'>;
 
 /** What the CSV describes: site code, its time zone (for the offsets) and the units to write. */
 export interface ReadingCsvOptions {
@@ -52,7 +48,7 @@ export function readingsToCsv(rows: readonly ReadingExportRow[], options: Readin
       toIsoWithOffset(x.time_ms, timeZone),
       num(toDisplay('stage', x.stage_m, units), stageDecimals),
       num(toDisplay('stage', r.shift_m, units), stageDecimals),
-      r.discharge_m3s === null ? '' : String(Number(toDisplay('discharge', r.discharge_m3s, units).toPrecision(6))),
+      !hasDischarge(r.discharge_m3s) ? '' : String(Number(toDisplay('discharge', r.discharge_m3s, units).toPrecision(6))),
       r.extrapolated ? 'yes' : 'no',
       x.source,
       x.quality,

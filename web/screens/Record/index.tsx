@@ -4,7 +4,7 @@
 // is kept as a draft on every change and restored when the app reopens.
 import { useEffect, useMemo, useReducer, useRef, useState } from 'preact/hooks';
 import {
-  checkReading, fromDisplay, hasDischarge, fromLocalInput, displayUnit, READING_QUALITIES, READING_SOURCES, RecordValidationError,
+  checkReading, fromDisplay, hasDischarge, STAGE_DECIMALS, fromLocalInput, displayUnit, READING_QUALITIES, READING_SOURCES, RecordValidationError,
   toDisplay, toLocalInput, type ReadingQuality, type ReadingSource, type SiteRecord,
 } from '../../../core';
 import { discardDraft, getReading, getSite, listDrafts, listRatings, listSites, readingBefore, saveDraft, saveReading, StorageError } from '../../db';
@@ -143,7 +143,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       } else if (readingId) {
         const r = await getReading(readingId);
         if (!live) return;
-        if (r) dispatch({ type: 'replace', form: formOfReading(r, toDisplay('stage', r.stage_m, u).toFixed(u === 'us' ? 2 : 3), toLocalInput(r.time_ms, site.timeZone)) });
+        if (r) dispatch({ type: 'replace', form: formOfReading(r, toDisplay('stage', r.stage_m, u).toFixed(STAGE_DECIMALS[u]), toLocalInput(r.time_ms, site.timeZone)) });
         else setError({ text: 'That reading is not on this phone any more.' });
       }
       setReady(true);

@@ -32,10 +32,13 @@ export interface EventPointsDetailed {
 }
 
 /**
- * Half-width, in readings, of the running mean the walks look at (5 readings in all). In readings, not in
- * time, so that stretching a record's time scale moves no key point off its reading.
+ * Half-width, in readings, of the running mean the walks look at (5 readings in all) when the record is noisy:
+ * when σ exceeds a quarter of a percent of the rise, so that the noise, not the share of the rise, sets the
+ * tolerances. In readings, not in time, so that stretching a record's time scale moves no key point; and
+ * only on noisy records, so that a clean hourly record keeps every short burst it shows.
  */
 const WALK_SMOOTHING_READINGS = 2;
+const WALK_SMOOTHING_NOISE_SHARE = 0.0025;
 
 /**
  * Finds the key points (UTC ms): peak = the highest reading; rise start = the last reading before the flow
@@ -65,9 +68,10 @@ export function findEventPointsDetailed(series: Series, options?: EventPointOpti
     if (q[i] < q[lowest]) lowest = i;
   }
   refuseWithoutStorm(fn, q[peak] - q[lowest], sigma);
-  if (peak === 0) throw new RangeError(`${fn} needs a rise before the peak; the highest reading is the first one`);
+  if (peak === 0) throw new RangeError(`${fn} found no storm in this record: it needs a rise before the peak, and the highest reading is the first one`);
   if (peak === n - 1) throw new RangeError(`${fn} needs readings after the peak; the highest reading is the last one`);
-  const s = runningMean(q, WALK_SMOOTHING_READINGS);
+  const noisy = sigma > WALK_SMOOTHING_NOISE_SHARE * (q[peak] - q[lowest]);
+  const s = noisy ? runningMean(q, WALK_SMOOTHING_READINGS) : q;
   const back = walkBack(q, s, peak, sigma);
   refuseWithoutStorm(fn, q[peak] - back.level_m3s, sigma);
   const on = walkOn(q, s, peak, back.level_m3s, sigma);

@@ -7,8 +7,8 @@
 // - the true discharge Q = Q_b + Σ Q_d goes through a power-law rating Q = C·(h − e)^b to a stage h;
 // - the logger reads h + ε with ε Gaussian (σ_h, a few mm), rounded to its 1 mm resolution, and the
 //   discharge of that reading is C·(h_read − e)^b, as the app computes it.
-// Every record is drawn from a seed (mulberry32 and Box–Muller, test/core/rating/noise.ts), never Math.random.
-import { normalGenerator, uniformGenerator } from '../core/rating/noise';
+// Every record is drawn from a seed (mulberry32 and Box–Muller, test/support/noise.ts), never Math.random.
+import { normalGenerator, uniformGenerator } from './noise';
 
 export const MINUTE_MS = 60_000;
 export const HOUR_MS = 3_600_000;

@@ -22,3 +22,6 @@ export { checksRating, gradeOf, GRADE_LIMITS_PCT, type MeasurementGrade } from '
 export { validateRating } from './validate';
 export { fitSegments, type FitSegmentsOptions, type SegmentsFit } from './fit-segments';
 export { ratingFromTable, type TableRow } from './from-table';
+export {
+  dischargeAtTime, dischargeThrough, hasDischarge, NO_DISCHARGE, ratingInForce, type DatedRating, type DischargeSeries, type StageDischarge,
+} from './in-force';

@@ -73,11 +73,11 @@ describe('gauging form', () => {
   it('checks a gauging against the rating: deviation, within grade, implied shift', () => {
     const rating = { id: 'r', rev: '', updated_ms: 0, siteId: 's', validFrom_ms: 0, segments: [{ fromStage_m: 0.1, offset_m: 0.1, coefficient: 5, exponent: 2 }], shifts: [], fittedFrom: [], note: '' } as RatingRecord;
     const g = { meanStage_m: 0.5, discharge_m3s: 0.8 * 0.97, grade: 'good', time_ms: 1 } as GaugingRecord;
-    const c = gaugingCheck(g, rating)!;
+    const c = gaugingCheck(g, [rating])!;
     expect(c.deviation_pct).toBeCloseTo(-3, 10);
     expect(c.checks).toBe(true);
     // exact: s = e + (Q/C)^(1/b) − h
     expect(c.impliedShift_m).toBeCloseTo(0.1 + Math.sqrt(0.776 / 5) - 0.5, 12);
-    expect(gaugingCheck({ ...g, grade: 'excellent' }, rating)!.checks).toBe(false);
+    expect(gaugingCheck({ ...g, grade: 'excellent' }, [rating])!.checks).toBe(false);
   });
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { continuousCoefficient, dischargeAt, fitRating, fitSegments, type GaugingPoint, type Rating } from '../../../core/rating/index';
-import { normalGenerator } from './noise';
+import { normalGenerator } from '../../support/noise';
 
 // Invented two-segment rating: a riffle control up to 0.8 m, then the channel, joined at 0.8 m.
 const low = { fromStage_m: 0.1, coefficient: 6, offset_m: 0.1, exponent: 2.2 };

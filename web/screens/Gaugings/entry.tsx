@@ -15,7 +15,7 @@ import { href } from '../../router';
 import { errorOf, NumberField } from '../Ratings/entry';
 import type { FieldError } from '../Ratings/rating-form';
 import { formatArea_m2 } from '../Ratings/units';
-import { gaugingCheck, ratingAt } from './check';
+import { gaugingCheck } from './check';
 import { Verticals } from './verticals';
 import { blankGaugingForm, fromDraftFields, gaugingReducer, hasContent, parseGaugingForm, runningTotals, toDraftFields, type GaugingForm } from './form';
 
@@ -121,7 +121,7 @@ export function GaugingEntry({ site }: { site: SiteRecord }) {
       }
       clearTimeout(pending.current);
       const { ratings } = await ratingsAndGaugings(site.id);
-      const c = gaugingCheck(g, ratingAt(ratings, g.time_ms));
+      const c = gaugingCheck(g, ratings);
       setSaved(
         `Saved: ${formatQuantity('discharge', g.discharge_m3s, u)} at ${formatQuantity('stage', g.meanStage_m, u)}. ` +
           (c ? `Deviation from the rating ${c.deviation_pct > 0 ? '+' : ''}${c.deviation_pct.toFixed(1)} %: ${c.checks ? `checks the rating within “${g.grade}”` : `does not check the rating within “${g.grade}”`}; it implies a shift of ${formatQuantity('stage', c.impliedShift_m, u)}.`

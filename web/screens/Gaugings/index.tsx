@@ -5,7 +5,7 @@ import { deleteGauging, getSite, ratingsAndGaugings } from '../../db';
 import { useRecords } from '../../app/use-records';
 import { formatQuantity, formatTime } from '../../format';
 import { href } from '../../router';
-import { gaugingCheck, ratingAt } from './check';
+import { gaugingCheck } from './check';
 import { GaugingEntry } from './entry';
 import '../Ratings/style.css';
 
@@ -28,7 +28,7 @@ function GaugingsList({ site }: { site: SiteRecord }) {
       {gaugings.length === 0 ? <p>No gaugings of this site yet.</p> : (
         <ul class="list card" aria-label="Gaugings, newest first">
           {[...gaugings].reverse().map((g) => {
-            const c = gaugingCheck(g, ratingAt(ratings, g.time_ms));
+            const c = gaugingCheck(g, ratings);
             return (
               <li key={g.id}>
                 <details>

@@ -1,11 +1,10 @@
 // One rating: its segments, gauged range, fit statistics and note; its shifts; its table; delete with undo.
 import { useState } from 'preact/hooks';
-import type { SiteRecord } from '../../../core';
+import { ratingInForce, type SiteRecord } from '../../../core';
 import { deleteRating, ratingsAndGaugings, restoreRating } from '../../db';
 import { useRecords } from '../../app/use-records';
 import { formatTime } from '../../format';
 import { href } from '../../router';
-import { ratingAt } from '../Gaugings/check';
 import { rangeText, segmentFormula } from './describe';
 import { RatingPlot } from './plot';
 import { Shifts } from './shifts';
@@ -28,7 +27,7 @@ export function RatingDetail({ site, ratingId }: { site: SiteRecord; ratingId: s
       </>
     );
   }
-  const inForce = ratingAt(data.value.ratings, Date.now())?.id === rating.id;
+  const inForce = ratingInForce(data.value.ratings, Date.now())?.id === rating.id;
   const table = rating.segments.length > 3;
   // The gaugings of the rating's period (until the next rating) and those it was fitted from.
   const next = data.value.ratings.find((r) => r.validFrom_ms > rating.validFrom_ms);

@@ -1,11 +1,10 @@
 // A site's ratings: the list by the date each applies from (newest first, the one in force marked), and
 // the ways to add one: by hand, fitted to gaugings, or from a table file. Sub-pages by route.
-import type { RatingRecord, SiteRecord } from '../../../core';
+import { ratingInForce, type RatingRecord, type SiteRecord } from '../../../core';
 import { getSite, ratingsAndGaugings } from '../../db';
 import { useRecords } from '../../app/use-records';
 import { formatTime } from '../../format';
 import { href } from '../../router';
-import { ratingAt } from '../Gaugings/check';
 import { rangeText, segmentFormula } from './describe';
 import { RatingEntry } from './entry';
 import { FitRating } from './fit';
@@ -20,7 +19,7 @@ function RatingsList({ site }: { site: SiteRecord }) {
   if (data.state === 'loading') return <p aria-busy="true">Reading the ratings…</p>;
   if (data.state === 'failed') return <p class="callout bad" role="alert">The ratings could not be read: {data.message}</p>;
   const { ratings, gaugings } = data.value;
-  const inForce = ratingAt(ratings, Date.now());
+  const inForce = ratingInForce(ratings, Date.now());
   const newest: RatingRecord[] = [...ratings].reverse();
   return (
     <>

@@ -1,7 +1,7 @@
 // A rating's dated shifts: the list (with remove) and the form to add a constant, stage-variable or
 // prorated shift, showing the discharge at the site's last stage before and after.
 import { useMemo, useState } from 'preact/hooks';
-import { dischargeAt, shiftAt, toLocalInput, type DatedShift, type RatingRecord, type SiteRecord } from '../../../core';
+import { dischargeAtTime, toLocalInput, type DatedShift, type RatingRecord, type SiteRecord } from '../../../core';
 import { latestReading, saveRating } from '../../db';
 import { useRecords } from '../../app/use-records';
 import { describedBy, Field } from '../../components/Field';
@@ -16,9 +16,9 @@ function shiftWords(s: DatedShift, u: SiteRecord['displayUnits']): string {
   return `${what}${s.toNext === 'prorate' ? ', moving in time to the next' : ''}`;
 }
 
-/** The discharge (m³/s) of a rating with a list of shifts at a stage (m) and time (UTC ms). */
+/** The discharge (m³/s) of a rating, given this list of shifts, at a stage (m) and time (UTC ms) it covers. */
 function dischargeWith(rating: RatingRecord, shifts: readonly DatedShift[], stage_m: number, time_ms: number): number {
-  return dischargeAt(rating, stage_m, shifts.length ? shiftAt(shifts, time_ms, stage_m) : 0);
+  return dischargeAtTime([{ ...rating, shifts }], time_ms, stage_m).discharge_m3s;
 }
 
 /** Shifts of one rating. */

@@ -81,9 +81,14 @@ export function fitSegments(points: readonly GaugingPoint[], options: FitSegment
   });
   const parameters = (offset_m === undefined ? 3 : 2) + (join ? 2 : 3);
   const dof = points.length - parameters;
+  // Each part numbers its own gaugings; say the index in the caller's list instead.
+  const lowerAt: number[] = [];
+  const upperAt: number[] = [];
+  points.forEach((p, i) => (p.stage_m < breakpoint_m ? lowerAt : upperAt).push(i));
+  const renumber = (w: string, at: number[]) => w.replace(/gauging at index (\d+)/g, (_m, k: string) => `gauging at index ${at[Number(k)]}`);
   const warnings = [
-    ...low.warnings.map((w) => `Lower segment: ${w}`),
-    ...high.warnings.map((w) => `Upper segment: ${w}`),
+    ...low.warnings.map((w) => `Lower segment: ${renumber(w, lowerAt)}`),
+    ...high.warnings.map((w) => `Upper segment: ${renumber(w, upperAt)}`),
     ...ratingContinuity(rating).warnings,
   ];
   return {

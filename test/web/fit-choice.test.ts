@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { dischargeAt, fitSegments, type GaugingRecord } from '../../core';
-import { DEFAULT_FIT_CHOICES, defaultSelection, runFit } from '../../web/screens/Ratings/fit-choice';
+import { DEFAULT_FIT_CHOICES, defaultSelection, plainFitWarning, runFit } from '../../web/screens/Ratings/fit-choice';
 
 // Invented gaugings around Q = 7·(h − 0.15)^1.9 with a few per cent of scatter.
 const scatter = [1.02, 0.97, 1.01, 0.99, 1.03, 0.98, 1.0, 1.02, 0.97, 1.01, 0.99, 1.02];
@@ -40,5 +40,8 @@ describe('fit choices', () => {
     expect(c.ok ? '' : c.errors[0].text).toMatch(/at least 4 gaugings with a discharge above 0; 2 are ticked/);
     const d = runFit(gaugings, all, { ...DEFAULT_FIT_CHOICES, segmentCount: 2, breakpointText: '1.5' }, 'metric');
     expect(d.ok ? '' : d.errors[0].text).not.toMatch(/fitRating|fitSegments|_m\b/);
+  });
+  it('says which gauging a fit warning is about in the screen’s words', () => {
+    expect(plainFitWarning('The gauging at index 3 (stage 0.660 m, 2.1 m³/s) deviates by +9.0 % from the fit.')).toBe('Gauging 4 (counting from the oldest ticked) (stage 0.660 m, 2.1 m³/s) deviates by +9.0 % from the fit.');
   });
 });

@@ -55,4 +55,11 @@ describe('fitSegments', () => {
     expect(() => fitSegments(exact, { breakpoint_m: 1.6 })).toThrow(/upper segment \(gaugings at or above the breakpoint 1\.6 m\): fitRating needs at least 3 distinct stages; got 2/);
     expect(() => fitSegments(exact, { breakpoint_m: 0.26 })).toThrow(/lower segment/);
   });
+  it('names an outlying gauging by its place in the list given, not within its segment', () => {
+    // 8 gaugings below the breakpoint, 14 above; the 16th (index 15, 7th of the upper part) is 30 % high
+    const many = [0.2, 0.25, 0.3, 0.37, 0.45, 0.52, 0.6, 0.7, ...Array.from({ length: 14 }, (_, k) => 0.85 + 0.1 * k)];
+    const pts = many.map((h, i) => ({ stage_m: h, discharge_m3s: dischargeAt(TRUE, h) * (i === 15 ? 1.3 : 1 + 0.01 * Math.sin(i)) }));
+    const fit = fitSegments(pts, { breakpoint_m: 0.8 });
+    expect(fit.warnings.filter((w) => /index/.test(w))).toEqual([expect.stringMatching(/^Upper segment: The gauging at index 15 \(stage 1\.550 m/)]);
+  });
 });

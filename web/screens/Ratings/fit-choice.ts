@@ -79,3 +79,8 @@ export function runFit(gaugings: readonly GaugingRecord[], selected: ReadonlySet
 export function plainFitMessage(message: string): string {
   return message.replace(/^fitSegments:\s*/, '').replace(/\bfitSegments\b|\bfitRating\b/g, 'the fit').replace(/^the fit needs/, 'The fit needs');
 }
+
+/** A fit warning in the screen's words: "the gauging at index 3" becomes "gauging 4 (counting from the oldest ticked)". */
+export function plainFitWarning(warning: string): string {
+  return warning.replace(/[Tt]he gauging at index (\d+)/g, (_m, i: string) => `Gauging ${Number(i) + 1} (counting from the oldest ticked)`);
+}

@@ -5,12 +5,12 @@ import { useMemo, useState } from 'preact/hooks';
 import { fromLocalInput, johnsonOffset, toDisplay, toLocalInput, type SiteRecord } from '../../../core';
 import { ratingsAndGaugings, saveRating } from '../../db';
 import { useRecords } from '../../app/use-records';
-import { describedBy, Field } from '../../components/Field';
+import { Field } from '../../components/Field';
 import { formatQuantity, formatTime } from '../../format';
 import { href, navigate } from '../../router';
 import { rangeText, segmentFormula, unitLabels } from './describe';
 import { errorOf, NumberField } from './entry';
-import { DEFAULT_FIT_CHOICES, defaultSelection, runFit, type FitChoices } from './fit-choice';
+import { DEFAULT_FIT_CHOICES, defaultSelection, plainFitWarning, runFit, type FitChoices } from './fit-choice';
 
 /** The fit screen of one site. */
 export function FitRating({ site }: { site: SiteRecord }) {
@@ -101,7 +101,7 @@ function FitForm({ site, gaugings }: { site: SiteRecord; gaugings: Awaited<Retur
             <p class="figure"><span data-testid="standard-error">{outcome.fit.standardError_pct.toFixed(2)} %</span> <small>standard error</small></p>
             <p class="hint">{outcome.used.length} gaugings, {outcome.fit.degreesOfFreedom} degrees of freedom · {rangeText(outcome.fit.rating.gaugedRange_m, u)}</p>
             {outcome.fit.rating.segments.map((s, i, all) => <p key={i} class="formula">{segmentFormula(all, i, u)}</p>)}
-            {outcome.fit.warnings.map((w, i) => <p key={i} class="callout warn">{w.replace(/fitRating|offset_m/g, 'the fit')}</p>)}
+            {outcome.fit.warnings.map((w, i) => <p key={i} class="callout warn">{plainFitWarning(w)}</p>)}
           </>
         ) : (
           outcome.errors.filter((e) => e.field === 'gaugings').map((e) => <p key={e.text} class="callout bad" role="alert">{e.text}</p>)
@@ -136,7 +136,7 @@ function FitForm({ site, gaugings }: { site: SiteRecord; gaugings: Awaited<Retur
         <textarea id="fitNote" value={note} onInput={(e) => setNote(e.currentTarget.value)} />
       </Field>
       {failure && <p class="callout bad" role="alert">{failure}</p>}
-      <button type="button" class="primary wide" disabled={!outcome.ok} aria-describedby={describedBy('keep', false, false)} onClick={() => void keep()}>Keep this rating</button>
+      <button type="button" class="primary wide" disabled={!outcome.ok} onClick={() => void keep()}>Keep this rating</button>
       {!outcome.ok && errorOf(errors, 'gaugings') === undefined && <p class="hint">Correct the marked choices to see the fit.</p>}
     </>
   );

@@ -44,8 +44,8 @@ export interface PreparedSeries {
   regular: boolean;
 }
 
-/** Milliseconds per day. */
-export const MS_PER_DAY = 86_400_000;
+/** Milliseconds per day (the one definition lives in core/time). */
+export { MS_PER_DAY } from '../time/day';
 
 /** Checks a series; returns it as Float64Arrays with interior gaps bridged linearly and end gaps held level. */
 export function prepareSeries(series: Series, fn: string): PreparedSeries {

@@ -2,9 +2,9 @@
 // in force at its time, whether it checks the rating within its grade, and the shift it implies.
 import type { SiteRecord } from '../../../core';
 import { deleteGauging, getSite, ratingsAndGaugings } from '../../db';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../db/use-records';
 import { formatQuantity, formatTime } from '../../format';
-import { href } from '../../router';
+import { href, type ScreenProps } from '../../router';
 import { gaugingCheck } from './check';
 import { GaugingEntry } from './entry';
 import '../Ratings/style.css';
@@ -63,7 +63,10 @@ function GaugingsList({ site }: { site: SiteRecord }) {
 }
 
 /** The gaugings area of a site: the list or a new gauging, by the path after "gaugings". */
-export default function Gaugings({ siteId, path }: { siteId: string; path: string[] }) {
+export default function Gaugings({ route, params }: ScreenProps) {
+  const siteId = params.siteId;
+  // The part of the path after "gaugings": [] for the list, ['new'], ['fit'], ['import'] or [ratingId].
+  const path = route.segments.slice(3);
   const site = useRecords(() => getSite(siteId), ['site'], [siteId]);
   if (site.state === 'loading') return <p aria-busy="true">Opening the site…</p>;
   if (site.state === 'failed') return <p class="callout bad" role="alert">{site.message}</p>;

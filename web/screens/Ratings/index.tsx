@@ -2,9 +2,9 @@
 // the ways to add one: by hand, fitted to gaugings, or from a table file. Sub-pages by route.
 import { ratingInForce, type RatingRecord, type SiteRecord } from '../../../core';
 import { getSite, ratingsAndGaugings } from '../../db';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../db/use-records';
 import { formatTime } from '../../format';
-import { href } from '../../router';
+import { href, type ScreenProps } from '../../router';
 import { rangeText, segmentFormula } from './describe';
 import { RatingEntry } from './entry';
 import { FitRating } from './fit';
@@ -66,7 +66,10 @@ function RatingsList({ site }: { site: SiteRecord }) {
 }
 
 /** The ratings area of a site: list, hand entry, fit, table import, or one rating, by the path after "ratings". */
-export default function Ratings({ siteId, path }: { siteId: string; path: string[] }) {
+export default function Ratings({ route, params }: ScreenProps) {
+  const siteId = params.siteId;
+  // The part of the path after "ratings": [] for the list, ['new'], ['fit'], ['import'] or [ratingId].
+  const path = route.segments.slice(3);
   const site = useRecords(() => getSite(siteId), ['site'], [siteId]);
   if (site.state === 'loading') return <p aria-busy="true">Opening the site…</p>;
   if (site.state === 'failed') return <p class="callout bad" role="alert">{site.message}</p>;

@@ -1,19 +1,13 @@
 // Sites: every site with its latest reading, that reading's discharge and how long ago; the way in to
 // a site's readings, to a new site, and (from the empty state) to the demo site.
 import { useState } from 'preact/hooks';
-import type { ScreenProps } from '../../app/routes';
-import { useRecords } from '../../app/use-records';
+import type { ScreenProps } from '../../router';
+import { useRecords } from '../../db/use-records';
 import { loadDemoSite } from '../../app/demo';
 import { listSites, readingsWithDischarge, latestReadings, type ReadingWithDischarge } from '../../db';
 import { formatAgo, formatQuantity } from '../../format';
 import { href, navigate } from '../../router';
-import { lazyScreen } from '../../components/LazyScreen';
 import { hasDischarge, type SiteRecord } from '../../../core';
-import SiteForm from '../SiteForm';
-
-const SiteReadings = lazyScreen<{ siteId: string }>(() => import('../SiteReadings'));
-const Ratings = lazyScreen<{ siteId: string; path: string[] }>(() => import('../Ratings'));
-const Gaugings = lazyScreen<{ siteId: string; path: string[] }>(() => import('../Gaugings'));
 
 interface SiteRow {
   site: SiteRecord;
@@ -115,13 +109,7 @@ function SitesList() {
   );
 }
 
-/** The Sites area: the list, one site's readings, or the site form, by route. */
-export default function Sites({ route }: ScreenProps) {
-  const [, id, action, ...rest] = route.segments;
-  if (id === 'new') return <SiteForm />;
-  if (id && action === 'edit') return <SiteForm siteId={id} />;
-  if (id && action === 'ratings') return <Ratings siteId={id} path={rest} />;
-  if (id && action === 'gaugings') return <Gaugings siteId={id} path={rest} />;
-  if (id) return <SiteReadings siteId={id} />;
+/** The Sites area's home: every site with its latest reading. */
+export default function Sites(_props: ScreenProps) {
   return <SitesList />;
 }

@@ -30,32 +30,42 @@ const snap = (h: number) => Math.round(h / GRID_M) * GRID_M;
  */
 export function chordGap(rating: Rating, a: number, b: number, tol: ConversionTolerance): { gap_m3s: number; allowed_m3s: number } {
   const seg = rating.segments[segmentIndexAt(rating.segments, (a + b) / 2)];
-  const fa = dischargeAt(rating, a);
-  const fb = dischargeAt(rating, b);
+  // The law of the segment that holds inside the interval, also at its ends (a breakpoint at b may jump).
+  const law = (h: number) => (h > seg.offset_m ? seg.coefficient * Math.pow(h - seg.offset_m, seg.exponent) : 0);
+  const fa = law(a);
+  const fb = law(b);
   const slope = (fb - fa) / (b - a);
   let x = (a + b) / 2;
   if (seg.exponent !== 1 && slope > 0 && a >= seg.offset_m) {
     const d = Math.pow(slope / (seg.coefficient * seg.exponent), 1 / (seg.exponent - 1));
     x = Math.min(b, Math.max(a, seg.offset_m + d));
   }
-  const f = dischargeAt(rating, x);
+  const f = law(x);
   return { gap_m3s: Math.abs(fa + slope * (x - a) - f), allowed_m3s: Math.max(tol.relative * f, tol.absolute_m3s) };
 }
 
 /**
  * Table points of `rating` (no shift) from the gauge height of zero flow up to top_m (m), on a 1 mm grid:
  * every breakpoint, offset and gauged-range end is a point, and each interval is halved until the chord
- * stays within `tol` of the curve (or the interval is 1 mm). Throws a RangeError when top_m is not above
- * the zero-flow stage.
+ * stays within `tol` of the curve (or the interval is 1 mm: a law with exponent below 1, infinitely steep
+ * at zero flow, is followed only from a few millimetres above it). Throws a RangeError when top_m is not above the
+ * zero-flow stage.
  */
 export function ratingConversionPoints(rating: Rating, top_m: number, tol: ConversionTolerance = DEFAULT_CONVERSION_TOLERANCE): ConversionPoint[] {
   const bottom = snap(zeroFlowStage_m(rating));
   const top = snap(top_m);
   if (!(top > bottom)) throw new RangeError(`A rating table needs a top stage above the stage of zero flow (${bottom} m); got ${top_m} m`);
   const knots = new Set<number>([bottom, top]);
-  for (const s of rating.segments) {
+  rating.segments.forEach((s, k) => {
     for (const h of [s.fromStage_m, s.offset_m]) if (h > bottom && h < top) knots.add(snap(h));
-  }
+    // A rating that jumps at a breakpoint (not made continuous) gets the jump within the last millimetre.
+    const h = snap(s.fromStage_m);
+    if (k > 0 && h - GRID_M > bottom && h < top) {
+      const below = rating.segments[k - 1];
+      const left = h > below.offset_m ? below.coefficient * Math.pow(h - below.offset_m, below.exponent) : 0;
+      if (Math.abs(left - dischargeAt(rating, h)) > Math.max(tol.relative * left, tol.absolute_m3s)) knots.add(snap(h - GRID_M));
+    }
+  });
   for (const h of rating.gaugedRange_m ?? []) if (h > bottom && h < top) knots.add(snap(h));
   const sorted = [...knots].sort((p, q) => p - q);
   const stages: number[] = [sorted[0]];

@@ -10,3 +10,8 @@ export { escapeXml, gmlId } from './xml-write';
 export { watermlTimeseries, WATERML_QUALITY, type TimeseriesDocumentInput } from './waterml-timeseries';
 export { watermlRatings, segmentEquation, type RatingsDocumentInput } from './waterml-ratings';
 export { ratingConversionPoints, chordGap, DEFAULT_CONVERSION_TOLERANCE, type ConversionPoint, type ConversionTolerance } from './rating-points';
+export { readCsvRecords, CsvSyntaxError, type CsvRecord } from './csv-read';
+export {
+  parseReadingsCsv, parseIsoWithOffset, CsvImportError, MAX_CSV_PROBLEMS, type ReadingCsvMapping, type CsvProblem, type CsvStageUnit,
+} from './readings-csv-import';
+export { guessReadingsMapping, type MappingGuess } from './readings-csv-mapping';

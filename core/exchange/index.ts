@@ -15,3 +15,4 @@ export {
   parseReadingsCsv, parseIsoWithOffset, CsvImportError, MAX_CSV_PROBLEMS, type ReadingCsvMapping, type CsvProblem, type CsvStageUnit,
 } from './readings-csv-import';
 export { guessReadingsMapping, type MappingGuess } from './readings-csv-mapping';
+export { isoWithOffsetFormatter } from './iso-times';

@@ -3,6 +3,7 @@
 // times with the site's UTC offset, UCUM unit codes, the interpolation type, and per-point quality.
 import type { ReadingQuality, ReadingSource, SiteRecord } from '../records/index';
 import { toIsoWithOffset } from '../time/index';
+import { isoWithOffsetFormatter } from './iso-times';
 import type { ReadingExportRow } from './readings-csv';
 import { monitoringPoint, monitoringPointId, siteLink } from './waterml-site';
 import { el, gmlId, wrap, WATERML_NAMESPACES } from './xml-write';
@@ -40,7 +41,7 @@ interface SeriesSpec {
   points: { time_ms: number; value: number; quality: ReadingQuality; comment?: string }[];
 }
 
-function observation(site: SiteRecord, s: SeriesSpec, generated_ms: number, featureRef: Record<string, string>): string {
+function observation(site: SiteRecord, s: SeriesSpec, generated_ms: number, featureRef: Record<string, string>, iso: (time_ms: number) => string): string {
   const tz = site.timeZone;
   const first = s.points[0].time_ms;
   const last = s.points[s.points.length - 1].time_ms;
@@ -53,7 +54,7 @@ function observation(site: SiteRecord, s: SeriesSpec, generated_ms: number, feat
     }
     return wrap('wml2:point', undefined, [
       wrap('wml2:MeasurementTVP', undefined, [
-        el('wml2:time', undefined, toIsoWithOffset(p.time_ms, tz)),
+        el('wml2:time', undefined, iso(p.time_ms)),
         el('wml2:value', undefined, numberText(p.value)),
         ...(meta.length > 0 ? [wrap('wml2:metadata', undefined, [wrap('wml2:TVPMeasurementMetadata', undefined, meta)])] : []),
       ]),
@@ -112,6 +113,7 @@ export function watermlTimeseries(input: TimeseriesDocumentInput): string {
   if (readings.length === 0) throw new RangeError(`There are no readings of site ${site.code} to write as WaterML`);
   const sources = [...new Set(readings.map((r) => r.reading.source))];
   const mp = monitoringPoint(site);
+  const iso = isoWithOffsetFormatter(site.timeZone);
   const featureRef: Record<string, string> = mp ? { 'xlink:href': `#${monitoringPointId(site)}`, 'xlink:title': siteLink(site)['xlink:title'] } : siteLink(site);
   const members: string[] = [];
   for (const source of sources) {
@@ -119,7 +121,7 @@ export function watermlTimeseries(input: TimeseriesDocumentInput): string {
     members.push(observation(site, {
       key: 'stage', property: 'urn:x-freshet:property:stage', title: 'Stage (gauge height above the gauge datum)', uom: 'm', source,
       points: of.map((r) => ({ time_ms: r.reading.time_ms, value: r.reading.stage_m, quality: r.reading.quality })),
-    }, generated_ms, featureRef));
+    }, generated_ms, featureRef, iso));
     const withQ = of.filter((r) => r.discharge_m3s !== null);
     if (withQ.length > 0) {
       members.push(observation(site, {
@@ -129,7 +131,7 @@ export function watermlTimeseries(input: TimeseriesDocumentInput): string {
           quality: r.extrapolated ? 'estimated' : r.reading.quality,
           comment: r.extrapolated ? 'Extrapolated beyond the gauged range of the rating.' : undefined,
         })),
-      }, generated_ms, featureRef));
+      }, generated_ms, featureRef, iso));
     }
   }
   const doc = wrap('wml2:Collection', { ...WATERML_NAMESPACES, 'xsi:schemaLocation': 'http://www.opengis.net/waterml/2.0 http://schemas.opengis.net/waterml/2.0/waterml2.xsd', 'gml:id': gmlId('collection', site.id) }, [

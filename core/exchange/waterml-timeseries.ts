@@ -1,6 +1,7 @@
 // A site's readings and discharges as an OGC WaterML 2.0 Part 1 document (OGC 10-126r4): a wml2:Collection
 // with one OM_Observation per series, each with a MeasurementTimeseries result of time–value pairs,
 // times with the site's UTC offset, UCUM unit codes, the interpolation type, and per-point quality.
+import { hasDischarge } from '../rating/index';
 import type { ReadingQuality, ReadingSource, SiteRecord } from '../records/index';
 import { toIsoWithOffset } from '../time/index';
 import { isoWithOffsetFormatter } from './iso-times';
@@ -122,12 +123,12 @@ export function watermlTimeseries(input: TimeseriesDocumentInput): string {
       key: 'stage', property: 'urn:x-freshet:property:stage', title: 'Stage (gauge height above the gauge datum)', uom: 'm', source,
       points: of.map((r) => ({ time_ms: r.reading.time_ms, value: r.reading.stage_m, quality: r.reading.quality })),
     }, generated_ms, featureRef, iso));
-    const withQ = of.filter((r) => r.discharge_m3s !== null);
+    const withQ = of.filter((r) => hasDischarge(r.discharge_m3s));
     if (withQ.length > 0) {
       members.push(observation(site, {
         key: 'discharge', property: 'urn:x-freshet:property:discharge', title: 'Discharge', uom: 'm3/s', source,
         points: withQ.map((r) => ({
-          time_ms: r.reading.time_ms, value: r.discharge_m3s as number,
+          time_ms: r.reading.time_ms, value: r.discharge_m3s,
           quality: r.extrapolated ? 'estimated' : r.reading.quality,
           comment: r.extrapolated ? 'Extrapolated beyond the gauged range of the rating.' : undefined,
         })),

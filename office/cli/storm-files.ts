@@ -24,7 +24,7 @@ export function stormFiles(data: SiteData, stem: string): { files: OutputFile[];
     const rows = data.readings.filter((r) => r.reading.time_ms >= a.from_ms && r.reading.time_ms <= a.to_ms);
     const made = seriesFromReadings({
       time_ms: rows.map((r) => r.reading.time_ms),
-      discharge_m3s: rows.map((r) => r.discharge_m3s ?? NaN),
+      discharge_m3s: rows.map((r) => r.discharge_m3s),
       source: rows.map((r) => READING_SOURCE_CODES[r.reading.source]),
       extrapolated: rows.map((r) => (r.extrapolated ? 1 : 0)),
     });

@@ -6,7 +6,7 @@ import fc from 'fast-check';
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import {
-  CSV_BOM, csvTable, gaugingsToCsv, looksLikeFormula, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv, stormToCsv, textField,
+  NO_DISCHARGE, CSV_BOM, csvTable, gaugingsToCsv, looksLikeFormula, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv, stormToCsv, textField,
   type GaugingRecord, type RatingRecord, type ReadingExportRow,
 } from '../../../core';
 
@@ -55,7 +55,7 @@ describe('formula injection (OWASP CSV Injection)', () => {
   });
 
   it('keeps numeric columns numbers: a stage of −0.31 m and a negative shift survive', () => {
-    const csv = readingsToCsv([{ reading: reading(1, { stage_m: -0.31 }), discharge_m3s: null, shift_m: -0.012, extrapolated: false }], { siteCode: 'XY-1', timeZone: 'UTC', units: 'metric' });
+    const csv = readingsToCsv([{ reading: reading(1, { stage_m: -0.31 }), discharge_m3s: NO_DISCHARGE, shift_m: -0.012, extrapolated: false }], { siteCode: 'XY-1', timeZone: 'UTC', units: 'metric' });
     const typed = Papa.parse<Record<string, unknown>>(csv.slice(1), { header: true, skipEmptyLines: true, dynamicTyping: true });
     expect(typed.data[0].stage_m).toBe(-0.31);
     expect(typed.data[0].shift_m).toBe(-0.012);

@@ -5,7 +5,7 @@ import fc from 'fast-check';
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import {
-  CsvImportError, guessReadingsMapping, parseIsoWithOffset, parseReadingsCsv, readCsvRecords, readingsToCsv,
+  NO_DISCHARGE, CsvImportError, guessReadingsMapping, parseIsoWithOffset, parseReadingsCsv, readCsvRecords, readingsToCsv,
   type ReadingCsvMapping, type ReadingExportRow,
 } from '../../../core';
 
@@ -65,7 +65,7 @@ describe('parseReadingsCsv', () => {
     const notes = ['=HYPERLINK("http://example.invalid","x")', '@obs', '-0.31 below the peg', 'plain, with "quotes"\nand a line break', ''];
     const rows: ReadingExportRow[] = notes.map((note, i) => ({
       reading: { id: `0b6f6a7e-1c2d-4e5f-8a9b-0c1d2e3f4a0${i}`, rev: '0001764547200000-000000-devA', updated_ms: 0, siteId: 'x', time_ms: Date.UTC(2026, 5, 30, 21, 15 + i), stage_m: [-0.31, 0.7341, 1.5, 0, 12.25][i], source: 'staff', quality: (['good', 'fair', 'poor', 'estimated', 'good'] as const)[i], observer: '', note, warnings: [] },
-      discharge_m3s: null, shift_m: 0, extrapolated: false,
+      discharge_m3s: NO_DISCHARGE, shift_m: 0, extrapolated: false,
     }));
     const csv = readingsToCsv(rows, { siteCode: '=XY', timeZone: 'America/Denver', units: 'metric' });
     const guess = guessReadingsMapping(csv);

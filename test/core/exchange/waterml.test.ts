@@ -7,7 +7,7 @@ import { join } from 'node:path';
 import { XMLParser } from 'fast-xml-parser';
 import { describe, expect, it } from 'vitest';
 import {
-  demoScenario, dischargeAt, isExtrapolated, ratingConversionPoints, toIsoWithOffset, watermlRatings, watermlTimeseries,
+  NO_DISCHARGE, demoScenario, dischargeAt, isExtrapolated, ratingConversionPoints, toIsoWithOffset, watermlRatings, watermlTimeseries,
   type GaugingRecord, type Rating, type RatingRecord, type ReadingExportRow, type ReadingRecord, type SiteRecord,
 } from '../../../core';
 import { validateWaterml } from '../../support/waterml-kit';
@@ -108,7 +108,7 @@ describe('Part 1: time series', () => {
   it('escapes hostile text, prefixes ids that start with a digit, and marks per-point quality', () => {
     const site: SiteRecord = { ...d.site, id: '0a1b2c3d-0000-4000-8000-000000000009', code: '<PB&"03\'>', name: ']]> & <script>', location: undefined };
     const readings: ReadingExportRow[] = [
-      { reading: { ...d.readings[0].reading, quality: 'fair', note: '<b>' }, discharge_m3s: null, shift_m: 0, extrapolated: false },
+      { reading: { ...d.readings[0].reading, quality: 'fair', note: '<b>' }, discharge_m3s: NO_DISCHARGE, shift_m: 0, extrapolated: false },
       { reading: { ...d.readings[1].reading, quality: 'estimated' }, discharge_m3s: 0.2, shift_m: 0, extrapolated: false },
     ];
     const text = watermlTimeseries({ site, readings, generated_ms: MADE, generationSystem: 'Freshet <test>' });

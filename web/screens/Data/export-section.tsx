@@ -2,14 +2,12 @@
 // time series, Part 2 ratings and gaugings), shared from the phone or downloaded.
 import { useEffect, useState } from 'preact/hooks';
 import {
-  fromLocalInput, gaugingsToCsv, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv, toLocalInput, watermlRatings, watermlTimeseries,
+  fromLocalInput, gaugingsToCsv, MS_PER_DAY, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv, toLocalInput, watermlRatings, watermlTimeseries,
   type SiteRecord,
 } from '../../../core';
 import { latestReadings, listGaugings, listRatings, readingsWithDischarge } from '../../db';
 import { describedBy, Field } from '../../components/Field';
 import { saveTextFile } from './save-file';
-
-const DAY_MS = 86_400_000;
 
 /** What can be exported, with the label the screen shows and whether it reads the window of readings. */
 const KINDS = {
@@ -42,7 +40,7 @@ export function ExportSection({ sites }: { sites: SiteRecord[] }) {
     if (!site) return;
     void latestReadings([site.id]).then((m) => {
       const end = m.get(site.id)?.time_ms ?? Date.now();
-      setRange({ from: toLocalInput(end - 30 * DAY_MS, site.timeZone), to: toLocalInput(end + 60_000, site.timeZone) });
+      setRange({ from: toLocalInput(end - 30 * MS_PER_DAY, site.timeZone), to: toLocalInput(end + 60_000, site.timeZone) });
     });
   }, [site?.id]);
   if (!site) return null;

@@ -2,10 +2,9 @@
 // WaterML 2.0, by download or the phone's share sheet) and readings imported from CSV.
 import { useEffect, useState } from 'preact/hooks';
 import { listConflicts, listDrafts, listSites, storageState, type StorageState } from '../../db';
-import type { ScreenProps } from '../../app/routes';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../db/use-records';
 import { formatTime } from '../../format';
-import { href } from '../../router';
+import { href, type ScreenProps } from '../../router';
 import { CsvImportSection } from './csv-import-section';
 import { ExportSection } from './export-section';
 

@@ -35,6 +35,20 @@ export interface StoreOptions {
   beforeCommit?: (tx: Queryable) => Promise<void>;
 }
 
+interface Clash {
+  kind: string;
+  id: string;
+  rev: string;
+}
+
+interface HeldRow {
+  kind: string;
+  id: string;
+  rev: string;
+  deleted: boolean;
+  body: SyncRecord['body'];
+}
+
 interface Row {
   kind: string;
   id: string;
@@ -74,15 +88,43 @@ export async function storeBundle(
       }
       return { status: 'had', seq: Number(had[0].seq) };
     }
+    // One statement does the rest of the writing (fewer round trips: each costs more than the work on a
+    // busy machine): the bundle with its number, every version not already held, the device's last push,
+    // any clash with a stored revision, and the current versions of the records the bundle touches. A
+    // clash throws below and rolls the whole transaction back, so nothing of the bundle stays.
     // jsonb equality compares values, not key order or spacing, so a re-sent identical record passes.
-    const clashes = await tx.query<{ kind: string; id: string; rev: string }>(
-      `select v.kind, v.id::text as id, v.rev
-         from jsonb_to_recordset($1::jsonb) as x(kind text, id uuid, rev text, deleted boolean, body jsonb)
-         join record_versions v on v.kind = x.kind and v.id = x.id and v.rev = x.rev
-        where v.body <> x.body or v.deleted <> x.deleted
-        limit 5`,
-      [rowsJson],
+    // No row locks are needed on current_records: PUSH_LOCK already keeps other pushes out.
+    const [written] = await tx.query<{ seq: string; inserted: string; clashes: Clash[] | null; held: HeldRow[] | null }>(
+      `with x as materialized (
+         select * from jsonb_to_recordset($1::jsonb) as x(kind text, id uuid, rev text, deleted boolean, body jsonb)),
+       b as (
+         insert into office_bundles (seq, id, device_no, bundle_device, created, checksum, record_count, document)
+         values (nextval('office_bundle_seq'), $2, $3, $4, $5, $6, $7, $8)
+         returning seq),
+       clash as (
+         select v.kind, v.id::text as id, v.rev from x
+           join record_versions v on v.kind = x.kind and v.id = x.id and v.rev = x.rev
+          where v.body <> x.body or v.deleted <> x.deleted
+          limit 5),
+       ins as (
+         insert into record_versions (kind, id, rev, deleted, body, device, bundle_id, received_at, seq)
+         select x.kind, x.id, x.rev, x.deleted, x.body, $4, $2, now(), (select seq from b) from x
+         on conflict (kind, id, rev) do nothing
+         returning 1),
+       dev as (
+         update office_devices set last_push_at = now(), last_bundle_id = $2, app_device_id = $4
+          where device_no = $3 returning 1),
+       held as (
+         select c.kind, c.id::text as id, c.rev, c.deleted, c.body from current_records c
+          where (c.kind, c.id) in (select kind, id from x))
+       select (select seq from b)::text as seq,
+              (select count(*) from ins)::text as inserted,
+              (select json_agg(clash) from clash) as clashes,
+              (select json_agg(held) from held) as held,
+              (select count(*) from dev) as dev`,
+      [rowsJson, bundle.id, deviceNo, bundle.device, bundle.created, bundle.checksum, bundle.records.length, document],
     );
+    const clashes = written.clashes ?? [];
     if (clashes.length > 0) {
       const c = clashes[0];
       throw new IntegrityError(
@@ -91,44 +133,16 @@ export async function storeBundle(
           (clashes.length > 1 ? ` (${clashes.length - 1} more like it in this bundle)` : ''),
       );
     }
-    const [{ seq }] = await tx.query<{ seq: string }>(`select nextval('office_bundle_seq')::text as seq`);
-    await tx.query(
-      `insert into office_bundles (seq, id, device_no, bundle_device, created, checksum, record_count, document)
-       values ($1, $2, $3, $4, $5, $6, $7, $8)`,
-      [seq, bundle.id, deviceNo, bundle.device, bundle.created, bundle.checksum, bundle.records.length, document],
-    );
-    const inserted = await tx.query<{ n: string }>(
-      `with ins as (
-         insert into record_versions (kind, id, rev, deleted, body, device, bundle_id, received_at, seq)
-         select x.kind, x.id, x.rev, x.deleted, x.body, $2, $3, now(), $4
-           from jsonb_to_recordset($1::jsonb) as x(kind text, id uuid, rev text, deleted boolean, body jsonb)
-         on conflict (kind, id, rev) do nothing
-         returning 1)
-       select count(*)::text as n from ins`,
-      [rowsJson, bundle.device, bundle.id, seq],
-    );
-    await updateCurrent(tx, bundle.records, seq);
-    await tx.query(
-      `update office_devices set last_push_at = now(), last_bundle_id = $2, app_device_id = $3 where device_no = $1`,
-      [deviceNo, bundle.id, bundle.device],
-    );
+    const seq = written.seq;
+    await updateCurrent(tx, bundle.records, written.held ?? [], seq);
     if (options.beforeCommit) await options.beforeCommit(tx);
-    return { status: 'stored', seq: Number(seq), newVersions: Number(inserted[0].n) };
+    return { status: 'stored', seq: Number(seq), newVersions: Number(written.inserted) };
   });
 }
 
 // The current version of each record the bundle touches, chosen by core's merge rule between what the
-// office holds and every version in the bundle; only winners that differ from the stored one are written.
-async function updateCurrent(tx: Queryable, records: readonly SyncRecord[], seq: string): Promise<void> {
-  const keys = JSON.stringify(records.map((r) => ({ kind: r.kind, id: r.id })));
-  const held = await tx.query<{ kind: string; id: string; rev: string; deleted: boolean; body: SyncRecord['body'] }>(
-    `select c.kind, c.id::text as id, c.rev, c.deleted, c.body
-       from current_records c
-       join (select distinct kind, id from jsonb_to_recordset($1::jsonb) as k(kind text, id uuid)) k
-         on c.kind = k.kind and c.id = k.id
-     for update of c`,
-    [keys],
-  );
+// office holds (`held`) and every version in the bundle; only winners that differ from the held one are written.
+async function updateCurrent(tx: Queryable, records: readonly SyncRecord[], held: readonly HeldRow[], seq: string): Promise<void> {
   const best = new Map<string, SyncRecord>();
   for (const h of held) {
     const rec = { kind: h.kind, id: h.id, rev: h.rev, body: h.body, ...(h.deleted ? { deleted: true } : {}) } as SyncRecord;

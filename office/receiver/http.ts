@@ -36,8 +36,6 @@ interface LogFields {
   outcome?: string;
 }
 
-const BUNDLE_STATUS: Record<BundleError['reason'], number> = { shape: 400, format: 422, version: 422, checksum: 422, record: 422 };
-
 /** Creates the HTTP server (not yet listening) for the bundle protocol. */
 export function createReceiver(options: ReceiverOptions): Server {
   const origins = new Set(options.origins);
@@ -58,7 +56,9 @@ export function createReceiver(options: ReceiverOptions): Server {
       .then((status) => finish(status))
       .catch((err: unknown) => {
         const refusal = err instanceof Refusal ? err : null;
-        const status = refusal ? refusal.status : 500;
+        // A database failure is the office's trouble, not the phone's: 503 with Retry-After, so it tries later.
+        const status = refusal ? refusal.status : 503;
+        if (!refusal && !res.headersSent) res.setHeader('Retry-After', '60');
         fields.outcome = refusal ? refusal.reason : `error: ${err instanceof Error ? err.message : String(err)}`;
         if (!res.headersSent) {
           const message = refusal ? refusal.message : 'The office receiver failed to store or read bundles; nothing was stored. Try again later.';
@@ -80,7 +80,7 @@ async function handle(req: IncomingMessage, res: ServerResponse, url: URL, field
       throw new Refusal(403, 'origin', `Pages from ${origin} may not use this receiver; start it with --origin ${origin} to allow them.`);
     }
     res.setHeader('Access-Control-Allow-Origin', origin);
-    res.setHeader('Access-Control-Expose-Headers', 'Content-Type');
+    res.setHeader('Access-Control-Expose-Headers', 'Retry-After');
   }
   res.setHeader('Vary', 'Origin');
   const path = url.pathname.replace(/\/+$/, '') || '/';
@@ -121,7 +121,8 @@ async function authorise(db: Database, header: string | undefined): Promise<Auth
     unknown: 'The office does not know this token: check the token in the sync settings, or ask the office for a new one.',
     revoked: 'The office has revoked this device\'s token: ask the office for a new one.',
   }[a.reason];
-  throw new Refusal(401, `token-${a.reason}`, message);
+  // The protocol (core/exchange/README.md): 401 for no token or an unknown one, 403 for a revoked one.
+  throw new Refusal(a.reason === 'revoked' ? 403 : 401, `token-${a.reason}`, message);
 }
 
 function tooLarge(maxBytes: number): Refusal {
@@ -141,23 +142,23 @@ async function push(req: IncomingMessage, res: ServerResponse, fields: LogFields
   try {
     bundle = parseBundle(json);
   } catch (err) {
-    if (err instanceof BundleError) throw new Refusal(BUNDLE_STATUS[err.reason], err.reason, err.message);
+    if (err instanceof BundleError) throw new Refusal(400, err.reason, err.message);
     throw err;
   }
   fields.bundle = bundle.id;
   fields.records = bundle.records.length;
   const key = req.headers['idempotency-key'];
   if (key !== undefined && key !== bundle.id) {
-    throw new Refusal(400, 'idempotency-key', `The Idempotency-Key header must be the bundle's id (${bundle.id}); got ${JSON.stringify(key)}.`);
+    throw new Refusal(400, 'key', `The Idempotency-Key header must be the bundle's id (${bundle.id}); got ${JSON.stringify(key)}.`);
   }
   try {
     const out = await storeBundle(ctx.db, bundle, device.deviceNo, ctx.store);
     if (out.status === 'had') {
       fields.outcome = 'already had';
-      return sendJson(res, 200, { id: bundle.id, status: 'already-received', records: bundle.records.length });
+      return sendJson(res, 200, { bundle: bundle.id, records: bundle.records.length, status: 'already-received' });
     }
     fields.outcome = `stored ${out.newVersions} new versions`;
-    return sendJson(res, 201, { id: bundle.id, status: 'received', records: bundle.records.length, newVersions: out.newVersions });
+    return sendJson(res, 201, { bundle: bundle.id, records: bundle.records.length, status: 'received', newVersions: out.newVersions });
   } catch (err) {
     if (err instanceof IntegrityError) throw new Refusal(409, err.reason, err.message);
     throw err;

@@ -36,7 +36,11 @@ const OPTIONS = {
 } as const;
 
 /** Runs `freshet office` with the arguments after "office"; resolves to the exit status (serving runs until a signal). */
-export async function runOffice(args: readonly string[], out = process.stdout, err = process.stderr): Promise<number> {
+export async function runOffice(
+  args: readonly string[],
+  out: NodeJS.WritableStream = process.stdout,
+  err: NodeJS.WritableStream = process.stderr,
+): Promise<number> {
   let parsed;
   try {
     parsed = parseArgs({ args: [...args], options: OPTIONS, allowPositionals: true, strict: true });

@@ -107,10 +107,13 @@ async function handle(req: IncomingMessage, res: ServerResponse, url: URL, field
       throw tooLarge(ctx.maxBytes);
     }
   }
+  // The body is read before the token is looked up: the lookup may wait behind other pushes, and a
+  // request whose body sits unread that long would be cut off by the server's request timeout.
+  const text = req.method === 'POST' ? await readBody(req, ctx.maxBytes) : '';
   const device = await authorise(ctx.db, req.headers.authorization);
   fields.device = device.name;
   if (req.method === 'GET') return pull(res, url, fields, ctx, device);
-  return push(req, res, fields, ctx, device);
+  return push(req, text, res, fields, ctx, device);
 }
 
 async function authorise(db: Database, header: string | undefined): Promise<AuthenticatedDevice> {
@@ -130,8 +133,14 @@ function tooLarge(maxBytes: number): Refusal {
   return new Refusal(413, 'size', `The bundle is larger than this receiver accepts (${mib} MiB); send the records in smaller bundles.`);
 }
 
-async function push(req: IncomingMessage, res: ServerResponse, fields: LogFields, ctx: Ctx, device: AuthenticatedDevice): Promise<number> {
-  const text = await readBody(req, ctx.maxBytes);
+async function push(
+  req: IncomingMessage,
+  text: string,
+  res: ServerResponse,
+  fields: LogFields,
+  ctx: Ctx,
+  device: AuthenticatedDevice,
+): Promise<number> {
   let json: unknown;
   try {
     json = JSON.parse(text);

@@ -49,14 +49,6 @@ interface HeldRow {
   body: SyncRecord['body'];
 }
 
-interface Row {
-  kind: string;
-  id: string;
-  rev: string;
-  deleted: boolean;
-  body: unknown;
-}
-
 /**
  * Stores a parsed bundle pushed by device `deviceNo` in one transaction: the bundle, every record version
  * it brings (a version the office already has with the same body is not doubled) and the current version
@@ -69,10 +61,6 @@ export async function storeBundle(
   options: StoreOptions = {},
 ): Promise<StoreOutcome> {
   const document = JSON.stringify(bundle);
-  const rows: Row[] = bundle.records.map((r) => ({
-    kind: r.kind, id: r.id, rev: r.rev, deleted: r.deleted === true, body: r.body,
-  }));
-  const rowsJson = JSON.stringify(rows);
   return db.transaction(async (tx) => {
     await tx.query('select pg_advisory_xact_lock($1)', [PUSH_LOCK]);
     const had = await tx.query<{ seq: string; checksum: string }>(
@@ -96,10 +84,11 @@ export async function storeBundle(
     // No row locks are needed on current_records: PUSH_LOCK already keeps other pushes out.
     const [written] = await tx.query<{ seq: string; inserted: string; clashes: Clash[] | null; held: HeldRow[] | null }>(
       `with x as materialized (
-         select * from jsonb_to_recordset($1::jsonb) as x(kind text, id uuid, rev text, deleted boolean, body jsonb)),
+         select r.kind, r.id, r.rev, coalesce(r.deleted, false) as deleted, r.body
+           from jsonb_to_recordset($1::text::jsonb -> 'records') as r(kind text, id uuid, rev text, deleted boolean, body jsonb)),
        b as (
          insert into office_bundles (seq, id, device_no, bundle_device, created, checksum, record_count, document)
-         values (nextval('office_bundle_seq'), $2, $3, $4, $5, $6, $7, $8)
+         values (nextval('office_bundle_seq'), $2, $3, $4, $5, $6, $7, $1::text)
          returning seq),
        clash as (
          select v.kind, v.id::text as id, v.rev from x
@@ -122,7 +111,9 @@ export async function storeBundle(
               (select json_agg(clash) from clash) as clashes,
               (select json_agg(held) from held) as held,
               (select count(*) from dev) as dev`,
-      [rowsJson, bundle.id, deviceNo, bundle.device, bundle.created, bundle.checksum, bundle.records.length, document],
+      // The document is sent once: the rows are read out of it by the database (large parameters are
+      // the slow part of a query on PGlite).
+      [document, bundle.id, deviceNo, bundle.device, bundle.created, bundle.checksum, bundle.records.length],
     );
     const clashes = written.clashes ?? [];
     if (clashes.length > 0) {
@@ -159,14 +150,16 @@ async function updateCurrent(tx: Queryable, records: readonly SyncRecord[], held
     }
   }
   if (changed.size === 0) return;
-  const rows = [...changed.values()].map((r) => ({ kind: r.kind, id: r.id, rev: r.rev, deleted: r.deleted === true, body: r.body }));
+  // Winners are versions already in record_versions (this bundle's were inserted above): name them by key.
+  const keys = [...changed.values()].map((r) => ({ kind: r.kind, id: r.id, rev: r.rev }));
   await tx.query(
     `insert into current_records (kind, id, rev, deleted, body, seq)
-     select x.kind, x.id, x.rev, x.deleted, x.body, $2
-       from jsonb_to_recordset($1::jsonb) as x(kind text, id uuid, rev text, deleted boolean, body jsonb)
+     select v.kind, v.id, v.rev, v.deleted, v.body, $2
+       from jsonb_to_recordset($1::jsonb) as k(kind text, id uuid, rev text)
+       join record_versions v on v.kind = k.kind and v.id = k.id and v.rev = k.rev
      on conflict (kind, id) do update
        set rev = excluded.rev, deleted = excluded.deleted, body = excluded.body, seq = excluded.seq`,
-    [JSON.stringify(rows), seq],
+    [JSON.stringify(keys), seq],
   );
 }
 

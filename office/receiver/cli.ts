@@ -5,7 +5,18 @@ import { createReceiver, DEFAULT_MAX_BUNDLE_BYTES } from './http';
 import { createDevice, listDevices, revokeDevice } from './devices';
 import { openOfficeDatabase, OfficeSetupError, type StoreLocation } from './open';
 
-const HELP = `freshet office: the office end of sync. Phones push bundles to it over HTTP; it keeps every record
+/** Where `freshet office` writes: results to stdout, messages to stderr (the dispatcher's CliIo fits). */
+export interface OfficeIo {
+  stdout: (text: string) => void;
+  stderr: (text: string) => void;
+}
+
+function processOfficeIo(): OfficeIo {
+  return { stdout: (t) => void process.stdout.write(t), stderr: (t) => void process.stderr.write(t) };
+}
+
+/** The help of `freshet office`. */
+export const OFFICE_HELP = `freshet office: the office end of sync. Phones push bundles to it over HTTP; it keeps every record
 version in PostgreSQL (embedded in a folder by default, or a server).
 
   freshet office --data <folder> [--port 8787] [--host 127.0.0.1] [--origin <app origin>]…
@@ -36,11 +47,9 @@ const OPTIONS = {
 } as const;
 
 /** Runs `freshet office` with the arguments after "office"; resolves to the exit status (serving runs until a signal). */
-export async function runOffice(
-  args: readonly string[],
-  out: NodeJS.WritableStream = process.stdout,
-  err: NodeJS.WritableStream = process.stderr,
-): Promise<number> {
+export async function runOffice(args: readonly string[], io: OfficeIo = processOfficeIo()): Promise<number> {
+  const out = { write: io.stdout };
+  const err = { write: io.stderr };
   let parsed;
   try {
     parsed = parseArgs({ args: [...args], options: OPTIONS, allowPositionals: true, strict: true });
@@ -50,7 +59,7 @@ export async function runOffice(
   }
   const { values, positionals } = parsed;
   if (values.help) {
-    out.write(HELP + '\n');
+    out.write(OFFICE_HELP + '\n');
     return 0;
   }
   const where: StoreLocation = { data: values.data, database: values.database };
@@ -118,7 +127,7 @@ export function isLoopback(host: string): boolean {
 async function serve(
   values: { port?: string; host?: string; origin?: string[]; 'behind-proxy'?: boolean; 'max-bundle-mb'?: string },
   where: StoreLocation,
-  out: NodeJS.WritableStream,
+  out: { write: (text: string) => void },
 ): Promise<number> {
   const port = Number(values.port ?? '8787');
   if (!Number.isInteger(port) || port < 1 || port > 65535) throw new OfficeSetupError(`--port needs a whole number from 1 to 65535; got ${values.port}`);

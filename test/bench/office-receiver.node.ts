@@ -12,8 +12,8 @@ import type { Database } from '../../office/receiver/db';
 import { createDevice } from '../../office/receiver/devices';
 import { createReceiver } from '../../office/receiver/http';
 import { openOfficeDatabase } from '../../office/receiver/open';
-import { bundleOf, push, readingRecords } from '../office/support/phones';
-import { POSTGRES_URL, throwawayDatabase } from '../office/support/postgres';
+import { bundleOf, push, readingRecords } from '../support/office/phones';
+import { POSTGRES_URL, throwawayDatabase } from '../support/office/postgres';
 import { emit, sig3 } from './measure';
 
 const PHONES = 50;

@@ -3,7 +3,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { openOfficeDatabase } from '../../office/receiver/open';
-import { describeProtocol } from './support/protocol-suite';
+import { describeProtocol } from '../support/office/protocol-suite';
 
 const dir = mkdtempSync(join(tmpdir(), 'freshet-office-'));
 describeProtocol({

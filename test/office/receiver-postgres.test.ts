@@ -1,8 +1,8 @@
 // The same protocol tests against a PostgreSQL server (a throwaway database on FRESHET_TEST_POSTGRES_URL).
 import { describe, it } from 'vitest';
 import { openOfficeDatabase } from '../../office/receiver/open';
-import { describeProtocol } from './support/protocol-suite';
-import { POSTGRES_URL, skipWithoutPostgres, throwawayDatabase } from './support/postgres';
+import { describeProtocol } from '../support/office/protocol-suite';
+import { POSTGRES_URL, skipWithoutPostgres, throwawayDatabase } from '../support/office/postgres';
 
 if (skipWithoutPostgres('receiver-postgres.test.ts')) {
   describe('office receiver on PostgreSQL', () => {

@@ -6,24 +6,22 @@ import { spawn } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { Writable } from 'node:stream';
 import { afterAll, describe, expect, it } from 'vitest';
-import { runOffice } from '../../office/receiver/cli';
+import { run } from '../../office/cli/index';
 import { tokenHash } from '../../office/receiver/devices';
 import { openOfficeDatabase } from '../../office/receiver/open';
-import { killWhileStoring } from './support/crash';
-import { bundleOf, push, readingRecords } from './support/phones';
-import { POSTGRES_URL, throwawayDatabase } from './support/postgres';
+import { killWhileStoring } from '../support/office/crash';
+import { bundleOf, push, readingRecords } from '../support/office/phones';
+import { POSTGRES_URL, throwawayDatabase } from '../support/office/postgres';
 
 const dir = mkdtempSync(join(tmpdir(), 'freshet-office-process-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-/** Runs `freshet office <args>` in this process; resolves to the exit status and what it wrote. */
+/** Runs `freshet office <args>` through the `freshet` dispatcher in this process; resolves to the exit status and what it wrote. */
 async function office(args: string[]): Promise<{ code: number; out: string; err: string }> {
   let out = '';
   let err = '';
-  const sink = (add: (s: string) => void) => new Writable({ write(chunk, _enc, done) { add(String(chunk)); done(); } });
-  const code = await runOffice(args, sink((s) => (out += s)), sink((s) => (err += s)));
+  const code = await run(['office', ...args], { stdout: (s) => (out += s), stderr: (s) => (err += s), cwd: process.cwd() });
   return { code, out, err };
 }
 
@@ -84,7 +82,7 @@ describe('freshet office (command)', () => {
   }, 60_000);
 
   it('serves on the folder, stores a push, stops on SIGTERM and releases the folder', async () => {
-    const child = spawn(process.execPath, ['--import', 'tsx', 'office/receiver/main.ts', '--data', dir, '--port', '4585'], {
+    const child = spawn(process.execPath, ['bin/freshet.mjs', 'office', '--data', dir, '--port', '4585'], {
       stdio: ['ignore', 'pipe', 'pipe'],
     });
     let out = '';

@@ -3,7 +3,7 @@
 // command on the same folder (token, devices, revoke, the folder lock, serving and stopping). The crash
 // case also runs on a PostgreSQL server when one is available.
 import { spawn } from 'node:child_process';
-import { existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -11,7 +11,7 @@ import { run } from '../../office/cli/index';
 import { tokenHash } from '../../office/receiver/devices';
 import { openOfficeDatabase } from '../../office/receiver/open';
 import { killWhileStoring } from '../support/office/crash';
-import { bundleOf, push, readingRecords } from '../support/office/phones';
+import { bundleOf, push, readingRecords, siteRecord } from '../support/office/phones';
 import { POSTGRES_URL, throwawayDatabase } from '../support/office/postgres';
 
 const dir = mkdtempSync(join(tmpdir(), 'freshet-office-process-'));
@@ -102,10 +102,10 @@ describe('freshet office (command)', () => {
           reject(new Error(`the receiver stopped early: ${out}`));
         });
       });
-      const b = bundleOf('dev-7', readingRecords('dev-7', 12));
+      const b = bundleOf('dev-7', [siteRecord('dev-7'), ...readingRecords('dev-7', 12, 500)]);
       expect((await push('http://127.0.0.1:4585', token, b)).status).toBe(201);
       await new Promise((r) => setTimeout(r, 200));
-      expect(out).toMatch(new RegExp(`POST /bundles device=Field phone 7 bundle=${b.id} records=12 outcome=201 stored 12 new versions \\d+ms`));
+      expect(out).toMatch(new RegExp(`POST /bundles device=Field phone 7 bundle=${b.id} records=13 outcome=201 stored 13 new versions \\d+ms`));
       // While it runs, the folder is refused to other processes with a sentence that says what to do.
       const busy = await office(['devices', '--data', dir]);
       expect(busy.code).toBe(1);
@@ -127,5 +127,21 @@ describe('freshet office (command)', () => {
     const seven = lines.find((l) => l.startsWith('Field phone 7\t'));
     expect(seven).toMatch(/^Field phone 7\trevoked \d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}Z\tlast push \d{4}-\d{2}-\d{2}T[\d:]+Z\t1 bundles$/);
     expect(lines.some((l) => /^phone A again\tactive\tlast push \S+\t1 bundles$/.test(l))).toBe(true);
+  }, 60_000);
+
+  it('exports a site as CSV from the office database: every reading it received, once', async () => {
+    const out = join(dir, 'export');
+    const r = await office(['csv', '--data', dir, '--site', 'TB-02', '--out', out]);
+    expect(r.err).toBe('');
+    expect(r.code).toBe(0);
+    const name = readdirSync(out).find((f) => f.endsWith('_readings.csv'));
+    expect(name).toBeDefined();
+    const rows = readFileSync(join(out, String(name)), 'utf8').replace(/^\uFEFF/, '').trim().split('\r\n');
+    // 100 readings from the crash case (stored on the retry) and 12 from the served push.
+    expect(rows.length).toBe(1 + 112);
+    expect(new Set(rows.slice(1).map((l) => l.split(',')[0]))).toEqual(new Set(['TB-02']));
+    const missing = await office(['csv', '--data', dir, '--site', 'XX-99', '--out', join(dir, 'export2')]);
+    expect(missing.code).toBe(1);
+    expect(missing.err).toMatch(/no site with code "XX-99"/);
   }, 60_000);
 });

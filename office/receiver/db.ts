@@ -25,8 +25,14 @@ export interface Database extends Queryable {
 /** Opens (and on first use creates) a PGlite database in folder `dir`; creating one takes ~10–30 s. */
 export async function openPglite(dir: string): Promise<Database> {
   const db = await PGlite.create(dir);
+  // PGlite runs PostgreSQL in this thread. Queued statements resume one another through promise
+  // callbacks, which run before the event loop reads sockets again, so a queue of pushes could keep the
+  // HTTP server from reading for many seconds (long enough for its keep-alive timer to drop connections
+  // whose next request had already arrived). Yielding to the event loop before each statement lets the
+  // server read and answer between statements.
   const wrap = (q: { query: PGlite['query'] }): Queryable => ({
     async query<T>(sql: string, params: readonly unknown[] = []) {
+      await yieldToEventLoop();
       const r = await q.query<T>(sql, [...params]);
       return r.rows;
     },
@@ -35,12 +41,19 @@ export async function openPglite(dir: string): Promise<Database> {
     engine: 'pglite',
     ...wrap(db),
     // PGlite is one connection: its transaction() queues every other query and transaction behind this one.
-    transaction: (fn) => db.transaction((tx) => fn(wrap(tx))),
+    transaction: async (fn) => {
+      await yieldToEventLoop();
+      return db.transaction((tx) => fn(wrap(tx)));
+    },
     async exec(sql) {
       await db.exec(sql);
     },
     close: () => db.close(),
   };
+}
+
+function yieldToEventLoop(): Promise<void> {
+  return new Promise((resolve) => setImmediate(resolve));
 }
 
 /** Connects to a PostgreSQL server at `url` (postgres://user@host:port/db) with a small pool. */

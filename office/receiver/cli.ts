@@ -4,6 +4,9 @@ import { isIP } from 'node:net';
 import { createReceiver, DEFAULT_MAX_BUNDLE_BYTES } from './http';
 import { createDevice, listDevices, revokeDevice } from './devices';
 import { openOfficeDatabase, OfficeSetupError, type StoreLocation } from './open';
+import { importBundle } from './import-files';
+import { CliError } from '../cli/io';
+import { readBundleFile } from '../cli/read-bundle';
 
 /** Where `freshet office` writes: results to stdout, messages to stderr (the dispatcher's CliIo fits). */
 export interface OfficeIo {
@@ -31,6 +34,8 @@ version in PostgreSQL (embedded in a folder by default, or a server).
       List devices, their last push and bundle count.
   freshet office revoke <device name> (--data <folder> | --database <url>)
       Refuse that device's token from now on.
+  freshet office import <bundle.json>… (--data <folder> | --database <url>)
+      Store bundle files brought from phones (no network) as if pushed; phones get them on their next pull.
 
 With --data (the embedded database) the folder can be open in one process at a time: stop the receiver
 to add a device, or use a PostgreSQL server (--database).`;
@@ -90,6 +95,31 @@ export async function runOffice(args: readonly string[], io: OfficeIo = processO
           await db.close();
         }
       }
+      case 'import': {
+        if (rest.length === 0) {
+          err.write('freshet office import: expected one or more bundle files (try freshet office --help)\n');
+          return 2;
+        }
+        // Every file is read and checked before the database is opened: a bad file changes nothing.
+        const bundles = [];
+        for (const path of rest) bundles.push({ path, bundle: await readBundleFile('office import', path, process.cwd()) });
+        const db = await openOfficeDatabase(where);
+        let refused = 0;
+        try {
+          for (const { path, bundle } of bundles) {
+            const r = await importBundle(db, bundle);
+            if (r.status === 'refused') {
+              refused++;
+              err.write(`${path}: refused, nothing of it stored: ${r.message}\n`);
+            } else {
+              out.write(`${path}: ${r.status === 'stored' ? 'stored' : 'already had it'} (${r.records} records)\n`);
+            }
+          }
+        } finally {
+          await db.close();
+        }
+        return refused > 0 ? 1 : 0;
+      }
       case 'devices': {
         const db = await openOfficeDatabase(where);
         try {
@@ -105,10 +135,14 @@ export async function runOffice(args: readonly string[], io: OfficeIo = processO
         }
       }
       default:
-        err.write(`freshet office: unknown command ${JSON.stringify(command)}; expected token, devices or revoke (try freshet office --help)\n`);
+        err.write(`freshet office: unknown command ${JSON.stringify(command)}; expected token, devices, revoke or import (try freshet office --help)\n`);
         return 2;
     }
   } catch (e) {
+    if (e instanceof CliError) {
+      err.write(`${e.message}\n`);
+      return e.exitCode;
+    }
     if (e instanceof OfficeSetupError || e instanceof RangeError) {
       err.write(`freshet office: ${e.message}\n`);
       return 1;

@@ -3,7 +3,7 @@
 // command on the same folder (token, devices, revoke, the folder lock, serving and stopping). The crash
 // case also runs on a PostgreSQL server when one is available.
 import { spawn } from 'node:child_process';
-import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -17,13 +17,16 @@ import { POSTGRES_URL, throwawayDatabase } from '../support/office/postgres';
 const dir = mkdtempSync(join(tmpdir(), 'freshet-office-process-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-/** Runs `freshet office <args>` through the `freshet` dispatcher in this process; resolves to the exit status and what it wrote. */
-async function office(args: string[]): Promise<{ code: number; out: string; err: string }> {
+/** Runs `freshet <args>` through the dispatcher in this process; resolves to the exit status and what it wrote. */
+async function freshet(args: string[]): Promise<{ code: number; out: string; err: string }> {
   let out = '';
   let err = '';
-  const code = await run(['office', ...args], { stdout: (s) => (out += s), stderr: (s) => (err += s), cwd: process.cwd() });
+  const code = await run(args, { stdout: (s) => (out += s), stderr: (s) => (err += s), cwd: process.cwd() });
   return { code, out, err };
 }
+
+/** Runs `freshet office <args>`. */
+const office = (args: string[]) => freshet(['office', ...args]);
 
 describe('office receiver killed while storing a bundle', () => {
   it('on PGlite: stores nothing of it, and takes it whole on the next push', async () => {
@@ -131,7 +134,7 @@ describe('freshet office (command)', () => {
 
   it('exports a site as CSV from the office database: every reading it received, once', async () => {
     const out = join(dir, 'export');
-    const r = await office(['csv', '--data', dir, '--site', 'TB-02', '--out', out]);
+    const r = await freshet(['csv', '--data', dir, '--site', 'TB-02', '--out', out]);
     expect(r.err).toBe('');
     expect(r.code).toBe(0);
     const name = readdirSync(out).find((f) => f.endsWith('_readings.csv'));
@@ -140,8 +143,33 @@ describe('freshet office (command)', () => {
     // 100 readings from the crash case (stored on the retry) and 12 from the served push.
     expect(rows.length).toBe(1 + 112);
     expect(new Set(rows.slice(1).map((l) => l.split(',')[0]))).toEqual(new Set(['TB-02']));
-    const missing = await office(['csv', '--data', dir, '--site', 'XX-99', '--out', join(dir, 'export2')]);
+    const missing = await freshet(['csv', '--data', dir, '--site', 'XX-99', '--out', join(dir, 'export2')]);
     expect(missing.code).toBe(1);
     expect(missing.err).toMatch(/no site with code "XX-99"/);
   }, 60_000);
+
+  it('imports bundle files brought from phones: stored once, a damaged file changes nothing', async () => {
+    const good = bundleOf('dev-9', readingRecords('dev-9', 5, 900));
+    const goodFile = join(dir, 'from-phone-9.json');
+    writeFileSync(goodFile, JSON.stringify(good));
+    const damagedFile = join(dir, 'damaged.json');
+    writeFileSync(damagedFile, JSON.stringify({ ...good, id: '0f0e0d0c-0b0a-4908-8706-050403020100', checksum: `sha256:${'0'.repeat(64)}` }));
+    const first = await office(['import', goodFile, '--data', dir]);
+    expect(first).toEqual({ code: 0, out: `${goodFile}: stored (5 records)\n`, err: '' });
+    const again = await office(['import', goodFile, '--data', dir]);
+    expect(again.out).toBe(`${goodFile}: already had it (5 records)\n`);
+    const bad = await office(['import', goodFile, damagedFile, '--data', dir]);
+    expect(bad.code).toBe(1);
+    expect(bad.err).toMatch(/damaged\.json: .*do not match its checksum/);
+    expect(bad.out).toBe('');
+    const db = await openOfficeDatabase({ data: dir });
+    try {
+      const rows = await db.query<{ name: string; n: string }>(
+        `select d.name, count(v.*)::text as n from office_bundles b join office_devices d using (device_no)
+           join record_versions v on v.bundle_id = b.id where d.name = 'bundle files' group by d.name`);
+      expect(rows).toEqual([{ name: 'bundle files', n: '5' }]);
+    } finally {
+      await db.close();
+    }
+  }, 90_000);
 });

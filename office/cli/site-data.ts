@@ -1,7 +1,7 @@
 // A bundle's records gathered per site for the exports: the latest revision of each record (the higher
 // rev wins, as in the merge rule), tombstones dropped, and each reading's discharge through the rating
 // in force at its time with that rating's dated shifts.
-import { compareRev, dischargeAt, fromSyncRecord, isExtrapolated, shiftAt } from '../../core/index';
+import { compareRev, dischargeAt, fromSyncRecord, isExtrapolated, NO_DISCHARGE, shiftAt } from '../../core/index';
 import type { AnalysisRecord, GaugingRecord, RatingRecord, ReadingExportRow, ReadingRecord, SiteRecord, SyncRecord } from '../../core/index';
 
 /** One site's records from a bundle: readings with discharge (oldest first), gaugings, ratings (by start), analyses. */
@@ -32,7 +32,7 @@ export function withDischarge(readings: readonly ReadingRecord[], ratings: reado
     while (k + 1 < ratings.length && ratings[k + 1].validFrom_ms <= reading.time_ms) k++;
     const rating = k >= 0 ? ratings[k] : undefined;
     if (!rating) {
-      out.push({ reading, discharge_m3s: null, shift_m: 0, extrapolated: false });
+      out.push({ reading, discharge_m3s: NO_DISCHARGE, shift_m: 0, extrapolated: false });
       continue;
     }
     const shift_m = rating.shifts.length > 0 ? shiftAt(rating.shifts, reading.time_ms, reading.stage_m) : 0;

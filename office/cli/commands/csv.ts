@@ -1,13 +1,14 @@
 // `freshet csv <bundle.json> --out <dir>`: the CSV tables of every site in a bundle, written all at once.
 import { gaugingsToCsv, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv } from '../../../core/index';
-import { expectPositionals, parseCommandArgs } from '../args';
+import { parseCommandArgs } from '../args';
 import { CliError, type Command } from '../io';
-import { readBundleFile } from '../read-bundle';
+import { DATABASE_SOURCE_HELP, DATABASE_SOURCE_OPTIONS, exportRecords } from '../../receiver/export-source';
 import { siteStems, sitesOf } from '../site-data';
 import { stormFiles } from '../storm-files';
 import { writeFilesAtomically, type OutputFile } from '../write-files';
 
 const HELP = `Usage: freshet csv <bundle.json> --out <dir>
+       freshet csv (--data <dir> | --database <url>) --site <code> --out <dir>
 
 Writes CSV tables (RFC 4180, UTF-8 with a byte-order mark, ISO 8601 times with the site's UTC offset,
 units in the header, in each site's display units) for every site in the bundle:
@@ -22,6 +23,7 @@ The folder must be new or empty; nothing is written unless every file is.
 
 Options:
   --out DIR    the folder to write (required)
+${DATABASE_SOURCE_HELP}
   -h, --help   show this help
 `;
 
@@ -31,13 +33,11 @@ export const csvCommand: Command = {
   summary: 'write the CSV tables of every site in a bundle into a folder',
   help: HELP,
   async run(args, io) {
-    const parsed = parseCommandArgs('csv', args, { out: { type: 'string' } });
-    const [path] = expectPositionals('csv', parsed, ['bundle.json']);
+    const parsed = parseCommandArgs('csv', args, { out: { type: 'string' }, ...DATABASE_SOURCE_OPTIONS });
     const out = parsed.values.out;
     if (typeof out !== 'string' || out === '') throw new CliError('freshet csv: --out <dir> is required (try freshet csv --help)', 2);
-    const bundle = await readBundleFile('csv', path, io.cwd);
-    const sites = sitesOf(bundle.records);
-    if (sites.length === 0) throw new CliError(`freshet csv: ${path} holds no site, so there is nothing to export`);
+    const sites = sitesOf(await exportRecords('csv', parsed, io));
+    if (sites.length === 0) throw new CliError(`freshet csv: ${parsed.positionals[0]} holds no site, so there is nothing to export`);
     const stems = siteStems(sites.map((s) => s.site));
     const files: OutputFile[] = [];
     const skipped: string[] = [];

@@ -1,2 +1,3 @@
 // Times in a site's zone: UTC ms inside, wall-clock time at the screen edge.
 export { wallTimeAt, zoneOffset_min, instantOf, toLocalInput, fromLocalInput, toIsoWithOffset, type WallTime } from './zoned';
+export { clockChanges, type ClockChange } from './clock-changes';

@@ -22,11 +22,11 @@ export interface ReadLoggerOptions {
 
 /** Reads a whole logger file (text or a File/Blob) under the mapping; rejects with an AbortError when stopped. */
 export function readLoggerFile(input: string | Blob, mapping: LoggerMapping, options: ReadLoggerOptions = {}): Promise<LoggerFileRead> {
-  const reader = loggerReader(mapping);
   const size = typeof input === 'string' ? input.length : input.size;
   let line = 0;
   let lastBlank = false;
   return new Promise((resolve, reject) => {
+    const reader = loggerReader(mapping); // a RangeError here (an incomplete mapping) rejects the promise
     const config: Papa.ParseLocalConfig<string[], File> = {
       delimiter: mapping.delimiter,
       header: false,
@@ -67,6 +67,9 @@ export function readLoggerFile(input: string | Blob, mapping: LoggerMapping, opt
 
 /** The first `lines` lines of a file's text split into fields (for the mapping step), and the separator found. */
 export function previewLogger(text: string, lines = 20, delimiter?: string): { rows: string[][]; delimiter: string } {
-  const r = Papa.parse<string[]>(text, { preview: lines, header: false, skipEmptyLines: false, ...(delimiter && { delimiter }) });
-  return { rows: r.data, delimiter: r.meta.delimiter };
+  // The guess skips blank lines (they would spoil papaparse's field-count average) and tries the
+  // semicolon first: with decimal commas a comma would split every number in two.
+  const found = delimiter ?? Papa.parse<string[]>(text, { preview: Math.max(lines, 10), skipEmptyLines: 'greedy', delimitersToGuess: [';', '\t', ','] }).meta.delimiter;
+  const r = Papa.parse<string[]>(text, { preview: lines, header: false, skipEmptyLines: false, delimiter: found });
+  return { rows: r.data, delimiter: found };
 }

@@ -1,5 +1,7 @@
 // Exchange formats for office systems.
 export { csvField, csvDocument, readingsToCsv, type ReadingCsvOptions, type ReadingExportRow } from './readings-csv';
+export { BUNDLE_FORMAT, BUNDLE_VERSION, BundleError, bundleChecksum, makeBundle, parseBundle, type Bundle, type BundleErrorReason, type BundleInput } from './bundle';
+export { sha256Hex, utf8Bytes } from './sha256';
 export {
   LOGGER_TIME_FORMATS, LOGGER_LEVEL_UNITS, STANDARD_GRAVITY_MPS2, FRESH_WATER_DENSITY_KGM3, metresPerLevelUnit, checkLoggerMapping,
   type LoggerMapping, type LoggerClock, type LoggerTimeFormat, type LoggerLevelUnit,

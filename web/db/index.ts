@@ -16,6 +16,10 @@ export { READING_SOURCE_CODES, readingSourceOfCode, type ReadingSourceCode } fro
 export {
   importReadings, DEFAULT_IMPORT_BATCH, type ImportOptions, type ImportProgress, type ImportDuplicate, type ImportResult,
 } from './readings-import';
+export {
+  importLoggerRecord, listLoggerDays, type LoggerImportInput, type LoggerImportResult, type LoggerImportDuplicate,
+  type LoggerImportProgress, type LoggerImportOptions,
+} from './logger-days';
 export { saveGauging, getGauging, deleteGauging, restoreGauging, listGaugings } from './gaugings';
 export { saveRating, getRating, deleteRating, restoreRating, listRatings, currentRating } from './ratings';
 export { saveAnalysis, getAnalysis, deleteAnalysis, restoreAnalysis, listAnalyses } from './analyses';

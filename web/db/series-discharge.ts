@@ -3,7 +3,7 @@
 import { dischargeAt, isExtrapolated, shiftAt } from '../../core/rating/index';
 import type { RatingRecord } from '../../core/records/index';
 import { withDb } from './connection';
-import { checkWindow, chunkRange, joinChunks, type ReadingSeries } from './readings-series';
+import { checkWindow, joinChunks, seriesChunksIn, type ReadingSeries } from './readings-series';
 
 /** A reading series with, per reading, its discharge (m³/s), shift (m), extrapolation flag and rating. */
 export interface SeriesWithDischarge extends ReadingSeries {
@@ -28,9 +28,9 @@ export interface SeriesWithDischarge extends ReadingSeries {
 export async function seriesWithDischarge(siteId: string, from_ms: number, to_ms: number): Promise<SeriesWithDischarge> {
   checkWindow('seriesWithDischarge', from_ms, to_ms);
   const [chunks, ratings] = await withDb(async (db) => {
-    const tx = db.transaction(['series', 'ratings']);
+    const tx = db.transaction(['series', 'loggerDays', 'ratings']);
     return Promise.all([
-      tx.objectStore('series').getAll(chunkRange(siteId, from_ms, to_ms)),
+      seriesChunksIn(tx, siteId, from_ms, to_ms),
       tx.objectStore('ratings').index('by-site-from').getAll(IDBKeyRange.bound([siteId, -Infinity], [siteId, to_ms])),
     ]);
   });

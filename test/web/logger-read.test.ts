@@ -3,7 +3,7 @@
 // offsets by hand. Zone rules: IANA tz database (New Zealand 2026: daylight time ends 5 April 03:00 NZDT
 // → 02:00 NZST, starts 27 September 02:00 NZST → 03:00 NZDT).
 import { describe, expect, it } from 'vitest';
-import { FRESH_WATER_DENSITY_KGM3, STANDARD_GRAVITY_MPS2, type LoggerMapping } from '../../core';
+import { FRESH_WATER_DENSITY_KGM3, loggerGaps, STANDARD_GRAVITY_MPS2, usualStep_ms, type LoggerMapping } from '../../core';
 import { previewLogger, readLoggerFile } from '../../web/logger/read-logger';
 
 const base: LoggerMapping = {
@@ -165,5 +165,20 @@ describe('preview', () => {
     expect(p.rows).toEqual([['Datum', 'Pegel'], ['01.03.2026 10:00', '51,2']]);
     const q = previewLogger('Date,Level\n2026-03-01 10:00,0.512\n2026-03-01 10:15,0.518\n');
     expect(q.delimiter).toBe(',');
+  });
+});
+
+describe('missing hours', () => {
+  it('shows the hour lost when a daylight-saving logger is read as standard time (a 75-minute step among 15-minute ones)', async () => {
+    // A New Zealand logger on daylight time across 27 September 2026: 01:30, 01:45, then 03:00, 03:15 NZDT.
+    const text = 'a\nb\n2026-09-27 01:30,0.5\n2026-09-27 01:45,0.5\n2026-09-27 03:00,0.5\n2026-09-27 03:15,0.5\n';
+    const { series } = await readLoggerFile(text, base);
+    expect(usualStep_ms(series.time_ms)).toBe(15 * MIN);
+    expect(loggerGaps(series.time_ms, series.line)).toEqual([
+      { afterLine: 4, beforeLine: 5, from_ms: Date.UTC(2026, 8, 26, 13, 45), to_ms: Date.UTC(2026, 8, 26, 15) },
+    ]);
+    // Read with the zone's clock the same stamps are 15 minutes apart throughout: no hole.
+    const zoned = await readLoggerFile(text, { ...base, clock: { kind: 'zone', timeZone: 'Pacific/Auckland' } });
+    expect(loggerGaps(zoned.series.time_ms, zoned.series.line)).toEqual([]);
   });
 });

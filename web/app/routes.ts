@@ -19,6 +19,7 @@ const Sites = lazyScreen<ScreenProps>(() => import('../screens/Sites'));
 const Record = lazyScreen<ScreenProps>(() => import('../screens/Record'));
 const Storm = lazyScreen<ScreenProps>(() => import('../screens/Storm'));
 const Data = lazyScreen<ScreenProps>(() => import('../screens/Data'));
+const LoggerImport = lazyScreen<ScreenProps>(() => import('../screens/LoggerImport'));
 
 /** The screen, its area in the bottom bar and its title for a route. */
 export function screenFor(route: Route): Entry {
@@ -29,6 +30,8 @@ export function screenFor(route: Route): Entry {
       return { area: 'storm', title: 'Storm runoff', Screen: Storm };
     case 'data':
       return { area: 'data', title: 'Data and sync', Screen: Data };
+    case 'logger':
+      return { area: 'data', title: 'Import a logger file', Screen: LoggerImport };
     case 'about':
       return { area: 'about', title: 'About', Screen: About };
     default:

@@ -10,7 +10,7 @@ export {
   LOGGER_TIME_FORMATS, LOGGER_LEVEL_UNITS, STANDARD_GRAVITY_MPS2, FRESH_WATER_DENSITY_KGM3, metresPerLevelUnit, checkLoggerMapping,
   type LoggerMapping, type LoggerClock, type LoggerTimeFormat, type LoggerLevelUnit,
 } from './logger-mapping';
-export { parseStamp, zoneResolver, type ParsedStamp } from './logger-stamps';
+export { parseStamp, stampParser, zoneResolver, type ParsedStamp } from './logger-stamps';
 export {
   loggerReader, type LoggerReader, type LoggerRows, type LoggerProblem, type LoggerDuplicate, type RepeatedHourLines, type BackwardStep,
 } from './logger-reader';

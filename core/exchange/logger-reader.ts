@@ -2,7 +2,7 @@
 // and levels (m above the gauge datum), with every problem tied to its line. The CSV itself is split by
 // the caller's parser; this module only interprets cells under a mapping.
 import { checkLoggerMapping, metresPerLevelUnit, type LoggerMapping } from './logger-mapping';
-import { parseStamp, zoneResolver } from './logger-stamps';
+import { stampParser, zoneResolver } from './logger-stamps';
 
 /** A problem with one line of the file; column counts from 1 when the problem is in one cell. */
 export interface LoggerProblem {
@@ -80,6 +80,7 @@ export function loggerReader(mapping: LoggerMapping, options: { problemLimit?: n
   const scale = metresPerLevelUnit(mapping.levelUnit);
   const resolve = mapping.clock.kind === 'zone' ? zoneResolver(mapping.clock.timeZone) : undefined;
   const numberPattern = mapping.decimalMark === ',' ? NUMBER_COMMA : NUMBER_DOT;
+  const parseStamp = stampParser(mapping.timeFormat);
   const needCells = Math.max(mapping.timeColumn, mapping.levelColumn, mapping.dateColumn ?? 0);
   const time = new Column(new Float64Array(1024), (n) => new Float64Array(n));
   const level = new Column(new Float64Array(1024), (n) => new Float64Array(n));
@@ -111,7 +112,7 @@ export function loggerReader(mapping: LoggerMapping, options: { problemLimit?: n
     const timeText = mapping.dateColumn === undefined
       ? cells[mapping.timeColumn - 1]
       : `${cells[mapping.dateColumn - 1].trim()} ${cells[mapping.timeColumn - 1].trim()}`;
-    const stamp = parseStamp(timeText, mapping.timeFormat);
+    const stamp = parseStamp(timeText);
     if (typeof stamp === 'string') {
       problem(line, `Line ${line}, field ${mapping.timeColumn}: ${stamp}.`, mapping.timeColumn);
       return;

@@ -9,11 +9,69 @@ export interface ParsedStamp {
   offset_min?: number;
 }
 
-const YMD = /^(\d{4})[-/](\d{1,2})[-/](\d{1,2})(?:[T ]+(\d{1,2}):(\d{2})(?::(\d{2})(?:[.,](\d{1,3})\d*)?)?)?\s*(Z|[+-]\d{2}(?::?\d{2})?)?$/i;
-const DMY = /^(\d{1,2})[/.-](\d{1,2})[/.-](\d{4})(?:[T ]+(\d{1,2}):(\d{2})(?::(\d{2})(?:[.,](\d{1,3})\d*)?)?)?$/;
+const YMD_DATE = /^(\d{4})[-/](\d{1,2})[-/](\d{1,2})$/;
+const DMY_DATE = /^(\d{1,2})[/.-](\d{1,2})[/.-](\d{4})$/;
+const TIME = /^(\d{1,2}):(\d{2})(?::(\d{2})(?:[.,](\d{1,3})\d*)?)?\s*(Z|[+-]\d{2}(?::?\d{2})?)?$/i;
+const CUMULATIVE_DAYS = [0, 31, 59, 90, 120, 151, 181, 212, 243, 273, 304, 334];
 
 function daysInMonth(year: number, month: number): number {
-  return new Date(Date.UTC(year, month, 0)).getUTCDate();
+  if (month === 2) return (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0 ? 29 : 28;
+  return month === 4 || month === 6 || month === 9 || month === 11 ? 30 : 31;
+}
+
+/** A reader of stamps in one format; it remembers the last date seen, since a logger writes many stamps a day. */
+export function stampParser(format: LoggerTimeFormat): (text: string) => ParsedStamp | string {
+  const example = format === 'year-month-day' ? '2026-03-01 14:15' : format === 'day-month-year' ? '01/03/2026 14:15' : '03/01/2026 14:15';
+  const expected = `a time written as ${format === 'year-month-day' ? 'year-month-day' : format.replace(/-/g, '/')} hour:minute (e.g. ${example})`;
+  let lastDate = '';
+  let lastDay_ms: number | string = '';
+  const dateOf = (d: string): number | string => {
+    let y: number, mo: number, day: number;
+    if (format === 'year-month-day') {
+      const m = YMD_DATE.exec(d);
+      if (!m) return 'format';
+      [y, mo, day] = [Number(m[1]), Number(m[2]), Number(m[3])];
+    } else {
+      const m = DMY_DATE.exec(d);
+      if (!m) return 'format';
+      const a = Number(m[1]);
+      const b = Number(m[2]);
+      [day, mo] = format === 'day-month-year' ? [a, b] : [b, a];
+      y = Number(m[3]);
+    }
+    if (mo < 1 || mo > 12 || day < 1 || day > daysInMonth(y, mo)) return 'real';
+    return Date.UTC(y, 0, 1) + (CUMULATIVE_DAYS[mo - 1] + (mo > 2 && daysInMonth(y, 2) === 29 ? 1 : 0) + day - 1) * 86_400_000;
+  };
+  return (text) => {
+    const s = text.trim();
+    const cut = s.search(/[T ]/);
+    const datePart = cut < 0 ? s : s.slice(0, cut);
+    const timePart = cut < 0 ? '' : s.slice(cut + 1).trimStart();
+    if (datePart !== lastDate) {
+      lastDate = datePart;
+      lastDay_ms = dateOf(datePart);
+    }
+    if (lastDay_ms === 'format') return `"${s}" is not ${expected}`;
+    if (lastDay_ms === 'real') return `"${s}" is not a real date and time`;
+    if (timePart === '') return { naive_ms: lastDay_ms as number };
+    const t = TIME.exec(timePart);
+    if (!t || (format !== 'year-month-day' && t[5] !== undefined)) return `"${s}" is not ${expected}`;
+    const hh = Number(t[1]);
+    const mi = Number(t[2]);
+    const ss = t[3] === undefined ? 0 : Number(t[3]);
+    const ms = t[4] === undefined ? 0 : Number(t[4].padEnd(3, '0'));
+    if (hh > 23 || mi > 59 || ss > 59) return `"${s}" is not a real date and time`;
+    const naive_ms = (lastDay_ms as number) + ((hh * 60 + mi) * 60 + ss) * 1000 + ms;
+    const zone = t[5];
+    if (zone === undefined) return { naive_ms };
+    if (zone.toUpperCase() === 'Z') return { naive_ms, offset_min: 0 };
+    const digits = zone.replace(':', '');
+    const sign = digits[0] === '-' ? -1 : 1;
+    const oh = Number(digits.slice(1, 3));
+    const om = digits.length > 3 ? Number(digits.slice(3, 5)) : 0;
+    if (oh > 14 || om > 59) return `"${s}" has an impossible UTC offset ${zone}`;
+    return { naive_ms, offset_min: sign * (oh * 60 + om) };
+  };
 }
 
 /**
@@ -21,38 +79,7 @@ function daysInMonth(year: number, month: number): number {
  * cannot be read. Seconds and fractions are optional; a date alone means midnight.
  */
 export function parseStamp(text: string, format: LoggerTimeFormat): ParsedStamp | string {
-  const s = text.trim();
-  let y: number, mo: number, d: number, rest: (string | undefined)[], zone: string | undefined;
-  if (format === 'year-month-day') {
-    const m = YMD.exec(s);
-    if (!m) return `"${s}" is not a time written as year-month-day hour:minute (e.g. 2026-03-01 14:15)`;
-    [y, mo, d] = [Number(m[1]), Number(m[2]), Number(m[3])];
-    rest = m.slice(4, 8);
-    zone = m[8];
-  } else {
-    const m = DMY.exec(s);
-    const example = format === 'day-month-year' ? '01/03/2026 14:15' : '03/01/2026 14:15';
-    if (!m) return `"${s}" is not a time written as ${format.replace(/-/g, '/')} hour:minute (e.g. ${example})`;
-    const a = Number(m[1]);
-    const b = Number(m[2]);
-    [d, mo] = format === 'day-month-year' ? [a, b] : [b, a];
-    y = Number(m[3]);
-    rest = m.slice(4, 8);
-  }
-  const [hh, mi, ss] = rest.slice(0, 3).map((v) => (v === undefined ? 0 : Number(v)));
-  const ms = rest[3] === undefined ? 0 : Number(rest[3].padEnd(3, '0'));
-  if (mo < 1 || mo > 12 || d < 1 || d > daysInMonth(y, mo) || hh > 23 || mi > 59 || ss > 59) {
-    return `"${s}" is not a real date and time`;
-  }
-  const naive_ms = Date.UTC(y, mo - 1, d, hh, mi, ss, ms);
-  if (zone === undefined) return { naive_ms };
-  if (zone.toUpperCase() === 'Z') return { naive_ms, offset_min: 0 };
-  const digits = zone.replace(':', '');
-  const sign = digits[0] === '-' ? -1 : 1;
-  const oh = Number(digits.slice(1, 3));
-  const om = digits.length > 3 ? Number(digits.slice(3, 5)) : 0;
-  if (oh > 14 || om > 59) return `"${s}" has an impossible UTC offset ${zone}`;
-  return { naive_ms, offset_min: sign * (oh * 60 + om) };
+  return stampParser(format)(text);
 }
 
 const DAY_MS = 86_400_000;

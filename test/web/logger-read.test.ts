@@ -3,7 +3,7 @@
 // offsets by hand. Zone rules: IANA tz database (New Zealand 2026: daylight time ends 5 April 03:00 NZDT
 // → 02:00 NZST, starts 27 September 02:00 NZST → 03:00 NZDT).
 import { describe, expect, it } from 'vitest';
-import { FRESH_WATER_DENSITY_KGM3, loggerGaps, STANDARD_GRAVITY_MPS2, usualStep_ms, type LoggerMapping } from '../../core';
+import { FRESH_WATER_DENSITY_KGM3, loggerGaps, parseStamp, STANDARD_GRAVITY_MPS2, usualStep_ms, type LoggerMapping } from '../../core';
 import { previewLogger, readLoggerFile } from '../../web/logger/read-logger';
 
 const base: LoggerMapping = {
@@ -180,5 +180,31 @@ describe('missing hours', () => {
     // Read with the zone's clock the same stamps are 15 minutes apart throughout: no hole.
     const zoned = await readLoggerFile(text, { ...base, clock: { kind: 'zone', timeZone: 'Pacific/Auckland' } });
     expect(loggerGaps(zoned.series.time_ms, zoned.series.line)).toEqual([]);
+  });
+});
+
+describe('stamps (Gregorian calendar rules, ISO 8601 offsets)', () => {
+  it.each([
+    ['2028-02-29 00:00', 'year-month-day', Date.UTC(2028, 1, 29)], // 2028 is a leap year
+    ['2000-02-29T12:00', 'year-month-day', Date.UTC(2000, 1, 29, 12)], // divisible by 400: leap
+    ['2026-12-31 23:59:59', 'year-month-day', Date.UTC(2026, 11, 31, 23, 59, 59)],
+    ['2026/03/01 07:05:09.25', 'year-month-day', Date.UTC(2026, 2, 1, 7, 5, 9, 250)],
+    ['31.12.2026 06:00', 'day-month-year', Date.UTC(2026, 11, 31, 6)],
+    ['12/31/2026 06:00', 'month-day-year', Date.UTC(2026, 11, 31, 6)],
+    ['2026-03-01', 'year-month-day', Date.UTC(2026, 2, 1)],
+  ] as const)('%s (%s)', (text, format, naive) => {
+    expect(parseStamp(text, format)).toEqual({ naive_ms: naive });
+  });
+  it.each([
+    ['1900-02-29 00:00', 'year-month-day', /not a real date/], // divisible by 100, not 400: not leap
+    ['2026-02-29 00:00', 'year-month-day', /not a real date/],
+    ['2026-03-01 24:00', 'year-month-day', /not a real date/],
+    ['01/03/26 10:00', 'day-month-year', /not a time written as day\/month\/year/],
+    ['2026-03-01 10:00+15:00', 'year-month-day', /impossible UTC offset/],
+  ] as const)('refuses %s', (text, format, message) => {
+    expect(parseStamp(text, format)).toMatch(message);
+  });
+  it('reads offsets east and west', () => {
+    expect(parseStamp('2026-03-01T10:00:00-0530', 'year-month-day')).toEqual({ naive_ms: Date.UTC(2026, 2, 1, 10), offset_min: -330 });
   });
 });

@@ -194,7 +194,7 @@ function Importer({ sites, initialSiteId }: { sites: SiteRecord[]; initialSiteId
         <section class="card" aria-labelledby="done-heading">
           <h3 id="done-heading">Stored</h3>
           <p class="callout ok" role="status" data-testid="import-done">
-            Stored {phase.result.stored.toLocaleString('en-GB')} values in {phase.result.days} day record{phase.result.days === 1 ? '' : 's'}.
+            Stored {phase.result.stored.toLocaleString('en-GB')} values in {phase.result.days.toLocaleString('en-GB')} day record{phase.result.days === 1 ? '' : 's'}.
             {phase.result.duplicates.length > 0 && ` ${phase.result.duplicates.length.toLocaleString('en-GB')} values were already on the phone at the same times and were not stored twice.`}
           </p>
           <p><a href={href('sites', site.id)}>Readings of this site</a> · <a href={href('storm', site.id)}>Storm runoff</a></p>

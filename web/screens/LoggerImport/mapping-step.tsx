@@ -172,7 +172,7 @@ export function MappingStep({ site, rows, draft, onChange }: {
       <h4>The first lines as they will be stored</h4>
       {!mapping && <p class="callout warn" role="status">Choose the clock of the logger's times to see the rows as they will be stored.</p>}
       {preview && 'error' in preview && <p class="callout bad" role="alert">{preview.error}</p>}
-      <div class="scroll-x">
+      <div class="scroll-x" tabIndex={0} role="region" aria-label="First lines of the file, scrolls sideways">
         <table class="preview" aria-label="First lines of the file">
           <thead><tr><th scope="col">Line</th><th scope="col">In the file</th><th scope="col">Time ({site.timeZone})</th><th scope="col">Stage ({displayUnit('stage', u)})</th></tr></thead>
           <tbody>

@@ -131,7 +131,7 @@ export function ReviewStep({ site, read, mapping, checks, onToggle }: {
         <p class="hint">At each check the correction is the gauge reading minus the logger’s value; between checks it changes in proportion to time; before the first and after the last it stays. The raw values are kept.</p>
         {checks.length === 0 && <p class="callout warn" data-testid="no-checks">No check readings at this site in the file’s period: the values are stored uncorrected.</p>}
         {checks.length > 0 && (
-          <div class="scroll-x">
+          <div class="scroll-x" tabIndex={0} role="region" aria-label="Corrections table, scrolls sideways">
             <table class="corrections" aria-label="Drift corrections at the checks">
               <thead>
                 <tr><th scope="col">Use</th><th scope="col">Time</th><th scope="col">Gauge ({unit})</th><th scope="col">Logger ({unit})</th><th scope="col">Correction ({unit})</th></tr>

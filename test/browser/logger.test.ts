@@ -124,6 +124,23 @@ describe('importing a 100,000-row logger file', () => {
     expect(found, JSON.stringify(found)).toEqual([]);
   });
 
+  it('stops reading on request, storing nothing', async () => {
+    await page.getByRole('button', { name: 'Read the whole file' }).click();
+    await page.getByRole('button', { name: 'Stop reading' }).click();
+    await page.getByText('Stopped: the file was not read and nothing was stored.').waitFor();
+    const stored = await page.evaluate(() => new Promise<number>((resolve) => {
+      const open = indexedDB.open('freshet');
+      open.onsuccess = () => {
+        const req = open.result.transaction('loggerDays').objectStore('loggerDays').count();
+        req.onsuccess = () => {
+          resolve(req.result);
+          open.result.close();
+        };
+      };
+    }));
+    expect(stored).toBe(0);
+  });
+
   it('reads the file in a worker with a progress bar while the page keeps ticking', async () => {
     // Watch the page from inside: a 20 ms timer, and every progress value the bar shows.
     await page.evaluate(() => {
@@ -161,39 +178,44 @@ describe('importing a 100,000-row logger file', () => {
 
   it('stores the corrected values as day records, raw values and checks kept', async () => {
     await page.getByRole('button', { name: 'Store 100,000 values' }).click();
+    await page.getByTestId('store-progress').waitFor({ state: 'attached' });
     await page.getByTestId('import-done').waitFor({ timeout: 60_000 });
     // 100,000 quarter hours from 12:00 UTC on 19 February 2026 end at 03:45 UTC on 27 December 2028: 1,043 UTC days.
     const dayCount = Math.floor((FIRST_MS + (ROWS - 1) * Q_MS) / 86_400_000) - Math.floor(FIRST_MS / 86_400_000) + 1;
     expect(dayCount).toBe(1043);
     expect(await page.getByTestId('import-done').textContent()).toBe('Stored 100,000 values in 1,043 day records.');
-    const days = await page.evaluate(
-      (id) => new Promise<{ day: number; offset_ms: number[]; raw_m: number[]; correction_m: number[]; checks: unknown[] }[]>((resolve) => {
+    // Worked by hand: half way between the checks (5 days after the first) c = 0.012 + 0.5 × (−0.037) = −0.0065 m.
+    const mid = CHECK1_MS + 5 * 86_400_000;
+    const probes = [mid, FIRST_MS, FIRST_MS + (ROWS - 1) * Q_MS, CHECK1_MS];
+    // Read inside the page; only the figures asked for come back.
+    const found = await page.evaluate(
+      ({ id, times }) => new Promise<{ values: number; days: number; at: { raw: number; corr: number; checks: number }[] }>((resolve) => {
         const open = indexedDB.open('freshet');
         open.onsuccess = () => {
           const req = open.result.transaction('loggerDays').objectStore('loggerDays').index('by-site-day').getAll(IDBKeyRange.bound([id, 0], [id, Infinity]));
           req.onsuccess = () => {
-            resolve(req.result);
+            const days = req.result as { day: number; offset_ms: number[]; raw_m: number[]; correction_m: number[]; checks: unknown[] }[];
+            const at = times.map((t) => {
+              const d = days.find((x) => x.day === Math.floor(t / 86_400_000))!;
+              const k = d.offset_ms.indexOf(t - d.day * 86_400_000);
+              return { raw: d.raw_m[k], corr: d.correction_m[k], checks: d.checks.length };
+            });
+            resolve({ values: days.reduce((n, d) => n + d.offset_ms.length, 0), days: days.length, at });
             open.result.close();
           };
         };
       }),
-      siteId,
+      { id: siteId, times: probes },
     );
-    expect(days.reduce((n, d) => n + d.offset_ms.length, 0)).toBe(ROWS);
-    const at = (t: number) => {
-      const d = days.find((x) => x.day === Math.floor(t / 86_400_000))!;
-      const k = d.offset_ms.indexOf(t - d.day * 86_400_000);
-      return { raw: d.raw_m[k], corr: d.correction_m[k], checks: d.checks.length };
-    };
-    const i = (t: number) => (t - FIRST_MS) / Q_MS;
-    // Worked by hand: half way between the checks (5 days after the first) c = 0.012 + 0.5 × (−0.037) = −0.0065 m.
-    const mid = CHECK1_MS + 5 * 86_400_000;
-    expect(at(mid).raw).toBe(raw(i(mid)));
-    expect(at(mid).corr).toBeCloseTo(-0.0065, 12);
-    expect(at(FIRST_MS).corr).toBeCloseTo(0.012, 12);
-    expect(at(FIRST_MS + (ROWS - 1) * Q_MS).corr).toBeCloseTo(-0.025, 12);
-    expect(at(CHECK1_MS).corr).toBeCloseTo(0.012, 12);
-    expect(at(mid).checks).toBe(2);
+    expect(found.values).toBe(ROWS);
+    expect(found.days).toBe(dayCount);
+    const [atMid, atFirst, atLast, atCheck1] = found.at;
+    expect(atMid.raw).toBe(raw((mid - FIRST_MS) / Q_MS));
+    expect(atMid.corr).toBeCloseTo(-0.0065, 12);
+    expect(atFirst.corr).toBeCloseTo(0.012, 12);
+    expect(atLast.corr).toBeCloseTo(-0.025, 12);
+    expect(atCheck1.corr).toBeCloseTo(0.012, 12);
+    expect(atMid.checks).toBe(2);
     await shot('stored');
   });
 });

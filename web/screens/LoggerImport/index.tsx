@@ -1,7 +1,7 @@
 // Import a water-level logger file: pick the site and the file, say how to read it (with the first rows
 // shown as stored), read it in a worker with a progress bar and a stop button, review what was found and
 // the drift correction from the check readings, then store it as day records in one transaction.
-import { useEffect, useRef, useState } from 'preact/hooks';
+import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { driftCorrections, loggerValueAt, type SiteRecord } from '../../../core';
 import { importLoggerRecord, listReadings, listSites, StorageError, type LoggerImportResult } from '../../db';
 import type { ScreenProps } from '../../app/routes';
@@ -128,7 +128,8 @@ function Importer({ sites, initialSiteId }: { sites: SiteRecord[]; initialSiteId
     }
   }
 
-  const mapping = draft && mappingOf(draft, site);
+  // One object per mapping, so the review's figures are not recomputed on every progress step.
+  const mapping = useMemo(() => draft && mappingOf(draft, site), [draft, site]);
   return (
     <>
       <h2 id="screen-title" tabIndex={-1}>Import a logger file</h2>

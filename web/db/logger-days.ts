@@ -8,7 +8,8 @@ import {
 import { withDb } from './connection';
 import { now_ms, stampInTx } from './clock';
 import { StorageError } from './errors';
-import { afterWrite, DURABLE, inTx } from './records';
+import { afterWrite } from './records';
+import { withReadingsWrite } from './readings-write';
 
 /** A corrected logger record to store at one site: times (UTC ms, strictly ascending), raw values and corrections (m). */
 export interface LoggerImportInput {
@@ -74,63 +75,60 @@ export async function importLoggerRecord(input: LoggerImportInput, options: Logg
   const batch = Math.max(1, options.batchDays ?? 100);
   const at = now_ms();
   const n = input.time_ms.length;
-  const result = await withDb(async (db) => {
-    const tx = db.transaction(['loggerDays', 'readings', 'meta'], 'readwrite', DURABLE);
-    return inTx(tx, async () => {
-      if (bodies.length === 0) {
-        const rev = await stampInTx(tx, at);
-        await tx.done;
-        return { stored: 0, days: 0, duplicates: [], rev };
+  // Through the readings writer's transaction: the single logger readings it checks against cannot
+  // change between the check and the write.
+  const result = await withReadingsWrite(['loggerDays'], async (tx) => {
+    if (bodies.length === 0) {
+      const rev = await stampInTx(tx, at);
+      return { stored: 0, days: 0, duplicates: [], rev };
+    }
+    const first = bodies[0].day;
+    const last = bodies[bodies.length - 1].day;
+    const [rev, storedDays, singles] = await Promise.all([
+      stampInTx(tx, at),
+      tx.objectStore('loggerDays').index('by-site-day').getAll(IDBKeyRange.bound([input.siteId, first], [input.siteId, last])),
+      tx.objectStore('readings').index('by-site-source-time').getAll(
+        IDBKeyRange.bound([input.siteId, 'logger', input.time_ms[0]], [input.siteId, 'logger', input.time_ms[n - 1]]),
+      ),
+    ]);
+    const duplicates: LoggerImportDuplicate[] = [];
+    const singleAt = new Map<number, string>();
+    for (const r of singles) if (!r.deleted) singleAt.set(r.time_ms, r.id);
+    const byDay = new Map<number, LoggerDayRecord>();
+    for (const d of storedDays) if (!d.deleted && !byDay.has(d.day)) byDay.set(d.day, d);
+    const toPut: LoggerDayRecord[] = [];
+    let stored = 0;
+    for (const incoming of bodies) {
+      const body = singleAt.size > 0 ? withoutTimes(incoming, singleAt, duplicates) : incoming;
+      if (body.offset_ms.length === 0) continue;
+      const existing = byDay.get(body.day);
+      let next: LoggerDayBody = body;
+      if (existing) {
+        const merged = mergeLoggerDay(existing, body);
+        for (const t of merged.repeated_ms) duplicates.push({ time_ms: t, existingId: existing.id, existingKind: 'logger-day' });
+        if (merged.body === existing) continue;
+        next = merged.body;
       }
-      const first = bodies[0].day;
-      const last = bodies[bodies.length - 1].day;
-      const [rev, storedDays, singles] = await Promise.all([
-        stampInTx(tx, at),
-        tx.objectStore('loggerDays').index('by-site-day').getAll(IDBKeyRange.bound([input.siteId, first], [input.siteId, last])),
-        tx.objectStore('readings').index('by-site-source-time').getAll(
-          IDBKeyRange.bound([input.siteId, 'logger', input.time_ms[0]], [input.siteId, 'logger', input.time_ms[n - 1]]),
-        ),
-      ]);
-      const duplicates: LoggerImportDuplicate[] = [];
-      const singleAt = new Map<number, string>();
-      for (const r of singles) if (!r.deleted) singleAt.set(r.time_ms, r.id);
-      const byDay = new Map<number, LoggerDayRecord>();
-      for (const d of storedDays) if (!d.deleted && !byDay.has(d.day)) byDay.set(d.day, d);
-      const toPut: LoggerDayRecord[] = [];
-      let stored = 0;
-      for (const incoming of bodies) {
-        const body = singleAt.size > 0 ? withoutTimes(incoming, singleAt, duplicates) : incoming;
-        if (body.offset_ms.length === 0) continue;
-        const existing = byDay.get(body.day);
-        let next: LoggerDayBody = body;
-        if (existing) {
-          const merged = mergeLoggerDay(existing, body);
-          for (const t of merged.repeated_ms) duplicates.push({ time_ms: t, existingId: existing.id, existingKind: 'logger-day' });
-          if (merged.body === existing) continue;
-          next = merged.body;
-        }
-        stored += next.offset_ms.length - (existing ? existing.offset_ms.length : 0);
-        const { id: _id, rev: _rev, updated_ms: _u, deleted: _d, ...clean } = next as LoggerDayRecord;
-        toPut.push({ ...clean, id: existing?.id ?? loggerDayId(input.siteId, body.day), rev, updated_ms: at });
-      }
-      const store = unwrap(tx.objectStore('loggerDays'));
-      for (let start = 0; start < toPut.length; start += batch) {
-        const end = Math.min(toPut.length, start + batch);
-        let lastPut!: IDBRequest;
-        for (let i = start; i < end; i++) lastPut = store.put(toPut[i]);
-        await new Promise<void>((resolve, reject) => {
-          lastPut.onsuccess = () => resolve();
-          lastPut.onerror = () => reject(lastPut.error);
-        });
-        options.onProgress?.({ written: end, total: toPut.length });
-        if (options.signal?.aborted) throw stopped();
-      }
-      await tx.done;
-      duplicates.sort((a, b) => a.time_ms - b.time_ms);
-      return { stored, days: toPut.length, duplicates, rev };
-    });
+      stored += next.offset_ms.length - (existing ? existing.offset_ms.length : 0);
+      const { id: _id, rev: _rev, updated_ms: _u, deleted: _d, ...clean } = next as LoggerDayRecord;
+      toPut.push({ ...clean, id: existing?.id ?? loggerDayId(input.siteId, body.day), rev, updated_ms: at });
+    }
+    const store = unwrap(tx.objectStore('loggerDays'));
+    for (let start = 0; start < toPut.length; start += batch) {
+      const end = Math.min(toPut.length, start + batch);
+      let lastPut!: IDBRequest;
+      for (let i = start; i < end; i++) lastPut = store.put(toPut[i]);
+      await new Promise<void>((resolve, reject) => {
+        lastPut.onsuccess = () => resolve();
+        lastPut.onerror = () => reject(lastPut.error);
+      });
+      options.onProgress?.({ written: end, total: toPut.length });
+      if (options.signal?.aborted) throw stopped();
+    }
+    duplicates.sort((a, b) => a.time_ms - b.time_ms);
+    return { stored, days: toPut.length, duplicates, rev };
   });
-  if (result.days > 0) afterWrite(['logger-day', 'reading']);
+  if (result.days > 0) afterWrite(['logger-day']);
   return result;
 }
 

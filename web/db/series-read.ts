@@ -2,7 +2,7 @@
 // what plots and the storm analysis need, at a fraction of the cost of reading whole records.
 import type { SeriesChunk } from './schema';
 import { withDb } from './connection';
-import { dayOf } from './series-chunks';
+import { dayOf } from './series-edit';
 import { withLoggerDays } from './logger-series';
 import type { LoggerDayRecord } from '../../core/records/index';
 

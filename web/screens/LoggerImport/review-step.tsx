@@ -39,15 +39,23 @@ function timeNotes(read: LoggerFileRead, mapping: LoggerMapping, site: SiteRecor
     notes.push(`No values for ${minutes(g.to_ms - g.from_ms)} between line ${g.afterLine} (${formatTime(g.from_ms, site.timeZone)}) and line ${g.beforeLine}.`);
   }
   if (time_ms.length > 1) {
-    for (const c of clockChanges(site.timeZone, time_ms[0], time_ms[time_ms.length - 1])) {
-      const when = formatTime(c.at_ms, site.timeZone);
-      const way = c.after_min > c.before_min ? 'forward' : 'back';
+    const changes = clockChanges(site.timeZone, time_ms[0], time_ms[time_ms.length - 1]);
+    if (changes.length > 0 && mapping.clock.kind !== 'zone') {
       const how = mapping.clock.kind === 'fixed-offset'
         ? `the times are read as fixed UTC${offsetLabel(mapping.clock.offset_min)}, so no hour is skipped or repeated there`
-        : mapping.clock.kind === 'zone'
-          ? way === 'back' ? 'the repeated hour was read in file order' : 'the skipped hour has no times, as expected'
-          : 'each time carries its own offset';
-      notes.push(`The site's clocks went ${way} at ${when}: ${how}.`);
+        : 'each time carries its own offset';
+      const first = formatTime(changes[0].at_ms, site.timeZone);
+      notes.push(changes.length === 1
+        ? `The site's clocks changed at ${first}: ${how}.`
+        : `The site's clocks changed ${changes.length} times in this period (first at ${first}): ${how}.`);
+    }
+    if (mapping.clock.kind === 'zone') {
+      for (const c of changes) {
+        const when = formatTime(c.at_ms, site.timeZone);
+        notes.push(c.after_min < c.before_min
+          ? `The site's clocks went back at ${when}: the repeated hour was read in file order.`
+          : `The site's clocks went forward at ${when}: the skipped hour has no times, as expected.`);
+      }
     }
   }
   return notes;

@@ -108,7 +108,7 @@ describe('check readings at the bank', () => {
 
 describe('importing a 100,000-row logger file', () => {
   it('maps the file, showing the first rows as they will be stored', async () => {
-    await go(`#/logger/${siteId}`);
+    await go(`#/data/logger/${siteId}`);
     await page.locator('#logger-file').setInputFiles({ name: 'larch-rill-5120.csv', mimeType: 'text/csv', buffer: Buffer.from(loggerFile()) });
     await page.locator('#clock').waitFor();
     // Nothing is read until the clock of the stamps is chosen: it is asked, never guessed.

@@ -3,8 +3,8 @@
 import { useEffect, useState } from 'preact/hooks';
 import { fromLocalInput, MS_PER_DAY, readingsToCsv, toLocalInput, type SiteRecord } from '../../../core';
 import { latestReadings, listConflicts, listDrafts, listSites, readingsWithDischarge, storageState, type StorageState } from '../../db';
-import type { ScreenProps } from '../../app/routes';
-import { useRecords } from '../../app/use-records';
+import type { ScreenProps } from '../../router';
+import { useRecords } from '../../db/use-records';
 import { describedBy, Field } from '../../components/Field';
 import { formatTime } from '../../format';
 import { href } from '../../router';
@@ -176,7 +176,7 @@ export default function Data(_props: ScreenProps) {
             <section class="card" aria-labelledby="logger-heading">
               <h3 id="logger-heading">Logger files</h3>
               <p class="hint">Read a water-level logger’s file, correct its drift from your check readings, and keep it with the site’s readings.</p>
-              <a class="button wide" href={href('logger')}>Import a logger file</a>
+              <a class="button wide" href={href('data', 'logger')}>Import a logger file</a>
             </section>
           )}
           {info.value.sites.length > 0 && <ExportSection sites={info.value.sites} />}

@@ -1,11 +1,11 @@
-// Import a water-level logger file: pick the site and the file, say how to read it (with the first rows
+// Import a water-level logger file (#/data/logger/<siteId>): pick the site and the file, say how to read it (with the first rows
 // shown as stored), read it in a worker with a progress bar and a stop button, review what was found and
 // the drift correction from the check readings, then store it as day records in one transaction.
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { driftCorrections, loggerValueAt, type SiteRecord } from '../../../core';
 import { importLoggerRecord, listReadings, listSites, StorageError, type LoggerImportResult } from '../../db';
-import type { ScreenProps } from '../../app/routes';
-import { useRecords } from '../../app/use-records';
+import type { ScreenProps } from '../../router';
+import { useRecords } from '../../db/use-records';
 import { Field } from '../../components/Field';
 import { guessMapping } from '../../logger/guess-mapping';
 import { readInWorker, type WorkerRead } from '../../logger/parse-in-worker';
@@ -207,7 +207,7 @@ function Importer({ sites, initialSiteId }: { sites: SiteRecord[]; initialSiteId
 }
 
 /** The logger import screen; #/logger/<siteId> starts at that site. */
-export default function LoggerImport({ route }: ScreenProps) {
+export default function LoggerImport({ params }: ScreenProps) {
   const sites = useRecords(() => listSites(), ['site'], []);
   if (sites.state === 'loading') return <p aria-busy="true">Reading the sites…</p>;
   if (sites.state === 'failed') return <p class="callout bad" role="alert">{sites.message}</p>;
@@ -219,5 +219,5 @@ export default function LoggerImport({ route }: ScreenProps) {
       </>
     );
   }
-  return <Importer sites={sites.value} initialSiteId={route.segments[1]} />;
+  return <Importer sites={sites.value} initialSiteId={params.siteId} />;
 }

@@ -23,7 +23,7 @@ export {
   type LoggerImportProgress, type LoggerImportOptions,
 } from './logger-days';
 export { saveGauging, getGauging, deleteGauging, restoreGauging, listGaugings } from './gaugings';
-export { saveRating, getRating, deleteRating, restoreRating, listRatings, ratingInForceAt } from './ratings';
+export { saveRating, getRating, deleteRating, restoreRating, listRatings, ratingInForceAt, ratingsAndGaugings } from './ratings';
 export { saveAnalysis, getAnalysis, deleteAnalysis, restoreAnalysis, listAnalyses } from './analyses';
 export { saveDraft, getDraft, discardDraft, listDrafts } from './drafts';
 export { saveConflict, dismissConflict, listConflicts } from './conflicts';

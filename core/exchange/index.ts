@@ -16,3 +16,17 @@ export {
 } from './readings-csv-import';
 export { guessReadingsMapping, type MappingGuess } from './readings-csv-mapping';
 export { isoWithOffsetFormatter } from './iso-times';
+export {
+  LOGGER_TIME_FORMATS, LOGGER_LEVEL_UNITS, STANDARD_GRAVITY_MPS2, FRESH_WATER_DENSITY_KGM3, metresPerLevelUnit, checkLoggerMapping,
+  type LoggerMapping, type LoggerClock, type LoggerTimeFormat, type LoggerLevelUnit,
+} from './logger-mapping';
+export { parseStamp, stampParser, zoneResolver, type ParsedStamp } from './logger-stamps';
+export {
+  loggerReader, type LoggerReader, type LoggerRows, type LoggerProblem, type LoggerDuplicate, type RepeatedHourLines, type BackwardStep,
+} from './logger-reader';
+export { tidyLoggerRows, type LoggerSeries } from './logger-tidy';
+export { driftTable, driftCorrections, loggerValueAt, type DriftCheck, type DriftTableRow } from './logger-drift';
+export {
+  LOGGER_DAY_MS, loggerDayId, splitLoggerDays, mergeLoggerDay, loggerDayStages, type CorrectedLogger, type LoggerDayContext, type LoggerDayMerge,
+} from './logger-days';
+export { loggerGaps, usualStep_ms, type LoggerGap } from './logger-gaps';

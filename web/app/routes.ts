@@ -30,6 +30,7 @@ const Storm = lazyScreen<ScreenProps>(() => import('../screens/Storm'));
 const Data = lazyScreen<ScreenProps>(() => import('../screens/Data'));
 const Ratings = lazyScreen<ScreenProps>(() => import('../screens/Ratings'));
 const Gaugings = lazyScreen<ScreenProps>(() => import('../screens/Gaugings'));
+const LoggerImport = lazyScreen<ScreenProps>(() => import('../screens/LoggerImport'));
 
 /** Every page, literal patterns before the ones with a parameter in the same place. */
 export const ROUTES: readonly RouteEntry[] = [
@@ -50,6 +51,8 @@ export const ROUTES: readonly RouteEntry[] = [
   { pattern: 'storm', area: 'storm', Screen: Storm },
   { pattern: 'storm/:siteId', area: 'storm', Screen: Storm },
   { pattern: 'data', area: 'data', Screen: Data },
+  { pattern: 'data/logger', area: 'data', Screen: LoggerImport },
+  { pattern: 'data/logger/:siteId', area: 'data', Screen: LoggerImport },
   { pattern: 'about', area: 'about', Screen: About },
 ];
 

@@ -87,6 +87,13 @@ export default function Data(_props: ScreenProps) {
             </dl>
             <p class="hint">Every reading stays on this phone until it has reached the office; deleted records are kept as markers so the deletion reaches the office too.</p>
           </section>
+          {info.value.sites.length > 0 && (
+            <section class="card" aria-labelledby="logger-heading">
+              <h3 id="logger-heading">Logger files</h3>
+              <p class="hint">Read a water-level logger’s file, correct its drift from your check readings, and keep it with the site’s readings.</p>
+              <a class="button wide" href={href('data', 'logger')}>Import a logger file</a>
+            </section>
+          )}
           {info.value.sites.length > 0 && <ExportSection sites={info.value.sites} />}
           {info.value.sites.length > 0 && <CsvImportSection sites={info.value.sites} />}
         </>

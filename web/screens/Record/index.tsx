@@ -12,6 +12,7 @@ import type { ScreenProps } from '../../router';
 import { onBeforeUpdate } from '../../app/updates';
 import { useRecords } from '../../db/use-records';
 import { Cautions } from '../../components/Cautions';
+import { LoggerCheck, loggerCheckValue } from '../../components/LoggerCheck';
 import { describedBy, Field } from '../../components/Field';
 import { formatQuantity, formatTime, parseDecimal } from '../../format';
 import { href, navigate } from '../../router';
@@ -143,7 +144,8 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       } else if (readingId) {
         const r = await getReading(readingId);
         if (!live) return;
-        if (r) dispatch({ type: 'replace', form: formOfReading(r, toDisplay('stage', r.stage_m, u).toFixed(STAGE_DECIMALS[u]), toLocalInput(r.time_ms, site.timeZone)) });
+        const shown = (m: number) => toDisplay('stage', m, u).toFixed(STAGE_DECIMALS[u]);
+        if (r) dispatch({ type: 'replace', form: formOfReading(r, shown(r.stage_m), toLocalInput(r.time_ms, site.timeZone), r.loggerCheck && shown(r.loggerCheck.logger_m)) });
         else setError({ text: 'That reading is not on this phone any more.' });
       }
       setReady(true);
@@ -239,6 +241,15 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       setError({ field: 'time', text: ('error' in time && time.error) || 'The time could not be read yet; try again.' });
       return;
     }
+    const loggerCheck = loggerCheckValue(form.loggerCheckText, u);
+    if (form.loggerCheckText !== undefined && !(loggerCheck && 'logger_m' in loggerCheck)) {
+      setError({ field: 'logger-value', text: (loggerCheck && 'error' in loggerCheck && loggerCheck.error) || 'Type the value the logger shows, or untick the check.' });
+      return;
+    }
+    if (loggerCheck && form.source === 'logger') {
+      setError({ field: 'logger-value', text: 'A check compares the logger with a gauge: choose the gauge you read in “Read from”.' });
+      return;
+    }
     setSaving(true);
     setError(undefined);
     try {
@@ -248,6 +259,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
         siteId: site.id, time_ms: t, stage_m: stage.stage_m!, source: form.source, quality: form.quality,
         observer: form.observer.trim(), note: form.note.trim(), warnings: check.warnings.map((w) => w.text),
         ...(form.gps && { gps: form.gps }),
+        ...(loggerCheck && 'logger_m' in loggerCheck && { loggerCheck: { logger_m: loggerCheck.logger_m } }),
       });
       try {
         localStorage.setItem(OBSERVER_KEY, record.observer);
@@ -364,6 +376,8 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
           </select>
         </Field>
       </div>
+      <LoggerCheck value={form.loggerCheckText} stage_m={'stage_m' in stage ? stage.stage_m : undefined} units={u}
+        error={error?.field === 'logger-value' ? error.text : undefined} onChange={(value) => dispatch({ type: 'loggerCheck', value })} />
       <Field id="observer" label="Observer">
         <input id="observer" autoComplete="name" value={form.observer} onInput={(e) => dispatch({ type: 'set', field: 'observer', value: e.currentTarget.value })} />
       </Field>

@@ -155,6 +155,7 @@ export default function SiteReadings({ params }: ScreenProps) {
                       {!hasDischarge(r.discharge_m3s) ? 'no rating' : formatQuantity('discharge', r.discharge_m3s, u)}
                       {r.extrapolated && <> <span class="tag">extrapolated</span></>}
                       {r.reading.warnings.length > 0 && <> <span class="tag">{r.reading.warnings.length} warning{r.reading.warnings.length > 1 ? 's' : ''}</span></>}
+                      {r.reading.loggerCheck && <> <span class="tag" data-testid="check-tag">check: logger − gauge {formatQuantity('stage', r.reading.loggerCheck.logger_m - r.reading.stage_m, u)}</span></>}
                     </span>
                   </span>
                   <span>

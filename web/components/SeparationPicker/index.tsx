@@ -1,8 +1,10 @@
-// The baseflow separation method picker: plain names, and the aquifer type when the Eckhardt filter is chosen.
+// The separation method chooser: the methods grouped by how they work, one plain sentence a group, and
+// for the Eckhardt filter its two constants as numbers to type, with the published values as suggestions.
 import { useId } from 'preact/hooks';
-import { BFI_MAX_PRESETS, type SeparationMethod } from '../../../core';
+import { BFI_MAX_PRESETS, defaultEckhardt, type SeparationMethod } from '../../../core';
+import './style.css';
 
-/** The separation methods in the order the picker lists them. */
+/** The separation methods in the order they are listed. */
 export const METHOD_KINDS = [
   'variable-slope',
   'constant-discharge',
@@ -18,17 +20,12 @@ export const METHOD_KINDS = [
 /** A separation method kind. */
 export type MethodKind = (typeof METHOD_KINDS)[number];
 
-/** An aquifer type with its Eckhardt BFImax preset. */
-export type BfiPreset = keyof typeof BFI_MAX_PRESETS;
-
-/** What the user picked: the method and, for Eckhardt, the aquifer type. */
+/** What the user chose: the method and, for Eckhardt, BFImax and the recession constant as typed. */
 export interface MethodChoice {
   kind: MethodKind;
-  bfiPreset: BfiPreset;
+  bfiMax: string;
+  recession: string;
 }
-
-/** The default pick: variable slope (Eckhardt would start from a perennial stream on porous rock). */
-export const defaultMethodChoice: MethodChoice = { kind: 'variable-slope', bfiPreset: 'perennial-porous' };
 
 /** Plain names of the methods. */
 export const METHOD_LABELS: Record<MethodKind, string> = {
@@ -43,59 +40,80 @@ export const METHOD_LABELS: Record<MethodKind, string> = {
   'local-minimum': 'Local minimum',
 };
 
-const BFI_PRESETS = Object.keys(BFI_MAX_PRESETS) as BfiPreset[];
+/** The methods grouped by how they work, each group with one plain sentence. */
+export const METHOD_GROUPS: { title: string; sentence: string; kinds: MethodKind[] }[] = [
+  {
+    title: 'Drawn under the storm',
+    sentence: 'A line under the storm from the rise start to the end of runoff, shaped by the key points you set.',
+    kinds: ['variable-slope', 'constant-discharge', 'straight-line', 'concave'],
+  },
+  {
+    title: 'Filtered out of the record',
+    sentence: 'The slow part of the flow is filtered out reading by reading; the key points only mark what is added up.',
+    kinds: ['lyne-hollick', 'chapman-maxwell', 'eckhardt'],
+  },
+  {
+    title: 'Joined from the low points',
+    sentence: 'The lowest flows of the days around the storm are joined up; this needs a window of several weeks.',
+    kinds: ['smoothed-minima', 'local-minimum'],
+  },
+];
 
-/** Plain names of the aquifer types, with their BFImax (Eckhardt 2005). */
-export const BFI_PRESET_LABELS: Record<BfiPreset, string> = {
-  'perennial-porous': `Perennial stream, porous rock (BFImax ${BFI_MAX_PRESETS['perennial-porous']})`,
-  'ephemeral-porous': `Ephemeral stream, porous rock (BFImax ${BFI_MAX_PRESETS['ephemeral-porous']})`,
-  'perennial-hard-rock': `Perennial stream, hard rock (BFImax ${BFI_MAX_PRESETS['perennial-hard-rock']})`,
-};
+/** Published typical BFImax values (Eckhardt 2005, Table 1), offered as suggestions, never as a menu. */
+const BFI_SUGGESTIONS: { value: number; where: string }[] = [
+  { value: BFI_MAX_PRESETS['perennial-porous'], where: 'perennial streams on porous aquifers' },
+  { value: BFI_MAX_PRESETS['ephemeral-porous'], where: 'ephemeral streams on porous aquifers' },
+  { value: BFI_MAX_PRESETS['perennial-hard-rock'], where: 'perennial streams on hard-rock aquifers' },
+];
 
-function isMethodKind(x: string): x is MethodKind {
-  return (METHOD_KINDS as readonly string[]).includes(x);
+/** Props: the choice, a callback per change, and the sentence saying why a typed constant cannot be read. */
+export interface SeparationPickerProps {
+  value: MethodChoice;
+  onKind: (kind: MethodKind) => void;
+  onConstant: (field: 'bfiMax' | 'recession', text: string) => void;
+  problem?: string;
 }
 
-function isBfiPreset(x: string): x is BfiPreset {
-  return (BFI_PRESETS as string[]).includes(x);
-}
-
-/** A labelled select of methods; a second select for the aquifer type appears with the Eckhardt filter. */
-export function SeparationPicker({ value, onChange }: { value: MethodChoice; onChange: (next: MethodChoice) => void }) {
+/** Radio buttons in three groups; the Eckhardt constants appear under the Eckhardt filter when it is chosen. */
+export function SeparationPicker({ value, onKind, onConstant, problem }: SeparationPickerProps) {
   const id = useId();
   return (
     <div class="separation-picker">
-      <label for={`${id}-method`}>Baseflow separation</label>
-      <select
-        id={`${id}-method`}
-        data-testid="separation-method"
-        value={value.kind}
-        onChange={(e) => {
-          const kind = e.currentTarget.value;
-          if (isMethodKind(kind)) onChange({ ...value, kind });
-        }}
-      >
-        {METHOD_KINDS.map((k) => (
-          <option key={k} value={k}>{METHOD_LABELS[k]}</option>
-        ))}
-      </select>
-      {value.kind === 'eckhardt' && (
-        <>
-          <label for={`${id}-aquifer`}>Stream and aquifer type</label>
-          <select
-            id={`${id}-aquifer`}
-            value={value.bfiPreset}
-            onChange={(e) => {
-              const preset = e.currentTarget.value;
-              if (isBfiPreset(preset)) onChange({ ...value, bfiPreset: preset });
-            }}
-          >
-            {BFI_PRESETS.map((p) => (
-              <option key={p} value={p}>{BFI_PRESET_LABELS[p]}</option>
-            ))}
-          </select>
-        </>
-      )}
+      {METHOD_GROUPS.map((g, gi) => (
+        <fieldset key={g.title} class="method-group">
+          <legend>{g.title}</legend>
+          <p class="hint">{g.sentence}</p>
+          {g.kinds.map((k) => (
+            <label key={k} class="choice">
+              <input type="radio" name={`${id}-method`} value={k} checked={value.kind === k} onChange={() => onKind(k)} data-method={k} />
+              {METHOD_LABELS[k]}
+            </label>
+          ))}
+          {gi === 1 && value.kind === 'eckhardt' && (
+            <div class="eckhardt-constants">
+              <label for={`${id}-bfi`}>Largest baseflow index (BFImax), 0–1</label>
+              <input id={`${id}-bfi`} inputMode="decimal" autocomplete="off" value={value.bfiMax} aria-describedby={`${id}-bfi-hint`} onInput={(e) => onConstant('bfiMax', e.currentTarget.value)} />
+              <p class="hint" id={`${id}-bfi-hint`}>Typical values published by Eckhardt (2005):</p>
+              <div class="suggestions">
+                {BFI_SUGGESTIONS.map((s) => (
+                  <button key={s.value} type="button" class="suggestion" onClick={() => onConstant('bfiMax', String(s.value))}>
+                    {s.value.toFixed(2)} <span class="hint">{s.where}</span>
+                  </button>
+                ))}
+              </div>
+              <label for={`${id}-rec`}>Recession constant, per day, 0–1</label>
+              <input id={`${id}-rec`} inputMode="decimal" autocomplete="off" value={value.recession} aria-describedby={`${id}-rec-hint`} onInput={(e) => onConstant('recession', e.currentTarget.value)} />
+              <p class="hint" id={`${id}-rec-hint`}>
+                The value Eckhardt (2005) used for daily flows is {defaultEckhardt.recession}; a recession fitted on this stream is better.
+              </p>
+              <button type="button" class="suggestion" onClick={() => onConstant('recession', String(defaultEckhardt.recession))}>
+                {defaultEckhardt.recession} <span class="hint">Eckhardt (2005), daily flows</span>
+              </button>
+              {problem && <p class="callout warn" role="alert">{problem}</p>}
+            </div>
+          )}
+        </fieldset>
+      ))}
     </div>
   );
 }

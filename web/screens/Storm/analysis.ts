@@ -1,14 +1,8 @@
 // Glue between the stored series and the core's storm functions: one discharge per time, the method the
 // user picked as a core SeparationMethod, and the whole analysis as one result or one plain error.
 import {
-  BFI_MAX_PRESETS,
-  defaultChapmanMaxwell,
-  defaultEckhardt,
-  defaultLyneHollick,
-  defaultSmoothedMinima,
   findEventPointsDetailed,
   inflectionByNewtonPolynomial,
-  localMinimumInterval_days,
   separateBaseflowDetailed,
   summarizeEvent,
   type EventPoints,
@@ -16,12 +10,17 @@ import {
   type SeparationMethod,
 } from '../../../core';
 import { READING_SOURCE_CODES, type SeriesWithDischarge } from '../../db';
-import type { MethodChoice, MethodKind } from '../../components/SeparationPicker';
+import { METHOD_KINDS, METHOD_LABELS } from '../../components/SeparationPicker';
+import { usesKeyPoints } from './method-choice';
 
 /** A discharge record ready for the core: times (UTC ms, ascending) and discharges (m³/s). */
 export interface StormSeries {
   time_ms: Float64Array;
   discharge_m3s: Float64Array;
+  /** Stage (m) of the same readings, averaged as the discharges are. */
+  stage_m: Float64Array;
+  /** 1 where the discharge is extrapolated beyond the rating's gauged range, else 0. */
+  extrapolated: Uint8Array;
 }
 
 /** What was made of the stored readings of a window. */
@@ -62,6 +61,8 @@ export function seriesFromReadings(rows: SeriesWithDischarge): SeriesFromReading
   const logger = READING_SOURCE_CODES.logger;
   const times = new Float64Array(n);
   const discharges = new Float64Array(n);
+  const stages = new Float64Array(n);
+  const outside = new Uint8Array(n);
   let m = 0;
   let skipped = 0;
   let extrapolated = 0;
@@ -72,67 +73,55 @@ export function seriesFromReadings(rows: SeriesWithDischarge): SeriesFromReading
     let loggers = 0;
     for (let k = i; k <= j; k++) if (rows.source[k] === logger) loggers++;
     let sum = 0;
+    let stageSum = 0;
     let chosen = 0;
+    let out = 0;
     for (let k = i; k <= j; k++) {
       if (loggers > 0 && rows.source[k] !== logger) continue;
       sum += q[k];
+      stageSum += rows.stage_m[k];
       extrapolated += rows.extrapolated[k];
+      out |= rows.extrapolated[k];
       chosen++;
     }
     skipped += j + 1 - i - chosen;
     times[m] = t[i];
     discharges[m] = sum / chosen;
+    stages[m] = stageSum / chosen;
+    outside[m] = out;
     m++;
     i = j + 1;
   }
   return {
     kind: 'ready',
-    series: { time_ms: times.slice(0, m), discharge_m3s: discharges.slice(0, m) },
+    series: { time_ms: times.slice(0, m), discharge_m3s: discharges.slice(0, m), stage_m: stages.slice(0, m), extrapolated: outside.slice(0, m) },
     skipped,
     extrapolated,
   };
 }
 
-/** True for the methods that draw baseflow between the key points (the others filter the whole window). */
-export function usesKeyPoints(kind: MethodKind): boolean {
-  return kind === 'variable-slope' || kind === 'constant-discharge' || kind === 'straight-line' || kind === 'concave';
-}
-
-/** The core method for a pick, with every parameter written out so a saved analysis can be repeated. */
-export function methodFor(choice: MethodChoice, area_km2: number | undefined): SeparationMethod {
-  switch (choice.kind) {
-    case 'variable-slope':
-    case 'constant-discharge':
-    case 'straight-line':
-    case 'concave':
-      return { kind: choice.kind };
-    case 'lyne-hollick':
-      return { kind: 'lyne-hollick', alpha: defaultLyneHollick.alpha, passes: defaultLyneHollick.passes };
-    case 'chapman-maxwell':
-      return { kind: 'chapman-maxwell', recession: defaultChapmanMaxwell.recession };
-    case 'eckhardt':
-      return { kind: 'eckhardt', bfiMax: BFI_MAX_PRESETS[choice.bfiPreset], recession: defaultEckhardt.recession };
-    case 'smoothed-minima':
-      return { kind: 'smoothed-minima', block_days: defaultSmoothedMinima.block_days, factor: defaultSmoothedMinima.factor };
-    case 'local-minimum':
-      // Without an area the core says what it needs; with one, the interval is written out.
-      return area_km2 === undefined ? { kind: 'local-minimum' } : { kind: 'local-minimum', interval_days: localMinimumInterval_days(area_km2) };
-    default: {
-      const unknown: never = choice.kind;
-      throw new RangeError(`No separation method called ${String(unknown)}`);
-    }
-  }
-}
-
 /** A computation that either gave a value or stopped with a plain sentence (from a core RangeError). */
 export type Outcome<T> = { ok: true; value: T } | { ok: false; message: string };
+
+/**
+ * A core message made fit for the screen: method kinds become their plain names; a message that still
+ * holds a function or field name, or a raw millisecond time, is replaced by a plain sentence.
+ */
+export function plainMessage(message: string): string {
+  let m = message;
+  for (const kind of METHOD_KINDS) m = m.split(kind).join(METHOD_LABELS[kind].toLowerCase());
+  if (/\b[a-z]+[A-Z]\w*|\w+_(ms|m3s|m|mm|days|km2)\b|\d{10,}/.test(m)) {
+    return 'These key points or settings do not give a storm the methods can work with. Move the points or reset them.';
+  }
+  return m;
+}
 
 /** Runs fn, turning a RangeError into a plain message; other errors are bugs and propagate. */
 export function attempt<T>(fn: () => T): Outcome<T> {
   try {
     return { ok: true, value: fn() };
   } catch (e) {
-    if (e instanceof RangeError) return { ok: false, message: e.message };
+    if (e instanceof RangeError) return { ok: false, message: plainMessage(e.message) };
     throw e;
   }
 }
@@ -155,17 +144,35 @@ export interface StormResult {
   notes: string[];
 }
 
-/** Separates baseflow and summarises the event from the rise start to the end of runoff. */
+// Baseflow of the methods that do not use the key points depends only on the series and the method, so a
+// key point dragged across the plot reuses it instead of filtering the whole window again.
+const filtered = new WeakMap<StormSeries, Map<string, { baseflow: Float64Array; notes: string[] }>>();
+
+/** Baseflow (m³/s per reading) with the core's notes; filter and minima results are kept per series. */
+export function baseflowOf(series: StormSeries, points: EventPoints, method: SeparationMethod, area_km2: number | undefined) {
+  if (usesKeyPoints(method.kind)) return separateBaseflowDetailed(series, method, { points, area_km2 });
+  let cache = filtered.get(series);
+  if (!cache) filtered.set(series, (cache = new Map()));
+  const key = JSON.stringify([method, area_km2]);
+  let hit = cache.get(key);
+  if (!hit) {
+    const r = separateBaseflowDetailed(series, method, { area_km2 });
+    hit = { baseflow: r.baseflow, notes: r.notes };
+    cache.set(key, hit);
+  }
+  return hit;
+}
+
+/** Separates baseflow and summarises the event from the rise start to the end of runoff (m³, mm, m³/s). */
 export function analyse(
   series: StormSeries,
   points: EventPoints,
-  choice: MethodChoice,
+  method: SeparationMethod,
   area_km2: number | undefined,
   rainfall_mm: number | undefined,
 ): Outcome<StormResult> {
   return attempt(() => {
-    const method = methodFor(choice, area_km2);
-    const separated = separateBaseflowDetailed(series, method, { points, area_km2 });
+    const separated = baseflowOf(series, points, method, area_km2);
     const summary = summarizeEvent(series, separated.baseflow, {
       area_km2,
       rainfall_mm,

@@ -1,24 +1,22 @@
-// The separation method chooser: the methods grouped by how they work, one plain sentence a group, and
-// for the Eckhardt filter its two constants as numbers to type, with the published values as suggestions.
+// The separation method chooser: the core's methods grouped by how they work, with our labels and titles,
+// and for the Eckhardt filter its two constants as numbers to type, the published values as suggestions.
 import { useId } from 'preact/hooks';
-import { BFI_MAX_PRESETS, defaultEckhardt, type SeparationMethod } from '../../../core';
+import {
+  BFI_MAX_PRESETS,
+  defaultEckhardt,
+  SEPARATION_FAMILY,
+  SEPARATION_FAMILY_SENTENCES,
+  SEPARATION_METHOD_KINDS,
+  type SeparationFamily,
+  type SeparationMethodKind,
+} from '../../../core';
 import './style.css';
 
-/** The separation methods in the order they are listed. */
-export const METHOD_KINDS = [
-  'variable-slope',
-  'constant-discharge',
-  'straight-line',
-  'concave',
-  'lyne-hollick',
-  'chapman-maxwell',
-  'eckhardt',
-  'smoothed-minima',
-  'local-minimum',
-] as const satisfies readonly SeparationMethod['kind'][];
+/** The separation methods in the order they are listed (the core's list). */
+export const METHOD_KINDS = SEPARATION_METHOD_KINDS;
 
 /** A separation method kind. */
-export type MethodKind = (typeof METHOD_KINDS)[number];
+export type MethodKind = SeparationMethodKind;
 
 /** What the user chose: the method and, for Eckhardt, BFImax and the recession constant as typed. */
 export interface MethodChoice {
@@ -40,24 +38,14 @@ export const METHOD_LABELS: Record<MethodKind, string> = {
   'local-minimum': 'Local minimum',
 };
 
-/** The methods grouped by how they work, each group with one plain sentence. */
-export const METHOD_GROUPS: { title: string; sentence: string; kinds: MethodKind[] }[] = [
-  {
-    title: 'Drawn under the storm',
-    sentence: 'A line under the storm from the rise start to the end of runoff, shaped by the key points you set.',
-    kinds: ['variable-slope', 'constant-discharge', 'straight-line', 'concave'],
-  },
-  {
-    title: 'Filtered out of the record',
-    sentence: 'The slow part of the flow is filtered out reading by reading; the key points only mark what is added up.',
-    kinds: ['lyne-hollick', 'chapman-maxwell', 'eckhardt'],
-  },
-  {
-    title: 'Joined from the low points',
-    sentence: 'The lowest flows of the days around the storm are joined up; this needs a window of several weeks.',
-    kinds: ['smoothed-minima', 'local-minimum'],
-  },
-];
+/** Our titles for the core's method families; the families, their members and sentences live in core. */
+const FAMILY_TITLES: Record<SeparationFamily, string> = {
+  'key-points': 'Drawn under the storm',
+  'recursive-filter': 'Filtered out of the record',
+  minima: 'Joined from the low points',
+};
+
+const FAMILIES = Object.keys(FAMILY_TITLES) as SeparationFamily[];
 
 /** Published typical BFImax values (Eckhardt 2005, Table 1), offered as suggestions, never as a menu. */
 const BFI_SUGGESTIONS: { value: number; where: string }[] = [
@@ -79,17 +67,17 @@ export function SeparationPicker({ value, onKind, onConstant, problem }: Separat
   const id = useId();
   return (
     <div class="separation-picker">
-      {METHOD_GROUPS.map((g, gi) => (
-        <fieldset key={g.title} class="method-group">
-          <legend>{g.title}</legend>
-          <p class="hint">{g.sentence}</p>
-          {g.kinds.map((k) => (
+      {FAMILIES.map((family) => (
+        <fieldset key={family} class="method-group">
+          <legend>{FAMILY_TITLES[family]}</legend>
+          <p class="hint">{SEPARATION_FAMILY_SENTENCES[family]}</p>
+          {METHOD_KINDS.filter((k) => SEPARATION_FAMILY[k] === family).map((k) => (
             <label key={k} class="choice">
               <input type="radio" name={`${id}-method`} value={k} checked={value.kind === k} onChange={() => onKind(k)} data-method={k} />
               {METHOD_LABELS[k]}
             </label>
           ))}
-          {gi === 1 && value.kind === 'eckhardt' && (
+          {family === SEPARATION_FAMILY.eckhardt && value.kind === 'eckhardt' && (
             <div class="eckhardt-constants">
               <label for={`${id}-bfi`}>Largest baseflow index (BFImax), 0–1</label>
               <input id={`${id}-bfi`} inputMode="decimal" autocomplete="off" value={value.bfiMax} aria-describedby={`${id}-bfi-hint`} onInput={(e) => onConstant('bfiMax', e.currentTarget.value)} />

@@ -1,6 +1,7 @@
 // Glue between the stored series and the core's storm functions: one discharge per time, the method the
 // user picked as a core SeparationMethod, and the whole analysis as one result or one plain error.
 import {
+  seriesFromReadings as coreSeriesFromReadings,
   findEventPointsDetailed,
   inflectionByNewtonPolynomial,
   separateBaseflowDetailed,
@@ -8,8 +9,9 @@ import {
   type EventPoints,
   type EventSummary,
   type SeparationMethod,
+  type SeriesFromReadings as CoreSeriesFromReadings,
 } from '../../../core';
-import { READING_SOURCE_CODES, type SeriesWithDischarge } from '../../db';
+import type { SeriesWithDischarge } from '../../db';
 import { METHOD_KINDS, METHOD_LABELS } from '../../components/SeparationPicker';
 import { usesKeyPoints } from './method-choice';
 
@@ -23,80 +25,28 @@ export interface StormSeries {
   extrapolated: Uint8Array;
 }
 
-/** What was made of the stored readings of a window. */
+/** What was made of the stored readings of a window: the storm series, or why there is none. */
 export type SeriesFromReadings =
-  | {
-      kind: 'ready';
-      series: StormSeries;
-      /** Readings left out because a logger reading had the same time. */
-      skipped: number;
-      /** Readings whose stage lies outside the rating's gauged range. */
-      extrapolated: number;
-    }
-  | { kind: 'unrated'; count: number; total: number; firstTime_ms: number }
-  | { kind: 'empty' };
+  | { kind: 'ready'; series: StormSeries; skipped: number; extrapolated: number }
+  | Exclude<CoreSeriesFromReadings, { kind: 'ready' }>;
 
 /**
- * One discharge (m³/s) per time from a window's series (times ascending). Where several readings share a
- * time, the logger readings win (averaged if there are several); without a logger reading the manual ones
- * are averaged. Why: the logger record is the continuous series a storm is read from, and a staff check at
- * the same minute checks the logger (its correction is applied at logger import); mixing it in would put
- * a step of a few millimetres into the record.
+ * One reading per time from a window's stored series, by the core's rule (logger wins at a shared time,
+ * manual readings averaged). The stages and the extrapolated flags go through the same rule, so the stage
+ * shown beside a discharge is the one that made it.
  */
 export function seriesFromReadings(rows: SeriesWithDischarge): SeriesFromReadings {
-  const t = rows.time_ms;
-  const q = rows.discharge_m3s;
-  const n = t.length;
-  if (n === 0) return { kind: 'empty' };
-  let unrated = 0;
-  let firstUnrated = -1;
-  for (let i = 0; i < n; i++) {
-    // NaN is how the series marks a reading with no rating in force.
-    if (Number.isNaN(q[i])) {
-      unrated++;
-      if (firstUnrated < 0) firstUnrated = i;
-    }
-  }
-  if (unrated > 0) return { kind: 'unrated', count: unrated, total: n, firstTime_ms: t[firstUnrated] };
-  const logger = READING_SOURCE_CODES.logger;
-  const times = new Float64Array(n);
-  const discharges = new Float64Array(n);
-  const stages = new Float64Array(n);
-  const outside = new Uint8Array(n);
-  let m = 0;
-  let skipped = 0;
-  let extrapolated = 0;
-  let i = 0;
-  while (i < n) {
-    let j = i;
-    while (j + 1 < n && t[j + 1] === t[i]) j++;
-    let loggers = 0;
-    for (let k = i; k <= j; k++) if (rows.source[k] === logger) loggers++;
-    let sum = 0;
-    let stageSum = 0;
-    let chosen = 0;
-    let out = 0;
-    for (let k = i; k <= j; k++) {
-      if (loggers > 0 && rows.source[k] !== logger) continue;
-      sum += q[k];
-      stageSum += rows.stage_m[k];
-      extrapolated += rows.extrapolated[k];
-      out |= rows.extrapolated[k];
-      chosen++;
-    }
-    skipped += j + 1 - i - chosen;
-    times[m] = t[i];
-    discharges[m] = sum / chosen;
-    stages[m] = stageSum / chosen;
-    outside[m] = out;
-    m++;
-    i = j + 1;
-  }
+  const made = coreSeriesFromReadings(rows);
+  if (made.kind !== 'ready') return made;
+  const stages = coreSeriesFromReadings({ ...rows, discharge_m3s: rows.stage_m });
+  const flags = coreSeriesFromReadings({ ...rows, discharge_m3s: Float64Array.from(rows.extrapolated) });
+  if (stages.kind !== 'ready' || flags.kind !== 'ready') throw new Error('The stages of a window could not be lined up with its discharges.');
+  const extrapolated = Uint8Array.from(flags.series.discharge_m3s, (f) => (f > 0 ? 1 : 0));
   return {
     kind: 'ready',
-    series: { time_ms: times.slice(0, m), discharge_m3s: discharges.slice(0, m), stage_m: stages.slice(0, m), extrapolated: outside.slice(0, m) },
-    skipped,
-    extrapolated,
+    series: { ...made.series, stage_m: stages.series.discharge_m3s, extrapolated },
+    skipped: made.skipped,
+    extrapolated: made.extrapolated,
   };
 }
 

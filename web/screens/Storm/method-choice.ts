@@ -2,11 +2,11 @@
 // numbers), and the complete core method it stands for, every parameter written out so a saved analysis
 // repeats exactly.
 import {
-  defaultChapmanMaxwell,
   defaultEckhardt,
-  defaultLyneHollick,
   defaultSmoothedMinima,
   localMinimumInterval_days,
+  methodWithDefaults,
+  SEPARATION_FAMILY,
   type SeparationMethod,
 } from '../../../core';
 import { parseDecimal } from '../../format';
@@ -23,12 +23,12 @@ export const defaultMethodChoice: MethodChoice = {
 
 /** True for the methods that draw baseflow between the key points (the others run over the whole window). */
 export function usesKeyPoints(kind: MethodKind): boolean {
-  return kind === 'variable-slope' || kind === 'constant-discharge' || kind === 'straight-line' || kind === 'concave';
+  return SEPARATION_FAMILY[kind] === 'key-points';
 }
 
 /** True for the methods that join the low points of a long record (they need a window of many days). */
 export function usesMinima(kind: MethodKind): boolean {
-  return kind === 'smoothed-minima' || kind === 'local-minimum';
+  return SEPARATION_FAMILY[kind] === 'minima';
 }
 
 /** A typed constant that must lie strictly between 0 and 1, or the sentence that says what is wrong. */
@@ -39,35 +39,19 @@ function unitFraction(text: string, what: string): number | string {
   return v;
 }
 
-/** The core method for a choice, or a plain sentence when a typed constant cannot be read. */
+/** The core method for a choice (every parameter written out), or a plain sentence when it cannot be made. */
 export function methodFor(choice: MethodChoice, area_km2: number | undefined): { method: SeparationMethod } | { problem: string } {
-  switch (choice.kind) {
-    case 'variable-slope':
-    case 'constant-discharge':
-    case 'straight-line':
-    case 'concave':
-      return { method: { kind: choice.kind } };
-    case 'lyne-hollick':
-      return { method: { kind: 'lyne-hollick', alpha: defaultLyneHollick.alpha, passes: defaultLyneHollick.passes } };
-    case 'chapman-maxwell':
-      return { method: { kind: 'chapman-maxwell', recession: defaultChapmanMaxwell.recession } };
-    case 'eckhardt': {
-      const bfiMax = unitFraction(choice.bfiMax, 'The largest baseflow index (BFImax)');
-      if (typeof bfiMax === 'string') return { problem: bfiMax };
-      const recession = unitFraction(choice.recession, 'The recession constant');
-      if (typeof recession === 'string') return { problem: recession };
-      return { method: { kind: 'eckhardt', bfiMax, recession } };
-    }
-    case 'smoothed-minima':
-      return { method: { kind: 'smoothed-minima', block_days: defaultSmoothedMinima.block_days, factor: defaultSmoothedMinima.factor } };
-    case 'local-minimum':
-      if (area_km2 === undefined) return { problem: 'The local-minimum method sets its interval from the catchment area: add the area to the site.' };
-      return { method: { kind: 'local-minimum', interval_days: localMinimumInterval_days(area_km2) } };
-    default: {
-      const unknown: never = choice.kind;
-      throw new RangeError(`No separation method called ${String(unknown)}`);
-    }
+  if (choice.kind === 'eckhardt') {
+    const bfiMax = unitFraction(choice.bfiMax, 'The largest baseflow index (BFImax)');
+    if (typeof bfiMax === 'string') return { problem: bfiMax };
+    const recession = unitFraction(choice.recession, 'The recession constant');
+    if (typeof recession === 'string') return { problem: recession };
+    return { method: { kind: 'eckhardt', bfiMax, recession } };
   }
+  if (choice.kind === 'local-minimum' && area_km2 === undefined) {
+    return { problem: 'The local-minimum method sets its interval from the catchment area: add the area to the site.' };
+  }
+  return { method: methodWithDefaults(choice.kind, { area_km2 }) };
 }
 
 /** The choice that reproduces a saved method (kind and parameters as stored); undefined for an unknown kind. */

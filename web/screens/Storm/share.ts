@@ -1,6 +1,5 @@
-// Sharing a storm: the plot with its figures as a PNG picture, and the separated series as CSV. The phone's
-// share sheet is used where it takes files (Web Share level 2), a download otherwise.
-import { csvDocument, displayUnit, toDisplay, toIsoWithOffset, type UnitSystem } from '../../../core';
+// Sharing a storm: the plot with its figures as a PNG picture and files such as the separated series. The
+// phone's share sheet is used where it takes files (Web Share level 2), a download otherwise.
 
 /** Hands a file to the phone's share sheet when it takes files, else downloads it; says which happened. */
 export async function shareOrDownload(file: File): Promise<'shared' | 'downloaded' | 'cancelled'> {
@@ -56,32 +55,4 @@ export function canvasToPng(canvas: HTMLCanvasElement, name: string): Promise<Fi
   return new Promise((done, fail) =>
     canvas.toBlob((blob) => (blob ? done(new File([blob], name, { type: 'image/png' })) : fail(new Error('The picture could not be made.'))), 'image/png'),
   );
-}
-
-/** The separated series as CSV rows: time with the site's offset, stage, discharge, baseflow and direct runoff. */
-export function separatedCsv(
-  series: { time_ms: ArrayLike<number>; stage_m: ArrayLike<number>; discharge_m3s: ArrayLike<number>; extrapolated: ArrayLike<number> },
-  baseflow_m3s: ArrayLike<number>,
-  meta: { siteCode: string; timeZone: string; units: UnitSystem; method: string },
-): string {
-  const { units, timeZone } = meta;
-  const s = displayUnit('stage', units);
-  const q = displayUnit('discharge', units);
-  const rows: string[][] = [['site', 'time', `stage_${s}`, `discharge_${q}`, `baseflow_${q}`, `direct_runoff_${q}`, 'extrapolated', 'method']];
-  const qs = (v: number) => String(Number(toDisplay('discharge', v, units).toPrecision(6)));
-  for (let i = 0; i < series.time_ms.length; i++) {
-    const Q = series.discharge_m3s[i];
-    const b = baseflow_m3s[i];
-    rows.push([
-      meta.siteCode,
-      toIsoWithOffset(series.time_ms[i], timeZone),
-      toDisplay('stage', series.stage_m[i], units).toFixed(units === 'us' ? 3 : 4),
-      qs(Q),
-      qs(b),
-      qs(Math.max(0, Q - b)),
-      series.extrapolated[i] ? 'yes' : 'no',
-      meta.method,
-    ]);
-  }
-  return csvDocument(rows);
 }

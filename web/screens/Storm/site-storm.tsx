@@ -1,6 +1,6 @@
 // One site's storm analysis, built around the plot: storms found for you, the hydrograph with draggable
 // key points and the figures always in view, every method side by side, save, reopen and share.
-import { useCallback, useMemo, useReducer, useRef, useState } from 'preact/hooks';
+import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from 'preact/hooks';
 import { displayUnit, fromDisplay, toDisplay, type EventPoints, type SiteRecord } from '../../../core';
 import { Plot, type PlotApi, type PlotBand, type PlotDrawView, type PlotGeometry, type PlotSeries } from '../../components/Plot';
 import { SeparationPicker } from '../../components/SeparationPicker';
@@ -32,8 +32,30 @@ const FALLBACK_WINDOW_DAYS = 14;
 function widened(win: TimeWindow, need_days: number | undefined, last_ms: number): TimeWindow {
   if (need_days === undefined || win.to_ms - win.from_ms >= need_days * DAY_MS) return win;
   const mid = (win.from_ms + win.to_ms) / 2;
-  const to_ms = Math.min(last_ms, Math.max(win.to_ms, mid + (need_days * DAY_MS) / 2));
+  // Whole minutes, as the window fields show it.
+  const to_ms = Math.min(last_ms, Math.ceil(Math.max(win.to_ms, mid + (need_days * DAY_MS) / 2) / 60_000) * 60_000);
   return { from_ms: to_ms - need_days * DAY_MS, to_ms };
+}
+
+/**
+ * Keeps whatever is scrolled to or focused clear of the plot and figures that stay at the top (and of the
+ * bottom bar): the page's scroll padding follows the sticky area's height while the screen is open.
+ */
+function useStickyScrollPadding(stage: HTMLElement | null): void {
+  useEffect(() => {
+    if (!stage) return;
+    const root = document.documentElement;
+    const resize = new ResizeObserver(() => {
+      root.style.scrollPaddingTop = `${stage.getBoundingClientRect().height + 60}px`;
+    });
+    resize.observe(stage);
+    root.style.scrollPaddingBottom = 'calc(var(--nav-h) + 8px)';
+    return () => {
+      resize.disconnect();
+      root.style.scrollPaddingTop = '';
+      root.style.scrollPaddingBottom = '';
+    };
+  }, [stage]);
 }
 
 /** The storm screen for one site (the parent keys it by site id, so a new site starts a fresh draft). */
@@ -43,6 +65,8 @@ export function SiteStorm({ site }: { site: SiteRecord }) {
   const [showAll, setShowAll] = useState(false);
   const [readout, setReadout] = useState<number>();
   const api = useRef<PlotApi | undefined>(undefined);
+  const [stage, setStage] = useState<HTMLDivElement | null>(null);
+  useStickyScrollPadding(stage);
   const zone = site.timeZone;
   const units = site.displayUnits;
   const area = site.area_km2;
@@ -199,8 +223,9 @@ export function SiteStorm({ site }: { site: SiteRecord }) {
           There are no readings at this site yet. <a href="#/record">Record a reading</a> or import the logger first.
         </p>
       )}
-      {storms && (
+      {storms && last_ms !== undefined && (
         <StormList
+          last_ms={last_ms}
           storms={storms}
           openPeak_ms={points?.peak_ms}
           units={units}
@@ -222,7 +247,7 @@ export function SiteStorm({ site }: { site: SiteRecord }) {
       )}
 
       {series && discharge && (
-        <div class="storm-stage">
+        <div class="storm-stage" ref={setStage}>
           <Plot
             x={series.time_ms}
             xAxis={xAxis}

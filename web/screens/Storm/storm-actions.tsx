@@ -1,7 +1,7 @@
 // Keep and share a storm: save the analysis with everything needed to repeat it, share the plot with its
 // figures as a picture, and the separated series as CSV.
 import { useState } from 'preact/hooks';
-import type { AnalysisResults, EventPoints, EventSummary, SiteRecord } from '../../../core';
+import { stormToCsv, type AnalysisResults, type EventPoints, type EventSummary, type SiteRecord } from '../../../core';
 import type { PlotApi } from '../../components/Plot';
 import { METHOD_LABELS } from '../../components/SeparationPicker';
 import { saveAnalysis } from '../../db';
@@ -11,7 +11,7 @@ import type { StormAction, StormDraft, TimeWindow } from './draft';
 import { KEY_NAMES, KEY_ORDER } from './key-point-order';
 import { rangeText } from './results-strip';
 import type { RunoffRange } from './runoff-range';
-import { canvasToPng, composePicture, separatedCsv, shareOrDownload } from './share';
+import { canvasToPng, composePicture, shareOrDownload } from './share';
 
 function resultsOf(s: EventSummary): AnalysisResults {
   const { notes: _notes, ...figures } = s;
@@ -92,7 +92,8 @@ export function StormActions(p: StormActionsProps) {
 
   const csv = () =>
     run('Making the CSV…', async () => {
-      const text = separatedCsv(p.series, p.result.baseflow_m3s, { siteCode: p.site.code, timeZone: zone, units, method: METHOD_LABELS[p.result.method.kind] });
+      // The core's storm CSV neutralises text that a spreadsheet would run as a formula (the site code, the method).
+      const text = stormToCsv({ series: p.series, baseflow_m3s: p.result.baseflow_m3s, method: METHOD_LABELS[p.result.method.kind] }, { siteCode: p.site.code, timeZone: zone, units });
       const how = await shareOrDownload(new File([text], `${base}.csv`, { type: 'text/csv' }));
       return how === 'shared' ? 'The CSV was handed to the share sheet.' : how === 'downloaded' ? `The CSV was saved as ${base}.csv.` : 'Sharing was cancelled.';
     });

@@ -3,22 +3,24 @@ import type { UnitSystem } from '../../../core';
 import { formatQuantity, formatTime } from '../../format';
 import type { StormFound } from './storms';
 
-/** Props: the storms (newest first), which is open, units, zone, the days searched and the open callback. */
+/** Props: the storms (newest first), which is open, units, zone, the days searched up to the latest reading (UTC ms). */
 export interface StormListProps {
   storms: StormFound[];
   openPeak_ms?: number;
   units: UnitSystem;
   timeZone: string;
   days: number;
+  last_ms: number;
   onOpen: (storm: StormFound) => void;
 }
 
 /** A collapsible list of storms; "no storm" is said plainly. */
-export function StormList({ storms, openPeak_ms, units, timeZone, days, onOpen }: StormListProps) {
+export function StormList({ storms, openPeak_ms, units, timeZone, days, last_ms, onOpen }: StormListProps) {
+  const upTo = formatTime(last_ms, timeZone);
   if (storms.length === 0) {
     return (
       <p class="callout" data-testid="no-storm">
-        No storm in the last {days} days of this site's record: the flow never rose clearly above its level before.
+        No storm in the {days} days to {upTo} (the latest reading): the flow never rose clearly above its level before.
         Choose a window below to look at any stretch of the record.
       </p>
     );
@@ -26,7 +28,7 @@ export function StormList({ storms, openPeak_ms, units, timeZone, days, onOpen }
   return (
     <details class="storm-list">
       <summary>
-        {storms.length === 1 ? 'One storm' : `${storms.length} storms`} in the last {days} days
+        {storms.length === 1 ? 'One storm' : `${storms.length} storms`} in the {days} days to {upTo}
       </summary>
       <ul class="list" data-testid="storm-list">
         {storms.map((s) => {

@@ -14,6 +14,8 @@ export interface StormFound {
   depth_mm?: number;
 }
 
+const MINUTE_MS = 60_000;
+
 /** Fewest readings a part of the record needs to be searched for a storm. */
 const MIN_READINGS = 12;
 /**
@@ -72,15 +74,16 @@ export function findStorms(series: StormSeries, area_km2: number | undefined): S
 
 /**
  * The readings window to analyse a storm in (UTC ms): from well before its rise (filters settle on the
- * flow before the storm) to a while after its end, kept inside the record.
+ * flow before the storm) to a while after its end, in whole minutes, kept inside the record.
  */
 export function stormWindow(points: EventPoints, area_km2: number | undefined, record: { first_ms: number; last_ms: number }) {
   const day = 86_400_000;
   const length = points.runoffEnd_ms - points.riseStart_ms;
   const before = Math.max(3 * day, length);
   const after = Math.max(day, 0.5 * length, area_km2 === undefined ? 0 : 0.5 * runoffDuration_days(area_km2) * day);
+  // Whole minutes, so the window reads back exactly from the minute fields that show it.
   return {
-    from_ms: Math.max(record.first_ms, points.riseStart_ms - before),
-    to_ms: Math.min(record.last_ms, points.runoffEnd_ms + after),
+    from_ms: Math.max(record.first_ms, Math.floor((points.riseStart_ms - before) / MINUTE_MS) * MINUTE_MS),
+    to_ms: Math.min(record.last_ms, Math.ceil((points.runoffEnd_ms + after) / MINUTE_MS) * MINUTE_MS),
   };
 }

@@ -4,6 +4,7 @@ import { useState } from 'preact/hooks';
 import type { EventPoints } from '../../../core';
 import type { PlotGeometry } from '../../components/Plot';
 import { formatTime } from '../../format';
+import { clockLabel, dayLabel } from '../../components/Plot/time-axis';
 import { KEY_NAMES, KEY_ORDER, nearestIndex, type KeyPoint } from './key-point-order';
 
 /** Props: the plot's geometry, the points (UTC ms), the series (times, y in display units) and callbacks. */
@@ -39,7 +40,7 @@ export function KeyPointHandles({ geometry, points, time_ms, y, timeZone, onMove
             key={key}
             type="button"
             role="slider"
-            class={`key-handle${active === key ? ' active' : ''}`}
+            class={`key-handle${active === key ? ' active' : ''}${left > area.left + area.width / 2 ? ' name-left' : ''}`}
             data-handle={key}
             style={{ left: `${left}px`, top: `${clampedTop}px` }}
             aria-label={KEY_NAMES[key]}
@@ -69,7 +70,7 @@ export function KeyPointHandles({ geometry, points, time_ms, y, timeZone, onMove
             }}
           >
             <span class="key-dot" aria-hidden="true">{LETTERS[key]}</span>
-            <span class="key-name" aria-hidden="true">{`${KEY_NAMES[key]} ${when.slice(5)}`}</span>
+            <span class="key-name" aria-hidden="true">{`${KEY_NAMES[key]} ${dayLabel(t, timeZone)} ${clockLabel(t, timeZone)}`}</span>
           </button>
         );
       })}

@@ -43,11 +43,13 @@ export function ResultsStrip(p: ResultsStripProps) {
       <div class="strip-lead">
         <span class="strip-label">Direct runoff</span>
         <span class="figure" data-testid="direct-volume">{formatQuantity('volume', s.directVolume_m3, p.units)}</span>
-      </div>
-      <p class="strip-range">
-        {p.range && <span data-testid="volume-range">{rangeText(p.range, p.units)}</span>}
         <Mark on={p.volumeExtrapolated} />
-      </p>
+      </div>
+      {p.range && (
+        <p class="strip-range" data-testid="volume-range">
+          {rangeText(p.range, p.units)}
+        </p>
+      )}
       <dl class="strip-cells">
         <div>
           <dt>Depth</dt>

@@ -97,6 +97,11 @@ async function centre(l: Locator): Promise<{ x: number; y: number }> {
   return { x: b.x + b.width / 2, y: b.y + b.height / 2 };
 }
 
+/** Unfolds the method chooser unless it is open already. */
+async function openMethods(): Promise<void> {
+  if (!(await page.locator('details.storm-method').evaluate((d: HTMLDetailsElement) => d.open))) await page.locator('.storm-method summary').click();
+}
+
 /** What must never reach the screen: function or field names, or raw millisecond times. */
 const INTERNAL = /separateBaseflow|summarizeEvent|findEventPoints|\w+_ms\b|\d{10,}/;
 
@@ -226,7 +231,7 @@ describe('storm screen on the demo site, offline', () => {
   it('switches to the Eckhardt filter with typed constants and redraws the baseflow', async () => {
     const canvas = page.locator('.storm-plot canvas');
     const before = await canvas.evaluate((c: HTMLCanvasElement) => c.toDataURL());
-    await page.locator('.storm-method summary').click();
+    await openMethods();
     await page.locator('input[data-method="eckhardt"]').check();
     await page.getByLabel(/Largest baseflow index/).fill('0.25');
     const node = await stormInNode(latest_ms);
@@ -237,6 +242,54 @@ describe('storm screen on the demo site, offline', () => {
     await page.getByLabel(/Largest baseflow index/).fill('1.5');
     await expect(page.getByText(/must lie between 0 and 1/).first().isVisible()).resolves.toBe(true);
     await page.getByLabel(/Largest baseflow index/).fill('0.25');
+    await volumeIs(node.figures(eckhardt).directVolume_m3);
+  });
+
+  it('reads out a tapped time in the site zone, and zooms with two fingers', async () => {
+    const plot = page.locator('.storm-plot canvas');
+    await plot.waitFor();
+    const box = (await plot.boundingBox())!;
+    await page.touchscreen.tap(box.x + box.width * 0.3, box.y + box.height * 0.5);
+    await expect(page.getByTestId('readout').textContent()).resolves.toMatch(
+      /^\d{4}-\d\d-\d\d \d\d:\d\d · stage \d+\.\d{3} m · discharge [\d.,]+ m³\/s · baseflow [\d.,]+ m³\/s$/,
+    );
+    // Two fingers moving apart between the rise start and the peak spread those two handles apart on screen.
+    const rise = page.locator('[data-handle="riseStart_ms"]');
+    const peak = page.locator('[data-handle="peak_ms"]');
+    const gap = async () => (await centre(peak)).x - (await centre(rise)).x;
+    const before = await gap();
+    const cdp = await page.context().newCDPSession(page);
+    const mid = { x: ((await centre(rise)).x + (await centre(peak)).x) / 2, y: box.y + box.height / 2 };
+    const fingers = (d: number) => [
+      { x: mid.x - d, y: mid.y, id: 1 },
+      { x: mid.x + d, y: mid.y, id: 2 },
+    ];
+    await cdp.send('Input.dispatchTouchEvent', { type: 'touchStart', touchPoints: fingers(20) });
+    for (const d of [30, 40, 50, 60]) await cdp.send('Input.dispatchTouchEvent', { type: 'touchMove', touchPoints: fingers(d) });
+    await cdp.send('Input.dispatchTouchEvent', { type: 'touchEnd', touchPoints: [] });
+    await cdp.detach();
+    await page.waitForTimeout(100);
+    expect(await gap()).toBeGreaterThan(before * 1.5);
+    // Whole window shows everything again.
+    await page.getByLabel('Whole window').check();
+    await page.getByLabel('Whole window').uncheck();
+  });
+
+  it('widens the window for smoothed minima and gives the volume core computes on it', async () => {
+    const before = await stormInNode(latest_ms);
+    const from0 = fromLocalInput(await page.locator('#storm-from').inputValue(), ZONE);
+    const to0 = fromLocalInput(await page.locator('#storm-to').inputValue(), ZONE);
+    await openMethods();
+    await page.locator('input[data-method="smoothed-minima"]').check();
+    await expect(page.getByTestId('storm-notes').textContent()).resolves.toContain('The window was widened to 25 days');
+    const from1 = fromLocalInput(await page.locator('#storm-from').inputValue(), ZONE);
+    const to1 = fromLocalInput(await page.locator('#storm-to').inputValue(), ZONE);
+    expect(to1 - from1).toBe(25 * 86_400_000);
+    expect(to1 - from1).toBeGreaterThan(to0 - from0);
+    // The storm's key points stay those found on the storm's own window; smoothed minima runs on the wider one.
+    const node = await stormInNode(latest_ms);
+    await volumeIs(node.figures(methodWithDefaults('smoothed-minima'), before.found).directVolume_m3);
+    await page.locator('input[data-method="eckhardt"]').check();
   });
 
   it('shares the plot as a PNG picture of the plot', async () => {
@@ -277,7 +330,7 @@ describe('storm screen on the demo site, offline', () => {
     await volumeIs(numberIn(shown!));
     await expect(page.getByTestId('runoff-depth').textContent()).resolves.toBe(depth);
     await expect(page.getByLabel(/Rain \(mm\)/).inputValue()).resolves.toBe('38');
-    await page.locator('.storm-method summary').click();
+    await openMethods();
     await expect(page.getByLabel(/Largest baseflow index/).inputValue()).resolves.toBe('0.25');
     await expect(page.getByTestId('saved-analyses').textContent()).resolves.toContain('Browser test storm');
   });

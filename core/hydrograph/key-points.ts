@@ -67,13 +67,13 @@ export function findEventPointsDetailed(series: Series, options?: EventPointOpti
     if (q[i] > q[peak]) peak = i;
     if (q[i] < q[lowest]) lowest = i;
   }
-  refuseWithoutStorm(fn, q[peak] - q[lowest], sigma);
-  if (peak === 0) throw new RangeError(`${fn} found no storm in this record: it needs a rise before the peak, and the highest reading is the first one`);
+  refuseWithoutStorm(q[peak] - q[lowest], sigma);
+  if (peak === 0) throw new RangeError('No storm was found in this record: the highest reading is the first one, so there is no rise before the peak.');
   if (peak === n - 1) throw new RangeError(`${fn} needs readings after the peak; the highest reading is the last one`);
   const noisy = sigma > WALK_SMOOTHING_NOISE_SHARE * (q[peak] - q[lowest]);
   const s = noisy ? runningMean(q, WALK_SMOOTHING_READINGS) : q;
   const back = walkBack(q, s, peak, sigma);
-  refuseWithoutStorm(fn, q[peak] - back.level_m3s, sigma);
+  refuseWithoutStorm(q[peak] - back.level_m3s, sigma);
   const on = walkOn(q, s, peak, back.level_m3s, sigma);
   const { fallEnd, lastPeak } = on;
   if (fallEnd === peak) throw new RangeError(`${fn} needs a falling limb after the peak`);
@@ -110,10 +110,10 @@ export function findEventPointsDetailed(series: Series, options?: EventPointOpti
 }
 
 /** Throws the RangeError of a record with no storm: a rise (m³/s) not clearly above 10 times the noise σ. */
-function refuseWithoutStorm(fn: string, rise_m3s: number, sigma: number): void {
+function refuseWithoutStorm(rise_m3s: number, sigma: number): void {
   if (rise_m3s > STORM_SIGMAS * sigma) return;
   throw new RangeError(
-    `${fn} found no storm in this record: the highest reading stands ${sig(rise_m3s)} m³/s above the flow before it, ` +
+    `No storm was found in this record: the highest reading stands ${sig(rise_m3s)} m³/s above the flow before it, ` +
       `and a storm needs more than ${STORM_SIGMAS} times the record's noise (σ = ${sig(sigma)} m³/s), that is ` +
       `${sig(STORM_SIGMAS * sigma)} m³/s. Choose a window with a storm in it.`,
   );
@@ -133,9 +133,10 @@ function limitNotes(
   const n = t.length;
   const rise = q[peak] - back.level_m3s;
   const tolerance = Math.max(RISE_START_SHARE * rise, RISE_START_SIGMAS * sigma);
+  const noise = sigma > 0 ? `The record's noise is about ${sig(sigma)} m³/s` : 'The record shows no noise';
   notes.push(
-    `The record's noise is about ${sig(sigma)} m³/s; the rise start is the last reading before the peak within ` +
-      `${sig(tolerance)} m³/s of the pre-event level (${sig(back.level_m3s)} m³/s).`,
+    `${noise}; the rise start is the last reading before the peak within ${sig(tolerance)} m³/s of the ` +
+      `pre-event level (${sig(back.level_m3s)} m³/s).`,
   );
   const bursts = 1 + back.burstsBefore + on.burstsAfter;
   if (bursts > 1) {

@@ -179,7 +179,7 @@ describe('6. no storm, and storms cut by the ends of the record', () => {
     const s = loggerRecord(model, 7);
     const call = () => findEventPoints(s);
     expect(call).toThrow(RangeError);
-    expect(call).toThrow(/found no storm.*stands [0-9.]+ m³\/s above.*σ = [0-9.e-]+ m³\/s/);
+    expect(call).toThrow(/No storm was found.*stands [0-9.]+ m³\/s above.*σ = [0-9.e-]+ m³\/s/);
   });
   it('a storm already rising at the first reading gets a note', () => {
     const q = triangle(2, 10, -2, 8, 20, 48);
@@ -252,5 +252,29 @@ describe('8. small ones', () => {
   it('the simulated rating is the power law both ways (a check of the test support itself)', () => {
     expect(dischargeOf(stageOf(5))).toBeCloseTo(5, 12);
     expect(ORIGIN_MS).toBe(Date.UTC(2025, 4, 1));
+  });
+});
+
+describe('notes are plain sentences for the storm screen', () => {
+  it('no internal names, no raw milliseconds, each a sentence', () => {
+    const model = { ...singleStorm(3, 5), stageNoise_m: 0.003 };
+    const noisy = loggerRecord(model, 3);
+    const gappy = { time_ms: Array.from(noisy.time_ms), discharge_m3s: Array.from(noisy.discharge_m3s) as (number | null)[] };
+    gappy.discharge_m3s[100] = null;
+    gappy.time_ms.splice(400, 60);
+    gappy.discharge_m3s.splice(400, 60);
+    const series = gappy as { time_ms: number[]; discharge_m3s: number[] };
+    const notes = [
+      ...findEventPointsDetailed(series, { area_km2: 50 }).notes,
+      ...findEventPointsDetailed(series).notes,
+      ...separateBaseflowDetailed(series, { kind: 'variable-slope' }, { area_km2: 50 }).notes,
+      ...separateBaseflowDetailed(series, { kind: 'lyne-hollick' }, { smoothing: 'light' }).notes,
+      ...separateBaseflowDetailed(noisy, { kind: 'eckhardt', bfiMax: 0.8, recession: 0.98 }).notes,
+    ];
+    expect(notes.length).toBeGreaterThan(8);
+    for (const note of notes) {
+      expect(note).toMatch(/^[A-Z0-9].*[.)]$/);
+      expect(note).not.toMatch(/_ms|_m3s|_km2|[a-z][A-Z][a-z]+[A-Z(]|\b\d{10,}\b|NaN|undefined|Infinity/);
+    }
   });
 });

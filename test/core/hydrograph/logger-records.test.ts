@@ -110,7 +110,7 @@ describe('two-burst storms and flat records', () => {
     for (const step of STEPS_MIN) {
       for (const seed of SEEDS.slice(0, 20)) {
         const model = { ...singleStorm(seed, step), bursts: [] };
-        expect(() => findEventPoints(loggerRecord(model, noiseSeed(seed, step)))).toThrow(/found no storm/);
+        expect(() => findEventPoints(loggerRecord(model, noiseSeed(seed, step)))).toThrow(/No storm was found/);
       }
     }
   });

@@ -14,7 +14,7 @@ import {
   findEventPoints,
   fromLocalInput,
   methodWithDefaults,
-  separateBaseflow,
+  separateBaseflowDetailed,
   SEPARATION_METHOD_KINDS,
   summarizeEvent,
   toLocalInput,
@@ -64,8 +64,8 @@ async function stormInNode(latest_ms: number) {
   const area_km2 = demoScenario(latest_ms).site.area_km2!;
   const found = findEventPoints(series, { area_km2 });
   const figures = (method: SeparationMethod, points: EventPoints = found, rainfall_mm?: number) => {
-    const baseflow = separateBaseflow(series, method, { points, area_km2 });
-    return summarizeEvent(series, baseflow, { area_km2, rainfall_mm, from_ms: points.riseStart_ms, to_ms: points.runoffEnd_ms });
+    const { baseflow, baseflowAtPoints } = separateBaseflowDetailed(series, method, { points, area_km2 });
+    return summarizeEvent(series, baseflow, { area_km2, rainfall_mm, from_ms: points.riseStart_ms, to_ms: points.runoffEnd_ms, baseflowAtPoints });
   };
   return { series, found, figures, area_km2 };
 }

@@ -10,6 +10,7 @@ import {
   dischargeAt,
   findEventPoints,
   separateBaseflow,
+  separateBaseflowDetailed,
   summarizeEvent,
   type AnalysisRecord,
   type EventPoints,
@@ -142,8 +143,8 @@ describe('every method side by side', () => {
       if (!('method' in made)) throw new Error(made.problem);
       let expected: number | undefined;
       try {
-        const b = separateBaseflow(series, made.method, { points: found, area_km2 });
-        expected = summarizeEvent(series, b, { area_km2, from_ms: found.riseStart_ms, to_ms: found.runoffEnd_ms }).directVolume_m3;
+        const { baseflow, baseflowAtPoints } = separateBaseflowDetailed(series, made.method, { points: found, area_km2 });
+        expected = summarizeEvent(series, baseflow, { area_km2, from_ms: found.riseStart_ms, to_ms: found.runoffEnd_ms, baseflowAtPoints }).directVolume_m3;
       } catch {
         expected = undefined;
       }

@@ -9,6 +9,7 @@ import {
   type EventPoints,
   type EventSummary,
   type SeparationMethod,
+  type SeparationResult,
   type SeriesFromReadings as CoreSeriesFromReadings,
 } from '../../../core';
 import type { SeriesWithDischarge } from '../../db';
@@ -96,10 +97,10 @@ export interface StormResult {
 
 // Baseflow of the methods that do not use the key points depends only on the series and the method, so a
 // key point dragged across the plot reuses it instead of filtering the whole window again.
-const filtered = new WeakMap<StormSeries, Map<string, { baseflow: Float64Array; notes: string[] }>>();
+const filtered = new WeakMap<StormSeries, Map<string, SeparationResult>>();
 
 /** Baseflow (m³/s per reading) with the core's notes; filter and minima results are kept per series. */
-export function baseflowOf(series: StormSeries, points: EventPoints, method: SeparationMethod, area_km2: number | undefined) {
+export function baseflowOf(series: StormSeries, points: EventPoints, method: SeparationMethod, area_km2: number | undefined): SeparationResult {
   if (usesKeyPoints(method.kind)) return separateBaseflowDetailed(series, method, { points, area_km2 });
   let cache = filtered.get(series);
   if (!cache) filtered.set(series, (cache = new Map()));
@@ -123,11 +124,14 @@ export function analyse(
 ): Outcome<StormResult> {
   return attempt(() => {
     const separated = baseflowOf(series, points, method, area_km2);
+    // The baseflow at the key points joins the trapezoid where the line bends (key-point methods only).
+    const nodes = separated.baseflowAtPoints;
     const summary = summarizeEvent(series, separated.baseflow, {
       area_km2,
       rainfall_mm,
       from_ms: points.riseStart_ms,
       to_ms: points.runoffEnd_ms,
+      ...(nodes ? { baseflowAtPoints: nodes } : {}),
     });
     const notes = [...new Set([...separated.notes, ...summary.notes])];
     return { method, baseflow_m3s: separated.baseflow, summary, notes };

@@ -54,6 +54,7 @@ describe('time labels in the site zone, 24-hour', () => {
   it('labels numbers with the decimals their spacing needs', () => {
     expect(numberTickLabel(2.5, 0.5)).toBe('2.5');
     expect(numberTickLabel(2, 0.5)).toBe('2.0');
+    expect(numberTickLabel(7.5, 2.5)).toBe('7.5');
     expect(numberTickLabel(0.05, 0.01)).toBe('0.05');
     expect(numberTickLabel(12000, 2000)).toBe('12,000');
     expect(numberTickLabel(0, 0.5)).toBe('0');

@@ -54,10 +54,21 @@ export function createPlot(host: HTMLElement, first: PlotProps, width_px: number
     const key = values as unknown as object;
     const hit = columns.get(key);
     if (hit) return hit;
-    const out: Column = new Array(values.length);
-    for (let i = 0; i < values.length; i++) {
+    const n = values.length;
+    let clean = values instanceof Float64Array;
+    for (let i = 0; clean && i < n; i++) {
       const v = values[i];
-      out[i] = Number.isFinite(v) && (!log || v > 0) ? v : null;
+      if (!(v === v && v !== Infinity && v !== -Infinity) || (log && !(v > 0))) clean = false;
+    }
+    // A typed array with no gap goes to uPlot as it is (uPlot reads it by index); only gaps need nulls.
+    let out: Column;
+    if (clean) out = values as unknown as Column;
+    else {
+      out = new Array(n);
+      for (let i = 0; i < n; i++) {
+        const v = values[i];
+        out[i] = Number.isFinite(v) && (!log || v > 0) ? v : null;
+      }
     }
     columns.set(key, out);
     return out;
@@ -66,7 +77,9 @@ export function createPlot(host: HTMLElement, first: PlotProps, width_px: number
   let xsOf: ArrayLike<number> | undefined;
   const dataOf = (p: PlotProps): uPlot.AlignedData => {
     if (xsOf !== p.x) {
-      xs = Float64Array.from(p.x, (v) => v / scale);
+      const n = p.x.length;
+      xs = new Float64Array(n);
+      for (let i = 0; i < n; i++) xs[i] = p.x[i] / scale;
       xsOf = p.x;
     }
     return [xs as unknown as number[], ...p.series.map((s) => column(s.values, p.logY === true))];

@@ -36,7 +36,9 @@ export function timeTickLabels(ticks_ms: readonly number[], step_ms: number, tim
 /** An axis number with no more decimals than its tick spacing needs (spacing in the same unit). */
 export function numberTickLabel(v: number, spacing: number): string {
   if (v === 0) return '0';
-  const decimals = spacing > 0 ? Math.max(0, Math.min(6, -Math.floor(Math.log10(spacing) + 1e-9))) : 2;
+  let decimals = 0;
+  // The fewest decimals that write the spacing exactly (2.5 needs one, 0.05 two).
+  while (decimals < 6 && Math.abs(spacing * 10 ** decimals - Math.round(spacing * 10 ** decimals)) > 1e-6 * Math.max(1, spacing * 10 ** decimals)) decimals++;
   const abs = Math.abs(v);
   return abs >= 1000 && decimals === 0 ? Math.round(v).toLocaleString('en') : v.toFixed(decimals);
 }

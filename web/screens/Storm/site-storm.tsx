@@ -1,330 +1,332 @@
-// One site's storm analysis: the readings window, key points, method, rainfall, results, plot and save.
-import { useMemo, useReducer, useState } from 'preact/hooks';
-import {
-  displayUnit,
-  fromDisplay,
-  fromLocalInput,
-  toDisplay,
-  toLocalInput,
-  type AnalysisResults,
-  type EventPoints,
-  type EventSummary,
-  type SiteRecord,
-} from '../../../core';
-import { EventFigures } from '../../components/EventFigures';
-import { Hydrograph, type PlotLine, type PlotMarker } from '../../components/Hydrograph';
-import { KeyPointFields, type InflectionCrossCheck } from '../../components/KeyPointFields';
+// One site's storm analysis, built around the plot: storms found for you, the hydrograph with draggable
+// key points and the figures always in view, every method side by side, save, reopen and share.
+import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from 'preact/hooks';
+import { displayUnit, fromDisplay, toDisplay, type EventPoints, type SiteRecord } from '../../../core';
+import { Plot, type PlotApi, type PlotBand, type PlotDrawView, type PlotGeometry, type PlotSeries } from '../../components/Plot';
 import { SeparationPicker } from '../../components/SeparationPicker';
-import { latestReading, saveAnalysis, seriesWithDischarge } from '../../db';
+import { latestReading, listRatings, seriesWithDischarge } from '../../db';
 import { formatQuantity, formatTime, parseDecimal } from '../../format';
-import { analyse, findPoints, polynomialInflection, seriesFromReadings, usesKeyPoints, type StormSeries } from './analysis';
-import { initialDraft, stormReducer, type TimeWindow } from './draft';
-import { SavedAnalyses } from './saved-analyses';
 import { useRecords } from '../../db/use-records';
+import { analyse, findPoints, seriesFromReadings } from './analysis';
+import { initialDraft, stormReducer, type TimeWindow } from './draft';
+import { KeyPointHandles } from './handles';
+import { KEY_ORDER, nearestIndex } from './key-point-order';
+import { methodFor, minimaWindow_days, usesKeyPoints, usesMinima } from './method-choice';
+import { MethodSpreadTable } from './method-spread';
+import { everyMethod, methodSpread } from './method-table';
+import { ResultsStrip } from './results-strip';
+import { DEFAULT_RATING_SE_PCT, runoffRange } from './runoff-range';
+import { SavedAnalyses } from './saved-analyses';
+import { StormActions } from './storm-actions';
+import { StormList } from './storm-list';
+import { findStorms, stormWindow } from './storms';
+import { WindowFields } from './window-fields';
 
 const DAY_MS = 86_400_000;
-/** The default readings window: this many days up to the latest reading. */
-const DEFAULT_WINDOW_DAYS = 14;
+/** Days of record searched for storms, up to the latest reading. */
+export const SEARCH_DAYS = 60;
+/** The window shown when no storm is found: this many days up to the latest reading. */
+const FALLBACK_WINDOW_DAYS = 14;
 
-function resultsOf(s: EventSummary): AnalysisResults {
-  const r: AnalysisResults = {
-    peak_m3s: s.peak_m3s,
-    peakTime_ms: s.peakTime_ms,
-    totalVolume_m3: s.totalVolume_m3,
-    baseflowVolume_m3: s.baseflowVolume_m3,
-    directVolume_m3: s.directVolume_m3,
-    baseflowIndex: s.baseflowIndex,
-  };
-  if (s.runoffDepth_mm !== undefined) r.runoffDepth_mm = s.runoffDepth_mm;
-  if (s.runoffCoefficient !== undefined) r.runoffCoefficient = s.runoffCoefficient;
-  return r;
+/** A window widened about its middle to at least need_days, ending no later than last_ms. */
+function widened(win: TimeWindow, need_days: number | undefined, last_ms: number): TimeWindow {
+  if (need_days === undefined || win.to_ms - win.from_ms >= need_days * DAY_MS) return win;
+  const mid = (win.from_ms + win.to_ms) / 2;
+  // Whole minutes, as the window fields show it.
+  const to_ms = Math.min(last_ms, Math.ceil(Math.max(win.to_ms, mid + (need_days * DAY_MS) / 2) / 60_000) * 60_000);
+  return { from_ms: to_ms - need_days * DAY_MS, to_ms };
 }
 
-type SaveState = { status: 'idle' } | { status: 'saving' } | { status: 'saved'; at_ms: number } | { status: 'failed'; message: string };
-
-/** The part of the plot to show: the event with half its length either side, or the whole window. */
-function plotRange(series: StormSeries, points: EventPoints | undefined, whole: boolean): [number, number] {
-  const t = series.time_ms;
-  if (whole || !points) return [0, t.length];
-  const margin = 0.5 * (points.runoffEnd_ms - points.riseStart_ms);
-  let a = 0;
-  while (a < t.length - 1 && t[a + 1] < points.riseStart_ms - margin) a++;
-  let b = t.length;
-  while (b > a + 2 && t[b - 2] > points.runoffEnd_ms + margin) b--;
-  return [a, b];
+/**
+ * Keeps whatever is scrolled to or focused clear of the plot and figures that stay at the top (and of the
+ * bottom bar): the page's scroll padding follows the sticky area's height while the screen is open.
+ */
+function useStickyScrollPadding(stage: HTMLElement | null): void {
+  useEffect(() => {
+    if (!stage) return;
+    const root = document.documentElement;
+    const resize = new ResizeObserver(() => {
+      root.style.scrollPaddingTop = `${stage.getBoundingClientRect().height + 60}px`;
+    });
+    resize.observe(stage);
+    root.style.scrollPaddingBottom = 'calc(var(--nav-h) + 8px)';
+    return () => {
+      resize.disconnect();
+      root.style.scrollPaddingTop = '';
+      root.style.scrollPaddingBottom = '';
+    };
+  }, [stage]);
 }
 
 /** The storm screen for one site (the parent keys it by site id, so a new site starts a fresh draft). */
 export function SiteStorm({ site }: { site: SiteRecord }) {
   const [draft, dispatch] = useReducer(stormReducer, initialDraft);
-  const [windowProblem, setWindowProblem] = useState<string>();
   const [logScale, setLogScale] = useState(false);
-  const [wholeWindow, setWholeWindow] = useState(false);
-  const [save, setSave] = useState<SaveState>({ status: 'idle' });
+  const [showAll, setShowAll] = useState(false);
+  const [readout, setReadout] = useState<number>();
+  const api = useRef<PlotApi | undefined>(undefined);
+  const [stage, setStage] = useState<HTMLDivElement | null>(null);
+  useStickyScrollPadding(stage);
   const zone = site.timeZone;
   const units = site.displayUnits;
   const area = site.area_km2;
+  const qUnit = displayUnit('discharge', units);
+
   const latest = useRecords(() => latestReading(site.id), ['reading'], [site.id]);
-  const defaultWindow: TimeWindow | undefined =
-    latest.state === 'ready' && latest.value
-      ? { from_ms: latest.value.time_ms - DEFAULT_WINDOW_DAYS * DAY_MS, to_ms: latest.value.time_ms }
-      : undefined;
-  const win = draft.window ?? defaultWindow;
-  // The compact series (times, stages, sources) with discharges: all the storm needs, read fast.
+  const last_ms = latest.state === 'ready' && latest.value ? latest.value.time_ms : undefined;
+  const searched = useRecords(
+    async () => (last_ms === undefined ? undefined : seriesWithDischarge(site.id, last_ms - SEARCH_DAYS * DAY_MS, last_ms)),
+    ['reading', 'rating'],
+    [site.id, last_ms],
+  );
+  const searchMade = useMemo(() => (searched.state === 'ready' && searched.value ? seriesFromReadings(searched.value) : undefined), [searched]);
+  const storms = useMemo(() => (searchMade?.kind === 'ready' ? findStorms(searchMade.series, area) : undefined), [searchMade, area]);
+  const baseWindow = useMemo<TimeWindow | undefined>(() => {
+    if (draft.window) return draft.window;
+    if (last_ms === undefined || !searchMade) return undefined;
+    if (storms && storms.length > 0 && searchMade.kind === 'ready') {
+      return stormWindow(storms[0].points, area, { first_ms: searchMade.series.time_ms[0], last_ms });
+    }
+    return { from_ms: last_ms - FALLBACK_WINDOW_DAYS * DAY_MS, to_ms: last_ms };
+  }, [draft.window, last_ms, searchMade, storms, area]);
+  const need_days = usesMinima(draft.method.kind) ? minimaWindow_days(draft.method.kind, area) : undefined;
+  const win = baseWindow && last_ms !== undefined ? widened(baseWindow, need_days, last_ms) : baseWindow;
+  const wasWidened = !!win && !!baseWindow && win.from_ms !== baseWindow.from_ms;
+
   const rows = useRecords(
     async () => (win ? seriesWithDischarge(site.id, win.from_ms, win.to_ms) : undefined),
     ['reading', 'rating'],
     [site.id, win?.from_ms, win?.to_ms],
   );
-
+  const ratings = useRecords(() => listRatings(site.id), ['rating'], [site.id]);
   const made = useMemo(() => (rows.state === 'ready' && rows.value ? seriesFromReadings(rows.value) : undefined), [rows]);
   const series = made?.kind === 'ready' ? made.series : undefined;
   const found = useMemo(() => (series ? findPoints(series, area) : undefined), [series, area]);
   const foundPoints = found?.ok ? found.value.points : undefined;
   const points = draft.points ?? foundPoints;
-  const crossCheck = useMemo<InflectionCrossCheck | undefined>(() => {
-    if (!series || !points) return undefined;
-    const r = polynomialInflection(series, points);
-    return r.ok ? { time_ms: r.value } : { message: r.message };
-  }, [series, points]);
 
   const rain = useMemo((): { mm?: number; problem?: string } => {
     if (draft.rainfall.trim() === '') return {};
     const v = parseDecimal(draft.rainfall);
-    if (v === undefined || !(v > 0)) return { problem: `Rainfall needs a number above 0 in ${displayUnit('depth', units)}.` };
+    if (v === undefined || !(v > 0)) {
+      return { problem: `Rainfall needs a number above 0 in ${displayUnit('depth', units)}; "${draft.rainfall.trim()}" cannot be read as one.` };
+    }
     return { mm: fromDisplay('depth', v, units) };
   }, [draft.rainfall, units]);
-  // Without an area there is no runoff depth, so the coefficient is not asked of the core.
   const rainfall_mm = area === undefined ? undefined : rain.mm;
 
+  const made_method = useMemo(() => methodFor(draft.method, area), [draft.method, area]);
+  const method = 'method' in made_method ? made_method.method : undefined;
   const result = useMemo(
-    () => (series && points ? analyse(series, points, draft.method, area, rainfall_mm) : undefined),
-    [series, points, draft.method, area, rainfall_mm],
+    () => (series && points && method ? analyse(series, points, method, area, rainfall_mm) : undefined),
+    [series, points, method, area, rainfall_mm],
   );
+  const all = useMemo(() => (series && points ? everyMethod(series, points, area, draft.method) : undefined), [series, points, area, draft.method]);
+  const spread = useMemo(() => (all ? methodSpread(all) : undefined), [all]);
 
-  const plot = useMemo(() => {
-    if (!series) return undefined;
-    const [a, b] = plotRange(series, points, wholeWindow);
-    const q = series.discharge_m3s.subarray(a, b);
-    const lines: PlotLine[] = [{ label: 'Discharge', values: Array.from(q, (v) => toDisplay('discharge', v, units)) }];
-    if (result?.ok) {
-      const base = result.value.baseflow_m3s.subarray(a, b);
-      lines.push({ label: 'Baseflow', values: Array.from(base, (v) => toDisplay('discharge', v, units)), dash: [6, 4] });
-    }
-    return { time_ms: series.time_ms.subarray(a, b), lines };
-  }, [series, points, wholeWindow, result, units]);
-  const markers = useMemo<PlotMarker[] | undefined>(
-    () =>
-      points && [
-        { time_ms: points.riseStart_ms, label: 'R' },
-        { time_ms: points.peak_ms, label: 'P' },
-        { time_ms: points.inflection_ms, label: 'I' },
-        { time_ms: points.runoffEnd_ms, label: 'E' },
-      ],
+  // The rating behind the peak reading gives the standard error; a rating without fit statistics gets the stated default.
+  const se = useMemo(() => {
+    const window = rows.state === 'ready' ? rows.value : undefined;
+    if (!window || !series || !points || ratings.state !== 'ready') return undefined;
+    const at = nearestIndex(window.time_ms, points.peak_ms);
+    const id = window.ratingIds[window.ratingIndex[at]];
+    const pct = ratings.value.find((r) => r.id === id)?.fit?.standardError_pct;
+    return pct === undefined ? { pct: DEFAULT_RATING_SE_PCT, isDefault: true } : { pct: Number(pct.toPrecision(2)), isDefault: false };
+  }, [rows, series, points, ratings]);
+  const range = useMemo(
+    () => (result?.ok && all && se ? runoffRange(result.value.summary.directVolume_m3, all.flatMap((r) => (r.volume_m3 === undefined ? [] : [r.volume_m3])), se.pct) : undefined),
+    [result, all, se],
+  );
+  const flags = useMemo(() => {
+    if (!series || !points) return { peak: false, volume: false };
+    const a = nearestIndex(series.time_ms, points.riseStart_ms);
+    const b = nearestIndex(series.time_ms, points.runoffEnd_ms);
+    let any = false;
+    for (let i = a; i <= b; i++) any ||= series.extrapolated[i] === 1;
+    return { peak: series.extrapolated[nearestIndex(series.time_ms, points.peak_ms)] === 1, volume: any };
+  }, [series, points]);
+
+  const discharge = useMemo(() => (series ? Float64Array.from(series.discharge_m3s, (v) => toDisplay('discharge', v, units)) : undefined), [series, units]);
+  const baseflowShown = useMemo(() => (result?.ok ? Float64Array.from(result.value.baseflow_m3s, (v) => toDisplay('discharge', v, units)) : undefined), [result, units]);
+  const plotSeries = useMemo<PlotSeries[]>(() => {
+    if (!discharge) return [];
+    const s: PlotSeries[] = [{ label: 'Discharge', values: discharge, colour: '--accent', width: 2 }];
+    if (baseflowShown) s.push({ label: 'Baseflow', values: baseflowShown, colour: '--warn-line', width: 2, dash: [6, 4] });
+    return s;
+  }, [discharge, baseflowShown]);
+  const bands = useMemo<PlotBand[] | undefined>(() => (baseflowShown ? [{ upper: 0, lower: 1, fill: 'rgba(10,109,140,0.22)' }] : undefined), [baseflowShown]);
+  const xAxis = useMemo(() => ({ kind: 'time' as const, timeZone: zone }), [zone]);
+  const draw = useCallback(
+    (view: PlotDrawView) => {
+      if (!points) return;
+      view.ctx.strokeStyle = view.colour('--muted', '#4a5358');
+      view.ctx.lineWidth = view.ratio;
+      view.ctx.setLineDash([3 * view.ratio, 4 * view.ratio]);
+      for (const key of KEY_ORDER) {
+        const x = view.xPos(points[key]);
+        if (!(x >= view.area.left && x <= view.area.left + view.area.width)) continue;
+        view.ctx.beginPath();
+        view.ctx.moveTo(x, view.area.top);
+        view.ctx.lineTo(x, view.area.top + view.area.height);
+        view.ctx.stroke();
+      }
+    },
     [points],
   );
+  // The event with half its length either side, until the user zooms, pans or asks for the whole window.
+  const eventView = useMemo(() => {
+    if (!foundPoints && !draft.points) return undefined;
+    const p = (draft.points ?? foundPoints)!;
+    const margin = 0.5 * (p.runoffEnd_ms - p.riseStart_ms);
+    return { min: p.riseStart_ms - margin, max: p.runoffEnd_ms + margin };
+    // Only a new window or storm moves the view; dragging a point must not.
+  }, [win?.from_ms, win?.to_ms, foundPoints === undefined, draft.reopened]);
+  const viewKey = `${win?.from_ms}-${win?.to_ms}-${draft.reopened ?? ''}-${showAll}`;
 
-  const setWindow = (which: keyof TimeWindow, text: string) => {
-    if (!win) return;
-    let time_ms: number;
-    try {
-      time_ms = fromLocalInput(text, zone);
-    } catch (e) {
-      if (e instanceof RangeError) return; // half-typed: wait for a whole time
-      throw e;
-    }
-    const next = { ...win, [which]: time_ms };
-    if (!(next.to_ms > next.from_ms)) {
-      setWindowProblem('The window must end after it starts.');
-      return;
-    }
-    setWindowProblem(undefined);
-    setSave({ status: 'idle' });
-    dispatch({ type: 'window', window: next });
-  };
+  const overlay = useCallback(
+    (g: PlotGeometry) =>
+      series && points && discharge ? (
+        <KeyPointHandles
+          geometry={g}
+          points={points}
+          time_ms={series.time_ms}
+          y={discharge}
+          timeZone={zone}
+          onMove={(key, to_ms) => dispatch({ type: 'move', key, to_ms, from: points, times: series.time_ms })}
+          onStep={(key, steps) => dispatch({ type: 'step', key, steps, from: points, times: series.time_ms })}
+        />
+      ) : null,
+    [series, points, discharge, zone],
+  );
 
-  const saveNow = async () => {
-    if (!win || !points || !result?.ok) return;
-    setSave({ status: 'saving' });
-    try {
-      await saveAnalysis({
-        siteId: site.id,
-        from_ms: win.from_ms,
-        to_ms: win.to_ms,
-        method: { ...result.value.method },
-        points,
-        ...(area === undefined ? {} : { area_km2: area }),
-        ...(rainfall_mm === undefined ? {} : { rainfall_mm }),
-        results: resultsOf(result.value.summary),
-        note: draft.note.trim(),
-      });
-      setSave({ status: 'saved', at_ms: Date.now() });
-      dispatch({ type: 'saved' });
-    } catch (e) {
-      setSave({ status: 'failed', message: e instanceof Error ? e.message : String(e) });
-    }
-  };
+  const onTap = useCallback((i: number) => setReadout(i), []);
+  const readoutText =
+    readout !== undefined && series && readout < series.time_ms.length
+      ? `${formatTime(series.time_ms[readout], zone)} · stage ${formatQuantity('stage', series.stage_m[readout], units)} · discharge ${formatQuantity('discharge', series.discharge_m3s[readout], units)}${
+          result?.ok ? ` · baseflow ${formatQuantity('discharge', result.value.baseflow_m3s[readout], units)}` : ''
+        }`
+      : undefined;
 
-  const depthUnit = displayUnit('depth', units);
   const notes = [
     ...(made?.kind === 'ready' && made.skipped > 0
       ? [`${made.skipped} manual reading${made.skipped === 1 ? '' : 's'} at the same time as a logger reading ${made.skipped === 1 ? 'was' : 'were'} left out: the logger record is used.`]
       : []),
+    ...(wasWidened && need_days ? [`The window was widened to ${need_days} days: this method needs low flows on both sides of the storm.`] : []),
     ...(draft.points === undefined && found?.ok ? found.value.notes : []),
     ...(result?.ok ? result.value.notes : []),
   ];
 
   return (
     <div class="storm">
-      <fieldset>
-        <legend>Readings window ({zone})</legend>
-        {latest.state === 'loading' && <p class="muted">Reading the site's records…</p>}
-        {latest.state === 'failed' && <p class="callout bad">{latest.message}</p>}
-        {latest.state === 'ready' && !latest.value && (
-          <p class="callout" data-testid="storm-no-readings">
-            There are no readings at this site yet. <a href="#/record">Record a reading</a> or import the logger first.
-          </p>
-        )}
-        {win && (
-          <div class="storm-window">
-            <div>
-              <label for="storm-from">From</label>
-              <input id="storm-from" type="datetime-local" value={toLocalInput(win.from_ms, zone)} onChange={(e) => setWindow('from_ms', e.currentTarget.value)} />
-            </div>
-            <div>
-              <label for="storm-to">To</label>
-              <input id="storm-to" type="datetime-local" value={toLocalInput(win.to_ms, zone)} onChange={(e) => setWindow('to_ms', e.currentTarget.value)} />
-            </div>
-          </div>
-        )}
-        {windowProblem && <p class="callout warn" role="alert">{windowProblem}</p>}
-        {made?.kind === 'ready' && (
-          <p class="hint">{series?.time_ms.length} readings with discharge in this window.</p>
-        )}
-      </fieldset>
-
+      {latest.state === 'ready' && !latest.value && (
+        <p class="callout" data-testid="storm-no-readings">
+          There are no readings at this site yet. <a href="#/record">Record a reading</a> or import the logger first.
+        </p>
+      )}
+      {storms && last_ms !== undefined && (
+        <StormList
+          last_ms={last_ms}
+          storms={storms}
+          openPeak_ms={points?.peak_ms}
+          units={units}
+          timeZone={zone}
+          days={SEARCH_DAYS}
+          onOpen={(s) => searchMade?.kind === 'ready' && last_ms !== undefined && dispatch({ type: 'storm', window: stormWindow(s.points, area, { first_ms: searchMade.series.time_ms[0], last_ms }) })}
+        />
+      )}
       {rows.state === 'failed' && <p class="callout bad">{rows.message}</p>}
       {win && made?.kind === 'empty' && <p class="callout">There are no readings in this window. Move the window to a time with readings.</p>}
       {made?.kind === 'unrated' && (
         <p class="callout warn" data-testid="storm-unrated">
-          {made.count} of the {made.total} readings in this window have no rating in force (the first at{' '}
-          {formatTime(made.firstTime_ms, zone)}), so they have no discharge and the storm cannot be worked out. Enter
-          or fit a rating for this site valid from before the window, or start the window later.
-        </p>
-      )}
-      {made?.kind === 'ready' && made.extrapolated > 0 && (
-        <p class="callout warn" data-testid="storm-extrapolated">
-          {made.extrapolated} reading{made.extrapolated === 1 ? ' is' : 's are'} outside the rating's gauged range: those
-          discharges are extrapolated, and so are the figures that use them.
+          {made.count} of the {made.total} readings in this window have no rating in force (the first at {formatTime(made.firstTime_ms, zone)}), so they
+          have no discharge and the storm cannot be worked out. Enter or fit a rating valid from before the window, or start the window later.
         </p>
       )}
       {found && !found.ok && draft.points === undefined && (
-        <p class="callout warn" role="alert">No storm event found in this window: {found.message}</p>
+        <p class="callout warn" role="alert">No storm in this window: {found.message}</p>
       )}
 
-      {result && !result.ok && (
-        <p class="callout warn" role="alert" data-testid="storm-error">The results cannot be worked out: {result.message}</p>
-      )}
-
-      {result?.ok && points && (
-        <section class="card" aria-labelledby="storm-results-heading">
-          <h3 id="storm-results-heading">Results (rise start to end of runoff)</h3>
-          <EventFigures
-            summary={result.value.summary}
-            units={units}
-            timeZone={zone}
-            depthMissing={area === undefined ? 'needs the catchment area of the site' : undefined}
-            coefficientMissing={area === undefined ? 'needs the catchment area of the site' : 'enter the rainfall depth'}
-          />
-        </section>
-      )}
-
-      {plot && (
-        <section aria-labelledby="storm-plot-heading">
-          <h3 id="storm-plot-heading">Hydrograph</h3>
-          <div class="storm-toggles">
-            <label class="choice">
-              <input type="checkbox" checked={logScale} onChange={(e) => setLogScale(e.currentTarget.checked)} />
-              Log scale (a recession is a straight line)
-            </label>
-            <label class="choice">
-              <input type="checkbox" checked={wholeWindow} onChange={(e) => setWholeWindow(e.currentTarget.checked)} />
-              Whole window
-            </label>
-          </div>
-          <Hydrograph
-            time_ms={plot.time_ms}
-            lines={plot.lines}
-            yLabel={`Discharge (${displayUnit('discharge', units)})`}
-            timeZone={zone}
-            height={220}
-            logScale={logScale}
-            markers={markers}
+      {series && discharge && (
+        <div class="storm-stage" ref={setStage}>
+          <Plot
+            x={series.time_ms}
+            xAxis={xAxis}
+            series={plotSeries}
+            bands={bands}
+            yLabel={`Discharge (${qUnit})`}
+            logY={logScale}
+            height={170}
             description={
               result?.ok && points
-                ? `Discharge and baseflow; peak ${formatQuantity('discharge', result.value.summary.peak_m3s, units)} at ${formatTime(points.peak_ms, zone)}, direct runoff from ${formatTime(points.riseStart_ms, zone)} to ${formatTime(points.runoffEnd_ms, zone)}.`
+                ? `Discharge and baseflow with the direct runoff shaded; peak ${formatQuantity('discharge', result.value.summary.peak_m3s, units)} at ${formatTime(points.peak_ms, zone)}.`
                 : 'Discharge of the readings window.'
             }
+            initialView={showAll ? undefined : eventView}
+            viewKey={viewKey}
+            onTap={onTap}
+            draw={draw}
+            overlay={overlay}
+            onApi={(a) => (api.current = a)}
+            className="storm-plot"
           />
-          {points && (
-            <dl class="facts storm-points" data-testid="key-point-times">
-              <dt>R rise start</dt>
-              <dd>{formatTime(points.riseStart_ms, zone)}</dd>
-              <dt>P peak</dt>
-              <dd>{formatTime(points.peak_ms, zone)}</dd>
-              <dt>I inflection</dt>
-              <dd>{formatTime(points.inflection_ms, zone)}</dd>
-              <dt>E end of runoff</dt>
-              <dd>{formatTime(points.runoffEnd_ms, zone)}</dd>
-            </dl>
+          <p class="readout" data-testid="readout" aria-live="polite">
+            {readoutText ?? 'Tap to read a time · drag a handle · pinch to zoom'}
+          </p>
+          {result?.ok && (
+            <ResultsStrip
+              summary={result.value.summary}
+              range={range}
+              peakExtrapolated={flags.peak}
+              volumeExtrapolated={flags.volume}
+              units={units}
+              hasArea={area !== undefined}
+              rainfall={draft.rainfall}
+              rainfallProblem={rain.problem}
+              onRainfall={(text) => dispatch({ type: 'rainfall', text })}
+            />
           )}
-        </section>
+        </div>
       )}
+      <div role="status" aria-live="polite">
+        {draft.stopped && <p class="callout warn" data-testid="point-stopped">{draft.stopped}</p>}
+      </div>
+      {result && !result.ok && (
+        <p class="callout warn" role="alert" data-testid="storm-error">The figures cannot be worked out: {result.message}</p>
+      )}
+      {'problem' in made_method && <p class="callout warn">{made_method.problem}</p>}
 
       {series && points && (
-        <>
+        <div class="storm-tools">
+          <label class="choice">
+            <input type="checkbox" checked={logScale} onChange={(e) => setLogScale(e.currentTarget.checked)} />
+            Log scale (a recession is straight)
+          </label>
+          <label class="choice">
+            <input type="checkbox" checked={showAll} onChange={(e) => setShowAll(e.currentTarget.checked)} />
+            Whole window
+          </label>
+          <button type="button" disabled={draft.points === undefined} onClick={() => dispatch({ type: 'reset' })}>
+            Reset key points
+          </button>
+        </div>
+      )}
+
+      {all && points && <MethodSpreadTable rows={all} spread={spread} chosen={draft.method.kind} units={units} range={range} se={se} />}
+
+      {series && points && (
+        <details class="card storm-method" open={!usesKeyPoints(draft.method.kind)}>
+          <summary>Baseflow method</summary>
           <SeparationPicker
             value={draft.method}
-            onChange={(method) => {
-              setSave({ status: 'idle' });
-              dispatch({ type: 'method', method });
+            problem={'problem' in made_method ? made_method.problem : undefined}
+            onKind={(kind) => {
+              // A minima method widens the window; keep the storm's points so the storm stays the same.
+              if (usesMinima(kind) && draft.points === undefined && points) dispatch({ type: 'points', points });
+              dispatch({ type: 'method', kind });
             }}
+            onConstant={(field, text) => dispatch({ type: 'constant', field, text })}
           />
-          {!usesKeyPoints(draft.method.kind) && (
-            <p class="hint">
-              A filter runs over the whole readings window; the key points only set the event whose volumes are summed.
-            </p>
-          )}
-          <label for="storm-rain">
-            Rainfall depth ({depthUnit})
-            <span class="hint" id="storm-rain-hint">
-              {area === undefined ? 'The runoff coefficient needs the catchment area: add it to the site.' : 'From the rain gauge, for the runoff coefficient.'}
-            </span>
-          </label>
-          <input
-            id="storm-rain"
-            inputMode="decimal"
-            autocomplete="off"
-            aria-describedby="storm-rain-hint"
-            aria-invalid={rain.problem ? true : undefined}
-            value={draft.rainfall}
-            onInput={(e) => dispatch({ type: 'rainfall', text: e.currentTarget.value })}
-          />
-          {rain.problem && <p class="callout warn">{rain.problem}</p>}
-          <KeyPointFields
-            value={points}
-            onChange={(next) => {
-              setSave({ status: 'idle' });
-              dispatch({ type: 'points', points: next });
-            }}
-            timeZone={zone}
-            first_ms={series.time_ms[0]}
-            last_ms={series.time_ms[series.time_ms.length - 1]}
-            edited={draft.points !== undefined}
-            onFindAgain={() => dispatch({ type: 'find-again' })}
-            crossCheck={crossCheck}
-          />
-        </>
+        </details>
       )}
 
       {notes.length > 0 && (
@@ -338,24 +340,25 @@ export function SiteStorm({ site }: { site: SiteRecord }) {
         </section>
       )}
 
-      {result?.ok && (
-        <section aria-labelledby="storm-save-heading">
-          <h3 id="storm-save-heading">Keep this analysis</h3>
-          <label for="storm-note">Note (optional)</label>
-          <textarea id="storm-note" value={draft.note} onInput={(e) => dispatch({ type: 'note', text: e.currentTarget.value })} />
-          <button type="button" class="primary wide storm-save" disabled={save.status === 'saving'} onClick={() => void saveNow()}>
-            {save.status === 'saving' ? 'Saving…' : 'Save this analysis'}
-          </button>
-          <div role="status" aria-live="polite">
-            {save.status === 'saved' && (
-              <p class="callout ok" data-testid="storm-saved">Saved on this phone at {formatTime(save.at_ms, zone)}.</p>
-            )}
-          </div>
-          {save.status === 'failed' && <p class="callout bad" role="alert">Not saved: {save.message}</p>}
-        </section>
+      {win && <WindowFields window={win} timeZone={zone} onChange={(w: TimeWindow) => dispatch({ type: 'window', window: w })} count={series?.time_ms.length} />}
+
+      {result?.ok && series && points && win && (
+        <StormActions
+          site={site}
+          draft={draft}
+          dispatch={dispatch}
+          window={win}
+          points={points as EventPoints}
+          result={result.value}
+          series={series}
+          rainfall_mm={rainfall_mm}
+          rangeLine={range}
+          se={se}
+          plot={() => api.current}
+        />
       )}
 
-      <SavedAnalyses siteId={site.id} units={units} timeZone={zone} />
+      <SavedAnalyses siteId={site.id} units={units} timeZone={zone} openId={draft.reopened} onOpen={(d) => dispatch({ type: 'reopen', draft: d })} />
     </div>
   );
 }

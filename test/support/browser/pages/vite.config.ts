@@ -12,7 +12,10 @@ export default defineConfig({
     target: 'es2022',
     rollupOptions: {
       input: {
-        index: resolve(import.meta.dirname, 'index.html'), db: resolve(import.meta.dirname, 'db.html'), logger: resolve(import.meta.dirname, 'logger.html'),
+        index: resolve(import.meta.dirname, 'index.html'),
+        db: resolve(import.meta.dirname, 'db.html'),
+        logger: resolve(import.meta.dirname, 'logger.html'),
+        plot: resolve(import.meta.dirname, 'plot.html'),
       },
     },
   },

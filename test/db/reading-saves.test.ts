@@ -2,11 +2,11 @@
 // (a crash right after Save cannot offer a saved reading again), a stale edit is refused instead of
 // silently winning, and a saved reading cannot move to another site.
 import { describe, expect, it } from 'vitest';
-import { deleteReading, getDraft, getReading, listReadings, saveDraft, saveReading, saveSite } from '../../web/db/index';
+import { deleteReading, getDraft, getReading, latestReading, listReadings, saveDraft, saveReading, saveSite } from '../../web/db/index';
 import { useFreshDb } from '../support/db';
 import { reading, site, T0 } from '../support/records';
 
-useFreshDb();
+const { clock } = useFreshDb();
 
 describe('saveReading from the form', () => {
   it('removes the form draft in the same transaction, and keeps it when the save fails', async () => {
@@ -41,5 +41,17 @@ describe('saveReading from the form', () => {
     expect(err).toMatchObject({ name: 'StorageError', reason: 'moved' });
     expect((err as Error).message).toMatch(/cannot be moved to another site/);
     expect((await getReading(r.id))?.siteId).toBe(a.id);
+  });
+});
+
+describe('a reading typed far in the future', () => {
+  it('stays in the site list but is not the latest reading that sets the default windows', async () => {
+    const s = await saveSite(site());
+    const now = clock.now; // the device clock of the test: 2027-03-01
+    const today = await saveReading(reading(s.id, now - 3_600_000, 0.7));
+    const typo = await saveReading(reading(s.id, Date.UTC(2037, 2, 1), 0.71)); // 2037 for 2027
+    const soon = await saveReading(reading(s.id, now + 3_600_000, 0.72)); // an hour ahead: a clock a little off
+    expect((await listReadings(s.id, now - 86_400_000, Infinity)).map((r) => r.id)).toEqual([today.id, soon.id, typo.id]);
+    expect((await latestReading(s.id))?.id).toBe(soon.id);
   });
 });

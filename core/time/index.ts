@@ -1,3 +1,4 @@
 // Times in a site's zone: UTC ms inside, wall-clock time at the screen edge.
 export { wallTimeAt, zoneOffset_min, instantOf, toLocalInput, fromLocalInput, toIsoWithOffset, type WallTime } from './zoned';
+export { clockChanges, type ClockChange } from './clock-changes';
 export { MS_PER_DAY, MS_PER_HOUR } from './day';

@@ -14,6 +14,8 @@ export interface ReadingForm {
   observer: string;
   note: string;
   gps?: GpsFix;
+  /** The logger's value typed beside a check reading (display units); absent when the reading is not a check. */
+  loggerCheckText?: string;
   /** Set when editing a stored reading: the reading as stored when the form opened. */
   editing?: EditBase;
 }
@@ -34,6 +36,7 @@ export type FormAction =
   | { type: 'source'; value: ReadingSource }
   | { type: 'quality'; value: ReadingQuality }
   | { type: 'gps'; value: GpsFix | undefined }
+  | { type: 'loggerCheck'; value: string | undefined }
   | { type: 'replace'; form: ReadingForm }
   | { type: 'saved' };
 
@@ -43,9 +46,10 @@ export function blankForm(observer: string): ReadingForm {
 }
 
 /** The form of a stored reading being edited, its stage and time shown as the texts given. */
-export function formOfReading(r: ReadingRecord, stageText: string, timeText: string): ReadingForm {
+export function formOfReading(r: ReadingRecord, stageText: string, timeText: string, loggerCheckText?: string): ReadingForm {
   return {
     stageText, timeText, source: r.source, quality: r.quality, observer: r.observer, note: r.note, gps: r.gps,
+    ...(loggerCheckText !== undefined && { loggerCheckText }),
     editing: { id: r.id, rev: r.rev, stage_m: r.stage_m, time_ms: r.time_ms, stageText, timeText },
   };
 }
@@ -93,6 +97,10 @@ export function formReducer(form: ReadingForm, action: FormAction): ReadingForm 
       return { ...form, quality: action.value };
     case 'gps':
       return { ...form, gps: action.value };
+    case 'loggerCheck': {
+      const { loggerCheckText: _old, ...rest } = form;
+      return action.value === undefined ? rest : { ...rest, loggerCheckText: action.value };
+    }
     case 'replace':
       return action.form;
     case 'saved':
@@ -108,6 +116,7 @@ export function toDraftFields(form: ReadingForm): { [key: string]: JsonValue } {
     observer: form.observer, note: form.note,
   };
   if (form.gps) fields.gps = { ...form.gps };
+  if (form.loggerCheckText !== undefined) fields.loggerCheckText = form.loggerCheckText;
   if (form.editing) {
     fields.readingId = form.editing.id;
     fields.editing = { ...form.editing };
@@ -130,6 +139,7 @@ export function fromDraftFields(fields: { [key: string]: JsonValue }, observer: 
     observer: text('observer', observer),
     note: text('note', ''),
     ...(gpsOk && { gps: { lat: gps.lat, lon: gps.lon, accuracy_m: gps.accuracy_m, time_ms: gps.time_ms } }),
+    ...(typeof fields.loggerCheckText === 'string' && { loggerCheckText: fields.loggerCheckText }),
     ...(editing && { editing }),
   };
 }
@@ -144,5 +154,5 @@ function editBaseOf(x: JsonValue | undefined): EditBase | undefined {
 
 /** Whether the form holds anything worth keeping as a draft. */
 export function hasContent(form: ReadingForm): boolean {
-  return form.stageText.trim() !== '' || form.note.trim() !== '' || form.timeText !== '' || !!form.gps;
+  return form.stageText.trim() !== '' || form.note.trim() !== '' || form.timeText !== '' || !!form.gps || !!form.loggerCheckText?.trim();
 }

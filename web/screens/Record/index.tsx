@@ -13,6 +13,7 @@ import {
 import { useRecords } from '../../db/use-records';
 import { onBeforeUpdate } from '../../app/updates';
 import { Cautions } from '../../components/Cautions';
+import { LoggerCheck, loggerCheckValue } from '../../components/LoggerCheck';
 import { describedBy, Field } from '../../components/Field';
 import { formatQuantity, formatTime } from '../../format';
 import { href, navigate, type ScreenProps } from '../../router';
@@ -91,7 +92,8 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
         const r = await getReading(readingId);
         if (!live) return;
         if (r) {
-          const loaded = formOfReading(r, toDisplay('stage', r.stage_m, u).toFixed(STAGE_DECIMALS[u]), toLocalInput(r.time_ms, site.timeZone));
+          const shown = (m: number) => toDisplay('stage', m, u).toFixed(STAGE_DECIMALS[u]);
+          const loaded = formOfReading(r, shown(r.stage_m), toLocalInput(r.time_ms, site.timeZone), r.loggerCheck && shown(r.loggerCheck.logger_m));
           written.current = loaded;
           dispatch({ type: 'replace', form: loaded });
         } else setError({ text: 'That reading is not on this phone any more.' });
@@ -187,6 +189,15 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       setError({ field: 'time', text: ('error' in time && time.error) || 'The time could not be read yet; try again.' });
       return;
     }
+    const loggerCheck = loggerCheckValue(form.loggerCheckText, u);
+    if (form.loggerCheckText !== undefined && !(loggerCheck && 'logger_m' in loggerCheck)) {
+      setError({ field: 'logger-value', text: (loggerCheck && 'error' in loggerCheck && loggerCheck.error) || 'Type the value the logger shows, or untick the check.' });
+      return;
+    }
+    if (loggerCheck && form.source === 'logger') {
+      setError({ field: 'logger-value', text: 'A check compares the logger with a gauge: choose the gauge you read in “Read from”.' });
+      return;
+    }
     // A time more than a day ahead is most likely a typing slip in the date: ask before keeping it.
     if (t > now + MS_PER_DAY && futureOk !== t) {
       setError({ field: 'future', text: `The time ${formatTime(t, site.timeZone)} is more than a day ahead of this phone's clock. Check the date.` });
@@ -203,6 +214,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
           siteId: site.id, time_ms: t, stage_m: stage.stage_m, source: form.source, quality: form.quality,
           observer: form.observer.trim(), note: form.note.trim(), warnings: check.warnings.map((w) => w.text),
           ...(form.gps && { gps: form.gps }),
+          ...(loggerCheck && 'logger_m' in loggerCheck && { loggerCheck: { logger_m: loggerCheck.logger_m } }),
         },
         { draftId: draftId.current, expectedRev: form.editing?.rev },
       );
@@ -337,6 +349,8 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
           </select>
         </Field>
       </div>
+      <LoggerCheck value={form.loggerCheckText} stage_m={'stage_m' in stage ? stage.stage_m : undefined} units={u}
+        error={error?.field === 'logger-value' ? error.text : undefined} onChange={(value) => dispatch({ type: 'loggerCheck', value })} />
       <Field id="observer" label="Observer">
         <input id="observer" autoComplete="name" enterKeyHint="next" value={form.observer} onInput={(e) => dispatch({ type: 'set', field: 'observer', value: e.currentTarget.value })} />
       </Field>
@@ -364,7 +378,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
               {saved.id && <> <button type="button" onClick={() => void undoSave(saved.id!)}>Undo</button></>}
             </p>
           )}
-          {error && error.field !== 'stage' && error.field !== 'time' && (
+          {error && error.field !== 'stage' && error.field !== 'time' && error.field !== 'logger-value' && (
             <p class="callout bad" role="alert">
               {error.text}
               {error.field === 'future' && t !== undefined && <> <button type="button" onClick={() => setFutureOk(t)}>Keep this time</button></>}

@@ -1,5 +1,5 @@
 // Recession constant from a recession segment: Q_t = Q₀·k^t with t in days, and K = −1/ln k.
-import { prepareSeries, type Series } from './series';
+import { MS_PER_DAY, prepareSeries, type Series } from './series';
 
 /** Recession fit: k per day (0 < k < 1), K = −1/ln k (days), Q₀ (m³/s at from_ms) and the readings used. */
 export interface RecessionFit {
@@ -25,7 +25,7 @@ export function recessionConstant(series: Series, from_ms: number, to_ms: number
   let sxy = 0;
   for (let i = 0; i < t.length; i++) {
     if (t[i] < from_ms || t[i] > to_ms || missing[i] || !(q[i] > 0)) continue;
-    const x = (t[i] - from_ms) / 86_400_000;
+    const x = (t[i] - from_ms) / MS_PER_DAY;
     const y = Math.log(q[i]);
     n++;
     sx += x;

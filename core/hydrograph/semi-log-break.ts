@@ -1,4 +1,5 @@
 // The end of direct runoff as the break between two straight lines fitted to ln Q on the recession.
+import { MS_PER_DAY } from './series';
 
 /**
  * Time (UTC ms) where the recession after from_ms (up to reading last) becomes straight on a semi-log plot:
@@ -12,7 +13,7 @@ export function semiLogBreak(t: Float64Array, q: Float64Array, from_ms: number, 
   const ys: number[] = [];
   for (let i = first; i <= last; i++) {
     if (q[i] > 0) {
-      xs.push((t[i] - t[first]) / 86_400_000);
+      xs.push((t[i] - t[first]) / MS_PER_DAY);
       ys.push(Math.log(q[i]));
     }
   }
@@ -46,5 +47,5 @@ export function semiLogBreak(t: Float64Array, q: Float64Array, from_ms: number, 
       best = split;
     }
   }
-  return t[first] + xs[best] * 86_400_000;
+  return t[first] + xs[best] * MS_PER_DAY;
 }

@@ -2,7 +2,9 @@
 // Every write goes through readings-write.ts.
 import type { ReadingRecord } from '../../core/records/index';
 import type { IDBPIndex } from 'idb';
+import { MS_PER_DAY } from '../../core/time/index';
 import { withDb } from './connection';
+import { now_ms } from './clock';
 import type { FreshetDB } from './schema';
 import { getIn, listRange, type ReadOptions } from './records';
 
@@ -14,16 +16,23 @@ export function listReadings(siteId: string, from_ms: number, to_ms: number, opt
   return listRange('readings', 'by-site-time', [siteId, from_ms], [siteId, to_ms], options);
 }
 
-/** The most recent reading of a site that is not deleted, or undefined. */
+/**
+ * A reading more than this far ahead of the device clock (ms) is not a site's "latest": most likely a
+ * typing slip in the date, it must not move the default storm and export windows (it stays in the lists).
+ */
+export const LATEST_AHEAD_MS = MS_PER_DAY;
+
+/** The most recent reading of a site that is not deleted and not more than a day ahead of the clock, or undefined. */
 export async function latestReading(siteId: string): Promise<ReadingRecord | undefined> {
   return (await latestReadings([siteId])).get(siteId);
 }
 
-/** The most recent non-deleted reading of each given site, in one read transaction (for the sites list). */
+/** The most recent non-deleted reading (not more than a day ahead of the clock) of each given site, in one read transaction. */
 export function latestReadings(siteIds: readonly string[]): Promise<Map<string, ReadingRecord>> {
+  const upTo = now_ms() + LATEST_AHEAD_MS;
   return withDb(async (db) => {
     const index = db.transaction('readings').store.index('by-site-time');
-    const found = await Promise.all(siteIds.map((siteId) => lastBefore(index, siteId, Infinity)));
+    const found = await Promise.all(siteIds.map((siteId) => lastBefore(index, siteId, upTo)));
     const out = new Map<string, ReadingRecord>();
     found.forEach((r, i) => r && out.set(siteIds[i], r));
     return out;

@@ -1,5 +1,9 @@
 // The reading form's state and its typed actions: the screen owns this draft through useReducer.
-import { isReadingQuality, isReadingSource, type GpsFix, type JsonValue, type ReadingQuality, type ReadingRecord, type ReadingSource } from '../../../core';
+import {
+  fromDisplay, fromLocalInput, isReadingQuality, isReadingSource, type GpsFix, type JsonValue, type ReadingQuality, type ReadingRecord,
+  type ReadingSource, type UnitSystem,
+} from '../../../core';
+import { parseDecimal } from '../../format';
 
 /** What the technician has typed so far. `timeText` is empty while the time follows the clock. */
 export interface ReadingForm {
@@ -12,8 +16,18 @@ export interface ReadingForm {
   gps?: GpsFix;
   /** The logger's value typed beside a check reading (display units); absent when the reading is not a check. */
   loggerCheckText?: string;
-  /** Set when editing a stored reading. */
-  readingId?: string;
+  /** Set when editing a stored reading: the reading as stored when the form opened. */
+  editing?: EditBase;
+}
+
+/** A stored reading as an edit form opened it: id, rev, the stored stage (m) and time (UTC ms), and the texts first shown for them. */
+export interface EditBase {
+  id: string;
+  rev: string;
+  stage_m: number;
+  time_ms: number;
+  stageText: string;
+  timeText: string;
 }
 
 /** Changes to the form. */
@@ -31,12 +45,45 @@ export function blankForm(observer: string): ReadingForm {
   return { stageText: '', timeText: '', source: 'staff', quality: 'good', observer, note: '' };
 }
 
-/** The form of a stored reading being edited (stage and time shown as typed values). */
+/** The form of a stored reading being edited, its stage and time shown as the texts given. */
 export function formOfReading(r: ReadingRecord, stageText: string, timeText: string, loggerCheckText?: string): ReadingForm {
   return {
-    stageText, timeText, source: r.source, quality: r.quality, observer: r.observer, note: r.note, gps: r.gps, readingId: r.id,
+    stageText, timeText, source: r.source, quality: r.quality, observer: r.observer, note: r.note, gps: r.gps,
     ...(loggerCheckText !== undefined && { loggerCheckText }),
+    editing: { id: r.id, rev: r.rev, stage_m: r.stage_m, time_ms: r.time_ms, stageText, timeText },
   };
+}
+
+/** What the stage field means: nothing yet, a stage in m, or why not. */
+export type StageValue = { empty: true } | { stage_m: number } | { error: string };
+
+/**
+ * The stage (m) the form means. While an edit's stage text is as first shown, the stored stage exactly
+ * (the text is rounded for display); otherwise the typed number in the site's units.
+ */
+export function stageOf(form: ReadingForm, units: UnitSystem): StageValue {
+  if (form.editing && form.stageText === form.editing.stageText) return { stage_m: form.editing.stage_m };
+  if (!form.stageText.trim()) return { empty: true };
+  const v = parseDecimal(form.stageText);
+  return v === undefined ? { error: `Type the stage as a number, like ${units === 'us' ? '2.41' : '0.734'}.` } : { stage_m: fromDisplay('stage', v, units) };
+}
+
+/** What the time field means: a time in UTC ms (following the clock when empty), or why not. */
+export type TimeValue = { time_ms: number; followsClock: boolean } | { error: string };
+
+/**
+ * The time (UTC ms) the form means. While an edit's time text is as first shown, the stored time exactly
+ * (the text drops seconds, and a wall time in a repeated hour names two instants); an empty text
+ * follows the clock now_ms (to the whole second); otherwise the typed wall time in the site's zone.
+ */
+export function timeOf(form: ReadingForm, timeZone: string, now_ms: number): TimeValue {
+  if (form.editing && form.timeText === form.editing.timeText) return { time_ms: form.editing.time_ms, followsClock: false };
+  if (!form.timeText) return { time_ms: Math.floor(now_ms / 1000) * 1000, followsClock: true };
+  try {
+    return { time_ms: fromLocalInput(form.timeText, timeZone), followsClock: false };
+  } catch (err) {
+    return { error: err instanceof Error ? err.message : String(err) };
+  }
 }
 
 /** The reducer behind the reading form. */
@@ -69,8 +116,11 @@ export function toDraftFields(form: ReadingForm): { [key: string]: JsonValue } {
     observer: form.observer, note: form.note,
   };
   if (form.gps) fields.gps = { ...form.gps };
-  if (form.readingId) fields.readingId = form.readingId;
   if (form.loggerCheckText !== undefined) fields.loggerCheckText = form.loggerCheckText;
+  if (form.editing) {
+    fields.readingId = form.editing.id;
+    fields.editing = { ...form.editing };
+  }
   return fields;
 }
 
@@ -79,6 +129,7 @@ export function fromDraftFields(fields: { [key: string]: JsonValue }, observer: 
   const text = (k: string, d: string) => (typeof fields[k] === 'string' ? (fields[k] as string) : d);
   const base = blankForm(observer);
   const gps = fields.gps as unknown as GpsFix | undefined;
+  const editing = editBaseOf(fields.editing);
   const gpsOk = !!gps && typeof gps === 'object' && [gps.lat, gps.lon, gps.accuracy_m, gps.time_ms].every((v) => typeof v === 'number' && Number.isFinite(v));
   return {
     stageText: text('stageText', ''),
@@ -88,9 +139,17 @@ export function fromDraftFields(fields: { [key: string]: JsonValue }, observer: 
     observer: text('observer', observer),
     note: text('note', ''),
     ...(gpsOk && { gps: { lat: gps.lat, lon: gps.lon, accuracy_m: gps.accuracy_m, time_ms: gps.time_ms } }),
-    ...(typeof fields.readingId === 'string' && { readingId: fields.readingId }),
     ...(typeof fields.loggerCheckText === 'string' && { loggerCheckText: fields.loggerCheckText }),
+    ...(editing && { editing }),
   };
+}
+
+function editBaseOf(x: JsonValue | undefined): EditBase | undefined {
+  if (typeof x !== 'object' || x === null || Array.isArray(x)) return undefined;
+  const { id, rev, stage_m, time_ms, stageText, timeText } = x;
+  if (typeof id !== 'string' || typeof rev !== 'string' || typeof stageText !== 'string' || typeof timeText !== 'string') return undefined;
+  if (typeof stage_m !== 'number' || !Number.isFinite(stage_m) || typeof time_ms !== 'number' || !Number.isFinite(time_ms)) return undefined;
+  return { id, rev, stage_m, time_ms, stageText, timeText };
 }
 
 /** Whether the form holds anything worth keeping as a draft. */

@@ -1,26 +1,30 @@
-// Record a stage reading in a few taps: a big stage field, the time (now, or edited in the site's
-// zone), source, quality, observer, note and an optional location. The discharge from the rating in
-// force appears as the stage is typed, with plain warnings that never block saving. A half-filled form
-// is kept as a draft on every change and restored when the app reopens.
+// Record a stage reading in a few taps: the stage field has focus, the time follows the clock (or is
+// edited in the site's zone), then source, quality, observer, note and an optional location. Save and
+// the live discharge sit in a bar at the bottom, in thumb reach. The form is kept as a draft from the
+// first keystroke; the draft is removed in the same transaction that stores the reading.
 import { useEffect, useMemo, useReducer, useRef, useState } from 'preact/hooks';
 import {
-  checkReading, fromDisplay, hasDischarge, STAGE_DECIMALS, fromLocalInput, displayUnit, READING_QUALITIES, READING_SOURCES, RecordValidationError,
+  checkReading, displayUnit, hasDischarge, MS_PER_DAY, READING_QUALITIES, READING_SOURCES, RecordValidationError, STAGE_DECIMALS,
   toDisplay, toLocalInput, type ReadingQuality, type ReadingSource, type SiteRecord,
 } from '../../../core';
-import { discardDraft, getReading, getSite, listDrafts, listRatings, listSites, readingBefore, saveDraft, saveReading, StorageError } from '../../db';
-import type { ScreenProps } from '../../router';
-import { onBeforeUpdate } from '../../app/updates';
+import {
+  deleteReading, getReading, getSite, listDrafts, listRatings, readingBefore, saveDraft, saveReading, StorageError, discardDraft,
+} from '../../db';
 import { useRecords } from '../../db/use-records';
+import { onBeforeUpdate } from '../../app/updates';
 import { Cautions } from '../../components/Cautions';
 import { LoggerCheck, loggerCheckValue } from '../../components/LoggerCheck';
 import { describedBy, Field } from '../../components/Field';
-import { formatQuantity, formatTime, parseDecimal } from '../../format';
-import { href, navigate } from '../../router';
-import { blankForm, formOfReading, formReducer, fromDraftFields, hasContent, toDraftFields, type ReadingForm } from './form';
+import { formatQuantity, formatTime } from '../../format';
+import { href, navigate, type ScreenProps } from '../../router';
+import { ChooseSite } from './choose-site';
+import { isOtherTabOpen, tabId } from './draft-owner';
+import { blankForm, formOfReading, formReducer, fromDraftFields, hasContent, stageOf, timeOf, toDraftFields, type ReadingForm } from './form';
 import './style.css';
 
 const OBSERVER_KEY = 'freshet.observer';
-const DRAFT_DELAY_MS = 300;
+/** How long "Saved" offers its undo, ms. */
+const UNDO_MS = 8_000;
 
 const SOURCE_LABELS: Record<ReadingSource, string> = { staff: 'Staff gauge', 'wire-weight': 'Wire-weight gauge', 'crest-stage': 'Crest-stage gauge', logger: 'Logger display' };
 const QUALITY_LABELS: Record<ReadingQuality, string> = { good: 'Good', fair: 'Fair', poor: 'Poor', estimated: 'Estimated' };
@@ -43,73 +47,6 @@ function useClock(): number {
   return now;
 }
 
-/** Great-circle distance in km between two points (haversine, mean Earth radius 6371.0088 km). */
-function distance_km(a: { lat: number; lon: number }, b: { lat: number; lon: number }): number {
-  const rad = Math.PI / 180;
-  const dLat = (b.lat - a.lat) * rad;
-  const dLon = (b.lon - a.lon) * rad;
-  const h = Math.sin(dLat / 2) ** 2 + Math.cos(a.lat * rad) * Math.cos(b.lat * rad) * Math.sin(dLon / 2) ** 2;
-  return 2 * 6371.0088 * Math.asin(Math.min(1, Math.sqrt(h)));
-}
-
-/** Picks the site to record at, when the route names none; nearest first once the location is known. */
-function ChooseSite() {
-  const sites = useRecords(() => listSites(), ['site'], []);
-  const [here, setHere] = useState<{ lat: number; lon: number }>();
-  const [locating, setLocating] = useState<string>();
-  const ordered = useMemo(() => {
-    if (sites.state !== 'ready') return [];
-    const withKm = sites.value.map((s) => ({ s, km: here && s.location ? distance_km(here, s.location) : undefined }));
-    if (here) withKm.sort((a, b) => (a.km ?? Infinity) - (b.km ?? Infinity));
-    return withKm;
-  }, [sites, here]);
-  return (
-    <>
-      <h2 id="screen-title" tabIndex={-1}>Record a reading</h2>
-      {sites.state === 'loading' && <p aria-busy="true">Reading the sites…</p>}
-      {sites.state === 'failed' && <p class="callout bad" role="alert">{sites.message}</p>}
-      {sites.state === 'ready' && sites.value.length === 0 && (
-        <p>There is no site on this phone yet. <a href={href('sites')}>Add a site or load the demo site</a> first.</p>
-      )}
-      {sites.state === 'ready' && sites.value.length > 0 && (
-        <>
-          <p>Which site are you at?</p>
-          {'geolocation' in navigator && !here && (
-            <button
-              type="button"
-              class="wide"
-              onClick={() => {
-                setLocating('Finding your location…');
-                navigator.geolocation.getCurrentPosition(
-                  (p) => {
-                    setHere({ lat: p.coords.latitude, lon: p.coords.longitude });
-                    setLocating(undefined);
-                  },
-                  (err) => setLocating(`No location (${err.message}); the sites stay in code order.`),
-                  { enableHighAccuracy: false, timeout: 20_000, maximumAge: 300_000 },
-                );
-              }}
-            >
-              Nearest first
-            </button>
-          )}
-          {locating && <p class="muted" role="status">{locating}</p>}
-          <ul class="list card" aria-label="Sites">
-            {ordered.map(({ s, km }) => (
-              <li key={s.id}>
-                <a class="item" href={href('record', s.id)}>
-                  <span><strong>{s.name}</strong><span class="hint">{s.code}</span></span>
-                  <span>{km !== undefined ? `${km < 10 ? km.toFixed(1) : Math.round(km)} km` : <span aria-hidden="true">›</span>}</span>
-                </a>
-              </li>
-            ))}
-          </ul>
-        </>
-      )}
-    </>
-  );
-}
-
 /** The reading form for one site; with readingId it edits that reading. */
 function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: string }) {
   const u = site.displayUnits;
@@ -117,23 +54,33 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   const [ready, setReady] = useState(false);
   const [restoredAt, setRestoredAt] = useState<number>();
   const [saving, setSaving] = useState(false);
-  const [saved, setSaved] = useState<string>();
+  const [saved, setSaved] = useState<{ text: string; id?: string }>();
   const [error, setError] = useState<{ field?: string; text: string }>();
+  const [futureOk, setFutureOk] = useState<number>();
   const [gpsState, setGpsState] = useState<string>();
   const draftId = useRef<string | undefined>(undefined);
-  const pendingDraft = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
   const formRef = useRef(form);
   formRef.current = form;
-  /** The form as last written to the draft (or restored from it): nothing to flush while they match. */
+  /** The form as last written to the draft (or restored from it): nothing to write while they match. */
   const written = useRef<ReadingForm>(form);
+  const writing = useRef<Promise<void> | undefined>(undefined);
+  const savingRef = useRef(false);
+  const stageInput = useRef<HTMLInputElement>(null);
+  const noteInput = useRef<HTMLTextAreaElement>(null);
   const now = useClock();
 
-  // Open: restore this site's draft (for the same reading) or load the reading being edited.
+  // Open: restore this form's draft (of this tab, or of a tab that is gone), or load the reading edited.
   useEffect(() => {
     let live = true;
     void (async () => {
-      const drafts = await listDrafts('reading', site.id);
-      const draft = drafts.find((d) => (d.fields.readingId ?? undefined) === readingId);
+      const drafts = (await listDrafts('reading', site.id)).filter((d) => (d.fields.readingId ?? undefined) === readingId);
+      let draft;
+      for (const d of drafts) {
+        const owner = d.fields.tab;
+        if (typeof owner === 'string' && (await isOtherTabOpen(owner))) continue;
+        draft = d;
+        break;
+      }
       if (!live) return;
       if (draft) {
         draftId.current = draft.id;
@@ -144,9 +91,12 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       } else if (readingId) {
         const r = await getReading(readingId);
         if (!live) return;
-        const shown = (m: number) => toDisplay('stage', m, u).toFixed(STAGE_DECIMALS[u]);
-        if (r) dispatch({ type: 'replace', form: formOfReading(r, shown(r.stage_m), toLocalInput(r.time_ms, site.timeZone), r.loggerCheck && shown(r.loggerCheck.logger_m)) });
-        else setError({ text: 'That reading is not on this phone any more.' });
+        if (r) {
+          const shown = (m: number) => toDisplay('stage', m, u).toFixed(STAGE_DECIMALS[u]);
+          const loaded = formOfReading(r, shown(r.stage_m), toLocalInput(r.time_ms, site.timeZone), r.loggerCheck && shown(r.loggerCheck.logger_m));
+          written.current = loaded;
+          dispatch({ type: 'replace', form: loaded });
+        } else setError({ text: 'That reading is not on this phone any more.' });
       }
       setReady(true);
     })();
@@ -154,6 +104,9 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       live = false;
     };
   }, [site.id, readingId]);
+  useEffect(() => {
+    if (ready) stageInput.current?.focus({ preventScroll: true });
+  }, [ready]);
 
   const writeDraft = async (f: ReadingForm): Promise<void> => {
     written.current = f;
@@ -165,25 +118,26 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       }
       return;
     }
-    const d = await saveDraft({ ...(draftId.current && { id: draftId.current }), form: 'reading', siteId: site.id, fields: toDraftFields(f) });
+    const fields = { ...toDraftFields(f), tab: tabId() };
+    const d = await saveDraft({ ...(draftId.current && { id: draftId.current }), form: 'reading', siteId: site.id, fields });
     draftId.current = d.id;
   };
-  /** Writes the form to the draft now if it changed since the last write (before an update, on hide, on leave). */
-  const flushDraft = async (): Promise<void> => {
-    clearTimeout(pendingDraft.current);
-    pendingDraft.current = undefined;
-    if (formRef.current === written.current) return;
-    await writeDraft(formRef.current);
+  /** Writes the form to the draft at once; changes made while a write is under way go in the next one. */
+  const pump = (): void => {
+    if (writing.current || savingRef.current || formRef.current === written.current) return;
+    writing.current = writeDraft(formRef.current)
+      .catch((err: unknown) => setError({ text: `The draft could not be kept: ${err instanceof Error ? err.message : String(err)}` }))
+      .finally(() => {
+        writing.current = undefined;
+        pump();
+      });
   };
-
-  // Keep the draft on every change (debounced), before an accepted update, and when the app is hidden.
+  const flushDraft = async (): Promise<void> => {
+    pump();
+    while (writing.current) await writing.current;
+  };
   useEffect(() => {
-    if (!ready) return;
-    clearTimeout(pendingDraft.current);
-    pendingDraft.current = setTimeout(() => {
-      pendingDraft.current = undefined;
-      void writeDraft(formRef.current).catch((err: unknown) => setError({ text: `The draft could not be kept: ${String(err)}` }));
-    }, DRAFT_DELAY_MS);
+    if (ready) pump();
   }, [form, ready]);
   useEffect(() => {
     const stopUpdate = onBeforeUpdate(flushDraft);
@@ -195,21 +149,14 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       void flushDraft();
     };
   }, []);
+  useEffect(() => {
+    if (!saved?.id) return;
+    const t = setTimeout(() => setSaved((s) => (s ? { text: s.text } : s)), UNDO_MS);
+    return () => clearTimeout(t);
+  }, [saved]);
 
-  // What the typed values mean: stage in m, time in UTC ms (or why not).
-  const stage = useMemo(() => {
-    if (!form.stageText.trim()) return { empty: true as const };
-    const v = parseDecimal(form.stageText);
-    return v === undefined ? { error: `Type the stage as a number, like ${u === 'us' ? '2.41' : '0.734'}.` } : { stage_m: fromDisplay('stage', v, u) };
-  }, [form.stageText, u]);
-  const time = useMemo(() => {
-    if (!form.timeText) return { time_ms: Math.floor(now / 1000) * 1000, followsClock: true };
-    try {
-      return { time_ms: fromLocalInput(form.timeText, site.timeZone), followsClock: false };
-    } catch (err) {
-      return { error: (err as Error).message };
-    }
-  }, [form.timeText, now, site.timeZone]);
+  const stage = useMemo(() => stageOf(form, u), [form.stageText, form.editing, u]);
+  const time = useMemo(() => timeOf(form, site.timeZone, now), [form.timeText, form.editing, now, site.timeZone]);
   const t = 'time_ms' in time ? time.time_ms : undefined;
   const context = useRecords(
     async () => {
@@ -224,17 +171,18 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
     if (!('stage_m' in stage) || t === undefined || context.state !== 'ready' || !context.value) return undefined;
     const { ratings, previous } = context.value;
     return checkReading({
-      stage_m: stage.stage_m!, time_ms: t, now_ms: now, jumpLimit_m: site.jumpLimit_m, units: u,
+      stage_m: stage.stage_m, time_ms: t, now_ms: now, jumpLimit_m: site.jumpLimit_m, units: u, ratings,
       previous: previous && { stage_m: previous.stage_m, time_ms: previous.time_ms },
-      ratings,
     });
   }, [stage, t, now, context, site.jumpLimit_m, u]);
+  const jump = !!check?.warnings.some((w) => w.code === 'jump');
 
   async function onSave(e: Event) {
     e.preventDefault();
     setSaved(undefined);
     if (!('stage_m' in stage)) {
       setError({ field: 'stage', text: ('error' in stage && stage.error) || 'Type the stage first.' });
+      stageInput.current?.focus();
       return;
     }
     if (t === undefined || !check) {
@@ -250,39 +198,59 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       setError({ field: 'logger-value', text: 'A check compares the logger with a gauge: choose the gauge you read in “Read from”.' });
       return;
     }
+    // A time more than a day ahead is most likely a typing slip in the date: ask before keeping it.
+    if (t > now + MS_PER_DAY && futureOk !== t) {
+      setError({ field: 'future', text: `The time ${formatTime(t, site.timeZone)} is more than a day ahead of this phone's clock. Check the date.` });
+      return;
+    }
     setSaving(true);
     setError(undefined);
     try {
-      await flushDraft(); // the draft stays until the reading itself is safely stored
-      const record = await saveReading({
-        ...(form.readingId && { id: form.readingId }),
-        siteId: site.id, time_ms: t, stage_m: stage.stage_m!, source: form.source, quality: form.quality,
-        observer: form.observer.trim(), note: form.note.trim(), warnings: check.warnings.map((w) => w.text),
-        ...(form.gps && { gps: form.gps }),
-        ...(loggerCheck && 'logger_m' in loggerCheck && { loggerCheck: { logger_m: loggerCheck.logger_m } }),
-      });
+      await flushDraft(); // the draft stays until the reading itself is stored, in the same transaction
+      savingRef.current = true;
+      const record = await saveReading(
+        {
+          ...(form.editing && { id: form.editing.id }),
+          siteId: site.id, time_ms: t, stage_m: stage.stage_m, source: form.source, quality: form.quality,
+          observer: form.observer.trim(), note: form.note.trim(), warnings: check.warnings.map((w) => w.text),
+          ...(form.gps && { gps: form.gps }),
+          ...(loggerCheck && 'logger_m' in loggerCheck && { loggerCheck: { logger_m: loggerCheck.logger_m } }),
+        },
+        { draftId: draftId.current, expectedRev: form.editing?.rev },
+      );
+      draftId.current = undefined;
       try {
         localStorage.setItem(OBSERVER_KEY, record.observer);
       } catch {
         // No local storage: the observer is simply not remembered.
       }
-      if (draftId.current) {
-        const id = draftId.current;
-        draftId.current = undefined;
-        await discardDraft(id);
-      }
-      clearTimeout(pendingDraft.current);
-      pendingDraft.current = undefined;
       const q = !hasDischarge(check.discharge_m3s) ? 'no discharge (no rating)' : formatQuantity('discharge', check.discharge_m3s, u) + (check.extrapolated ? ', extrapolated' : '');
-      setSaved(`Saved: ${formatQuantity('stage', record.stage_m, u)} at ${formatTime(record.time_ms, site.timeZone)}, ${q}.`);
+      const text = `Saved: ${formatQuantity('stage', record.stage_m, u)} at ${formatTime(record.time_ms, site.timeZone)}, ${q}.`;
       setRestoredAt(undefined);
-      if (form.readingId) navigate(href('sites', site.id), true);
-      else dispatch({ type: 'saved' });
+      setFutureOk(undefined);
+      if (form.editing) navigate(href('sites', site.id), true);
+      else {
+        const next = formReducer(form, { type: 'saved' });
+        written.current = next;
+        dispatch({ type: 'replace', form: next });
+        setSaved({ text, id: record.id });
+        stageInput.current?.focus({ preventScroll: true });
+      }
     } catch (err) {
       if (err instanceof RecordValidationError) setError({ field: err.field.startsWith('stage') ? 'stage' : err.field.startsWith('time') ? 'time' : undefined, text: `Not saved: ${err.message}` });
       else setError({ text: err instanceof StorageError ? err.message : `Not saved: ${String(err)}` });
     } finally {
+      savingRef.current = false;
       setSaving(false);
+    }
+  }
+
+  async function undoSave(id: string) {
+    try {
+      await deleteReading(id);
+      setSaved({ text: 'The reading just saved was taken back.' });
+    } catch (err) {
+      setError({ text: err instanceof Error ? err.message : String(err) });
     }
   }
 
@@ -302,29 +270,38 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
     );
   }
 
+  /** The enter key moves to the next field; it never saves (Save is its own button in the bar). */
+  function nextOnEnter(e: KeyboardEvent) {
+    if (e.key !== 'Enter' || e.target instanceof HTMLTextAreaElement || e.target instanceof HTMLButtonElement) return;
+    e.preventDefault();
+    const fields = [...(e.currentTarget as HTMLFormElement).querySelectorAll<HTMLElement>('input, select, textarea')];
+    fields[fields.indexOf(e.target as HTMLElement) + 1]?.focus();
+  }
+
   if (!ready) return <p aria-busy="true">Opening the form…</p>;
   const stageError = 'error' in stage ? stage.error : error?.field === 'stage' ? error.text : undefined;
   const timeError = 'error' in time ? time.error : error?.field === 'time' ? error.text : undefined;
   const unit = displayUnit('stage', u);
+  const discharge = !check ? 'Discharge: type the stage' : !hasDischarge(check.discharge_m3s) ? 'No discharge' : formatQuantity('discharge', check.discharge_m3s, u);
   return (
-    <form class="record" onSubmit={onSave} noValidate>
-      <h2 id="screen-title" tabIndex={-1}>{form.readingId ? 'Edit reading' : 'New reading'}</h2>
+    <form class="record" onSubmit={onSave} onKeyDown={nextOnEnter} noValidate>
+      <h2 id="screen-title" tabIndex={-1}>{form.editing ? 'Edit reading' : 'New reading'}</h2>
       <p class="muted">{site.name} · {site.code}</p>
       {restoredAt !== undefined && (
         <p class="callout" role="status">
           Restored the unsaved reading you started at {formatTime(restoredAt, site.timeZone)}.{' '}
-          <button type="button" onClick={() => { dispatch({ type: 'replace', form: blankForm(form.observer) }); setRestoredAt(undefined); }}>Start over</button>
+          <button type="button" onClick={() => { dispatch({ type: 'replace', form: blankForm(form.observer) }); setRestoredAt(undefined); setError(undefined); }}>Start over</button>
         </p>
       )}
-      {saved && <p class="callout ok" role="status" data-testid="saved">{saved}</p>}
       <Field id="stage" label={`Stage (${unit})`} error={stageError}>
         <input
           id="stage"
+          ref={stageInput}
           class="big"
           type="text"
           inputMode="decimal"
           autoComplete="off"
-          enterKeyHint="done"
+          enterKeyHint="next"
           placeholder={u === 'us' ? '0.00' : '0.000'}
           value={form.stageText}
           aria-invalid={stageError ? true : undefined}
@@ -332,36 +309,32 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
           onInput={(e) => dispatch({ type: 'set', field: 'stageText', value: e.currentTarget.value })}
         />
       </Field>
-      <section class="live card" aria-live="polite" aria-label="Discharge">
-        {!check && <p class="muted">The discharge appears here as you type the stage.</p>}
-        {check && (
-          <>
-            <p class="figure">
-              <span data-testid="discharge">{!hasDischarge(check.discharge_m3s) ? 'No discharge' : formatQuantity('discharge', check.discharge_m3s, u)}</span>
-              {check.extrapolated && <> <span class="tag">extrapolated</span></>}
+      {check && (
+        <section class="live card" aria-label="Discharge details">
+          {hasDischarge(check.discharge_m3s) && check.warnings.every((w) => w.code !== 'extrapolated' && w.code !== 'below-zero-flow') && (
+            <p class="callout ok">Within the gauged range of the rating.</p>
+          )}
+          {check.shift_m !== 0 && <p class="muted">Includes a shift of {formatQuantity('stage', check.shift_m, u)}.</p>}
+          {check.warnings.map((w) => (
+            <p key={w.code} class="callout warn" data-warning={w.code}>
+              {w.text}
+              {w.code === 'jump' && <> <button type="button" onClick={() => noteInput.current?.focus()}>Add a note</button></>}
             </p>
-            {hasDischarge(check.discharge_m3s) && check.warnings.every((w) => w.code !== 'extrapolated' && w.code !== 'below-zero-flow') && (
-              <p class="callout ok">Within the gauged range of the rating.</p>
-            )}
-            {check.shift_m !== 0 && <p class="muted">Includes a shift of {formatQuantity('stage', check.shift_m, u)}.</p>}
-            {check.warnings.map((w) => (
-              <p key={w.code} class="callout warn" data-warning={w.code}>{w.text}</p>
-            ))}
-            {check.warnings.length > 0 && <p class="hint">Warnings do not stop saving; they are stored with the reading.</p>}
-          </>
-        )}
-      </section>
-      <Field id="time" label={`Time (${site.timeZone})`} hint={time.followsClock ? 'now: follows the clock until you change it' : undefined} error={timeError}>
+          ))}
+          {check.warnings.length > 0 && <p class="hint">Warnings do not stop saving; they are stored with the reading.</p>}
+        </section>
+      )}
+      <Field id="time" label={`Time (${site.timeZone})`} hint={'followsClock' in time && time.followsClock ? 'now: follows the clock until you change it' : undefined} error={timeError}>
         <div class="row">
           <input
             id="time"
             type="datetime-local"
             value={form.timeText || toLocalInput(now, site.timeZone)}
             aria-invalid={timeError ? true : undefined}
-            aria-describedby={describedBy('time', !!time.followsClock, !!timeError)}
+            aria-describedby={describedBy('time', 'followsClock' in time && time.followsClock, !!timeError)}
             onInput={(e) => dispatch({ type: 'set', field: 'timeText', value: e.currentTarget.value })}
           />
-          {!time.followsClock && <button type="button" style="flex:0 0 auto" onClick={() => dispatch({ type: 'set', field: 'timeText', value: '' })}>Now</button>}
+          {!('followsClock' in time && time.followsClock) && <button type="button" style="flex:0 0 auto" onClick={() => dispatch({ type: 'set', field: 'timeText', value: '' })}>Now</button>}
         </div>
       </Field>
       <div class="row two">
@@ -379,11 +352,13 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       <LoggerCheck value={form.loggerCheckText} stage_m={'stage_m' in stage ? stage.stage_m : undefined} units={u}
         error={error?.field === 'logger-value' ? error.text : undefined} onChange={(value) => dispatch({ type: 'loggerCheck', value })} />
       <Field id="observer" label="Observer">
-        <input id="observer" autoComplete="name" value={form.observer} onInput={(e) => dispatch({ type: 'set', field: 'observer', value: e.currentTarget.value })} />
+        <input id="observer" autoComplete="name" enterKeyHint="next" value={form.observer} onInput={(e) => dispatch({ type: 'set', field: 'observer', value: e.currentTarget.value })} />
       </Field>
-      <Field id="note" label="Note" hint="conditions: debris on the control, weed, ice, high water…">
-        <textarea id="note" value={form.note} aria-describedby="note-hint" onInput={(e) => dispatch({ type: 'set', field: 'note', value: e.currentTarget.value })} />
-      </Field>
+      <div class={jump ? 'note-wanted' : undefined}>
+        <Field id="note" label="Note" hint={jump ? 'say why the stage jumped, if it is right' : 'conditions: debris on the control, weed, ice, high water…'}>
+          <textarea id="note" ref={noteInput} value={form.note} aria-describedby="note-hint" onInput={(e) => dispatch({ type: 'set', field: 'note', value: e.currentTarget.value })} />
+        </Field>
+      </div>
       {form.gps ? (
         <p class="callout" data-testid="gps">
           Location {form.gps.lat.toFixed(5)}, {form.gps.lon.toFixed(5)} (± {Math.round(form.gps.accuracy_m)} m){' '}
@@ -393,15 +368,36 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
         <button type="button" class="wide" onClick={addLocation}>Add location</button>
       )}
       {gpsState && <p class="muted" role="status">{gpsState}</p>}
-      {error && !error.field && <p class="callout bad" role="alert">{error.text}</p>}
-      <button type="submit" class="primary wide save" disabled={saving}>{saving ? 'Saving…' : form.readingId ? 'Save changes' : 'Save reading'}</button>
       <p><a href={href('sites', site.id)}>Readings of this site</a></p>
       <Cautions compact />
+      <div class="savebar" data-testid="savebar">
+        <div aria-live="polite">
+          {saved && (
+            <p class="callout ok" role="status" data-testid="saved">
+              {saved.text}
+              {saved.id && <> <button type="button" onClick={() => void undoSave(saved.id!)}>Undo</button></>}
+            </p>
+          )}
+          {error && error.field !== 'stage' && error.field !== 'time' && error.field !== 'logger-value' && (
+            <p class="callout bad" role="alert">
+              {error.text}
+              {error.field === 'future' && t !== undefined && <> <button type="button" onClick={() => setFutureOk(t)}>Keep this time</button></>}
+            </p>
+          )}
+        </div>
+        <div class="row">
+          <p class="figure" aria-live="polite" aria-label="Discharge">
+            <span data-testid="discharge">{discharge}</span>
+            {check?.extrapolated && <> <span class="tag">extrapolated</span></>}
+          </p>
+          <button type="submit" class="primary save" disabled={saving}>{saving ? 'Saving…' : form.editing ? 'Save changes' : 'Save reading'}</button>
+        </div>
+      </div>
     </form>
   );
 }
 
-/** The Record area: choose a site, then the reading form. */
+/** The Record area: choose a site, then the reading form ('#/record/<siteId>[/<readingId>]'). */
 export default function Record({ params }: ScreenProps) {
   const { siteId, readingId } = params;
   const site = useRecords(async () => (siteId ? getSite(siteId) : undefined), ['site'], [siteId]);

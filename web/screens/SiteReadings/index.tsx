@@ -27,8 +27,9 @@ async function readSite(siteId: string, days: number): Promise<SiteView | undefi
   const site = await getSite(siteId);
   if (!site) return undefined;
   const now = Date.now();
-  // Readings of the last `days` days and anything typed with a time ahead of the clock.
-  const readings = (await readingsWithDischarge(siteId, now - days * MS_PER_DAY, now + 365 * MS_PER_DAY)).reverse();
+  // Readings of the last `days` days and every reading with a time ahead of the clock, however far
+  // (a mistyped year must stay reachable so it can be fixed).
+  const readings = (await readingsWithDischarge(siteId, now - days * MS_PER_DAY, Infinity)).reverse();
   const rating = await ratingInForceAt(siteId, now);
   const gaugings = await listGaugings(siteId);
   const ratingNote = rating

@@ -1,7 +1,8 @@
 // The operations every record store shares: save, get, tombstone, restore, list by index range.
 // Each write is one transaction over the store and meta (for the revision), awaited to tx.done.
 import type { IndexNames, StoreNames } from 'idb';
-import { isUuid, RecordValidationError, validateBody, type RecordKind, type StoredRecords } from '../../core/records/index';
+import { isUuid, parseRev, RecordValidationError, validateBody, type RecordKind, type StoredRecords } from '../../core/records/index';
+import { seenAfter } from '../../core/sync/index';
 import type { FreshetDB, RecordStore } from './schema';
 import { withDb } from './connection';
 import { now_ms, stampInTx } from './clock';
@@ -67,10 +68,16 @@ export function afterWrite(kinds: RecordKind[], ids?: string[]): void {
 }
 
 function splitInput(kind: RecordKind, input: object): { id: string | undefined; body: Record<string, unknown> } {
-  const { id, rev: _rev, updated_ms: _updated, deleted: _deleted, ...body } = input as Record<string, unknown>;
+  const { id, rev: _rev, updated_ms: _updated, deleted: _deleted, seen: _seen, ...body } = input as Record<string, unknown>;
   if (id !== undefined && !isUuid(id)) throw new RecordValidationError(kind, 'id', 'a lower-case UUID or absent for a new record', id);
   validateBody(kind, body);
   return { id: id as string | undefined, body };
+}
+
+/** The record with the `seen` list of a new version `rev` written on top of `before` (none for a first version). */
+export function withSeen<T extends object>(record: T, rev: string, before: { rev: string; seen?: string[] } | undefined): T & { seen?: string[] } {
+  const seen = before ? seenAfter(parseRev(rev).deviceId, [before]) : undefined;
+  return seen ? { ...record, seen } : record;
 }
 
 /** Validates and saves one record in store S: new id when absent, new rev, updated_ms now; resolves when durable. */
@@ -83,9 +90,11 @@ export async function saveIn<S extends RecordStore>(store: S, input: SaveInput<R
     const tx = db.transaction(writeScope(store), 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const s = tx.objectStore(store);
-      // A reading's earlier version says where it sat in the series.
-      const [rev, before] = await Promise.all([stampInTx(tx, at), store === 'readings' ? s.get(id) : undefined]);
-      const record = { ...body, id, rev, updated_ms: at } as unknown as RecordOf<S>;
+      // The earlier version: its revision and `seen` list carry over (sync tells edits from concurrent
+      // changes by them), and a reading's earlier version says where it sat in the series.
+      const before = (await s.get(id)) as RecordOf<S> | undefined;
+      const rev = await stampInTx(tx, at, before?.rev);
+      const record = withSeen({ ...body, id, rev, updated_ms: at }, rev, before) as unknown as RecordOf<S>;
       quietly(s.put(record as FreshetDB[S]['value']));
       if (store === 'readings') await updateSeriesInTx(tx, before as RecordOf<'readings'> | undefined, record as RecordOf<'readings'>);
       await tx.done;
@@ -117,9 +126,10 @@ async function setDeleted<S extends RecordStore>(store: S, id: string, deleted: 
         await tx.done;
         return undefined;
       }
-      const rev = await stampInTx(tx, at);
-      const { deleted: _was, ...rest } = existing as RecordOf<S> & { deleted?: true };
-      const record = (deleted ? { ...rest, rev, updated_ms: at, deleted: true } : { ...rest, rev, updated_ms: at }) as RecordOf<S>;
+      const rev = await stampInTx(tx, at, existing.rev);
+      const { deleted: _was, seen: _seen, ...rest } = existing as RecordOf<S> & { deleted?: true };
+      const fields = withSeen({ ...rest, rev, updated_ms: at }, rev, existing);
+      const record = (deleted ? { ...fields, deleted: true } : fields) as RecordOf<S>;
       quietly(s.put(record as FreshetDB[S]['value']));
       if (store === 'readings') await updateSeriesInTx(tx, existing as RecordOf<'readings'>, record as RecordOf<'readings'>);
       await tx.done;

@@ -36,4 +36,9 @@ export function upgradeFreshetDb(
     // Derived from readings (local only, never synced): one chunk of arrays per site and UTC day.
     db.createObjectStore('series', { keyPath: ['siteId', 'day'] });
   }
+  if (oldVersion < 2 && target >= 2) {
+    // Sync (local only): settings, marks, cursor and status; and the bundles waiting for the office.
+    db.createObjectStore('sync');
+    db.createObjectStore('outbox', { keyPath: 'id' }).createIndex('by-created', 'created_ms');
+  }
 }

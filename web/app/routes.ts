@@ -19,6 +19,7 @@ const Sites = lazyScreen<ScreenProps>(() => import('../screens/Sites'));
 const Record = lazyScreen<ScreenProps>(() => import('../screens/Record'));
 const Storm = lazyScreen<ScreenProps>(() => import('../screens/Storm'));
 const Data = lazyScreen<ScreenProps>(() => import('../screens/Data'));
+const Sync = lazyScreen<ScreenProps>(() => import('../screens/Sync'));
 
 /** The screen, its area in the bottom bar and its title for a route. */
 export function screenFor(route: Route): Entry {
@@ -28,7 +29,9 @@ export function screenFor(route: Route): Entry {
     case 'storm':
       return { area: 'storm', title: 'Storm runoff', Screen: Storm };
     case 'data':
-      return { area: 'data', title: 'Data and sync', Screen: Data };
+      return { area: 'data', title: 'Data on this phone', Screen: Data };
+    case 'sync':
+      return { area: 'sync', title: 'Sync with the office', Screen: Sync };
     case 'about':
       return { area: 'about', title: 'About', Screen: About };
     default:

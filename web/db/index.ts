@@ -23,7 +23,7 @@ export { saveDraft, getDraft, discardDraft, listDrafts } from './drafts';
 export { saveConflict, dismissConflict, listConflicts } from './conflicts';
 export { getMeta, setMeta } from './meta';
 export { settleConflict } from './conflicts';
-export { applyIncoming, previewIncoming, STORE_OF_KIND, type IncomingResult } from './sync-merge';
+export { applyIncoming, previewIncoming, STORE_OF_KIND, syncedVersion, type IncomingResult } from './sync-merge';
 export {
   acknowledge, exportBundle, markExported, markOf, MAX_BUNDLE_RECORDS, nextOutgoing, noteAttempt, waitingCount, type ExportFile,
 } from './outbox';

@@ -153,3 +153,11 @@ async function writePlan(tx: MergeWriteTx, plan: MergePlan, current: Current, at
   }
   return kinds;
 }
+
+/** The stored version of a synced record as it would travel (tombstones included), or undefined. */
+export function syncedVersion(kind: SyncKind, id: string): Promise<SyncRecord | undefined> {
+  return withDb(async (db) => {
+    const stored = await db.get(STORE_OF_KIND[kind], id);
+    return stored ? toSyncRecord(kind, stored as never) : undefined;
+  });
+}

@@ -1,9 +1,11 @@
-import { defineConfig } from 'vitest/config';
+import { configDefaults, defineConfig } from 'vitest/config';
 
-// Unit tests: core in Node, web/db in Node with fake-indexeddb. Browser tests have their own config.
+// Unit tests: every *.test.ts under test/ that runs in Node (core, and web/db with fake-indexeddb).
+// Browser tests have their own config (test/browser/vitest.config.ts); helpers live in test/support.
 export default defineConfig({
   test: {
-    include: ['test/core/**/*.test.ts', 'test/db/**/*.test.ts', 'test/web/**/*.test.ts', 'test/tools/**/*.test.ts'],
+    include: ['test/**/*.test.ts'],
+    exclude: [...configDefaults.exclude, 'test/browser/**', 'test/support/**'],
     environment: 'node',
     pool: 'threads',
     testTimeout: 30_000,

@@ -2,7 +2,7 @@
 // Run once after changing the SVG: `npx tsx scripts/make-icons.ts`. The PNGs are committed.
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { launchBrowser, ROOT } from '../test/browser/harness';
+import { launchBrowser, ROOT } from '../test/support/browser/harness';
 
 const svg = readFileSync(join(ROOT, 'public/icons/freshet.svg'), 'utf8');
 const browser = await launchBrowser({ width: 512, height: 512, touch: false });

@@ -1,14 +1,15 @@
-// Stage readings with their discharge as CSV for office systems: RFC 4180 (CRLF line ends, fields
-// with a comma, quote or line break quoted, quotes doubled), UTF-8, units in the header, ISO 8601
-// times with the site's offset.
+// Stage readings with their discharge as a CSV table for office systems: RFC 4180, UTF-8 with a
+// byte-order mark, units in the header, ISO 8601 times with the site's offset, free text neutralised.
 import { displayUnit, toDisplay, type UnitSystem } from '../units';
 import { toIsoWithOffset } from '../time/index';
 import type { ReadingRecord } from '../records/index';
+import { csvNumber, csvTable, type CsvColumn } from './csv-write';
 
 /** One reading row to export: the stored reading and its discharge (m³/s, null without a rating). */
 export interface ReadingExportRow {
   reading: ReadingRecord;
   discharge_m3s: number | null;
+  /** Shift applied to the stage, m. */
   shift_m: number;
   extrapolated: boolean;
 }
@@ -20,51 +21,40 @@ export interface ReadingCsvOptions {
   units: UnitSystem;
 }
 
-/** Quotes one field as RFC 4180 §2 rules 5–7 ask: only when it holds a comma, quote, CR or LF. */
-export function csvField(value: string): string {
-  return /[",\r\n]/.test(value) ? `"${value.replace(/"/g, '""')}"` : value;
-}
-
-/** Joins rows of fields into an RFC 4180 document (CRLF after every record, including the last). */
-export function csvDocument(rows: readonly (readonly string[])[]): string {
-  return rows.map((r) => r.map(csvField).join(',') + '\r\n').join('');
-}
-
-function num(v: number, decimals: number): string {
-  return v.toFixed(decimals);
-}
-
 /** The readings as a CSV document, oldest first as given; stage and discharge in `units`. */
 export function readingsToCsv(rows: readonly ReadingExportRow[], options: ReadingCsvOptions): string {
   const { units, timeZone, siteCode } = options;
-  const stageUnit = displayUnit('stage', units);
-  const qUnit = displayUnit('discharge', units);
-  const header = [
-    'site', 'time', `stage_${stageUnit}`, `shift_${stageUnit}`, `discharge_${qUnit}`, 'extrapolated', 'source', 'quality',
-    'observer', 'note', 'warnings', 'latitude_deg', 'longitude_deg', 'gps_accuracy_m', 'id', 'rev',
+  const h = displayUnit('stage', units);
+  const q = displayUnit('discharge', units);
+  const columns: CsvColumn[] = [
+    { name: 'site', kind: 'text' }, { name: 'time', kind: 'time' }, { name: `stage_${h}`, kind: 'number' },
+    { name: `shift_${h}`, kind: 'number' }, { name: `discharge_${q}`, kind: 'number' }, { name: 'extrapolated', kind: 'text' },
+    { name: 'source', kind: 'text' }, { name: 'quality', kind: 'text' }, { name: 'observer', kind: 'text' },
+    { name: 'note', kind: 'text' }, { name: 'warnings', kind: 'text' }, { name: 'latitude_deg', kind: 'number' },
+    { name: 'longitude_deg', kind: 'number' }, { name: 'gps_accuracy_m', kind: 'number' }, { name: 'id', kind: 'text' },
+    { name: 'rev', kind: 'text' },
   ];
-  const out: string[][] = [header];
   const stageDecimals = units === 'us' ? 3 : 4;
-  for (const r of rows) {
+  const out = rows.map((r) => {
     const x = r.reading;
-    out.push([
+    return [
       siteCode,
       toIsoWithOffset(x.time_ms, timeZone),
-      num(toDisplay('stage', x.stage_m, units), stageDecimals),
-      num(toDisplay('stage', r.shift_m, units), stageDecimals),
-      r.discharge_m3s === null ? '' : String(Number(toDisplay('discharge', r.discharge_m3s, units).toPrecision(6))),
+      toDisplay('stage', x.stage_m, units).toFixed(stageDecimals),
+      toDisplay('stage', r.shift_m, units).toFixed(stageDecimals),
+      r.discharge_m3s === null ? '' : csvNumber(toDisplay('discharge', r.discharge_m3s, units), 6),
       r.extrapolated ? 'yes' : 'no',
       x.source,
       x.quality,
       x.observer,
       x.note,
       x.warnings.join(' '),
-      x.gps ? String(x.gps.lat) : '',
-      x.gps ? String(x.gps.lon) : '',
-      x.gps ? String(x.gps.accuracy_m) : '',
+      csvNumber(x.gps?.lat),
+      csvNumber(x.gps?.lon),
+      csvNumber(x.gps?.accuracy_m),
       x.id,
       x.rev,
-    ]);
-  }
-  return csvDocument(out);
+    ];
+  });
+  return csvTable(columns, out);
 }

@@ -2,9 +2,10 @@
 import { chapmanMaxwell, chapmanMaxwellCoefficients } from './filters/chapman-maxwell';
 import { eckhardt, eckhardtCoefficients } from './filters/eckhardt';
 import { firstOrderFilterChecked } from './filters/first-order';
-import { defaultLyneHollick, lyneHollick, lyneHollickChecked } from './filters/lyne-hollick';
+import { lyneHollick, lyneHollickChecked } from './filters/lyne-hollick';
 import { perStep, perStepNote } from './filters/time-step';
 import { inOpenUnit, SEPARATE_FN } from './method-checks';
+import { defaultLyneHollick } from './methods';
 import { MS_PER_DAY } from './series';
 
 /** A recursive filter ready to run on a regular record with step step_ms; its constants are per day. */

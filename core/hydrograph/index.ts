@@ -14,12 +14,23 @@ export {
 export type { NewtonPolynomialOptions, NewtonPolynomialInflection } from './newton-polynomial';
 export { RECESSION_FIT_READINGS } from './recession-extension';
 export { separateBaseflow, separateBaseflowDetailed } from './separate';
-export type { SeparationMethod, SeparationContext, SeparationResult } from './separate';
-export { defaultLyneHollick } from './filters/lyne-hollick';
-export { BFI_MAX_PRESETS, defaultEckhardt } from './filters/eckhardt';
-export { defaultChapmanMaxwell } from './filters/chapman-maxwell';
-export { defaultSmoothedMinima } from './smoothed-minima';
+export type { SeparationContext, SeparationResult } from './separate';
+export {
+  BFI_MAX_PRESETS,
+  defaultChapmanMaxwell,
+  defaultEckhardt,
+  defaultLyneHollick,
+  defaultSmoothedMinima,
+  methodWithDefaults,
+  SEPARATION_FAMILY,
+  SEPARATION_FAMILY_SENTENCES,
+  SEPARATION_METHOD_KINDS,
+  usesKeyPoints,
+} from './methods';
+export type { BfiMaxPreset, MethodDefaultsOptions, SeparationFamily, SeparationMethod, SeparationMethodKind } from './methods';
 export { localMinimumInterval_days } from './local-minimum';
+export { seriesFromReadings } from './series-from-readings';
+export type { DischargeReadings, SeriesFromReadings } from './series-from-readings';
 export { summarizeEvent } from './summary';
 export type { SummaryOptions, EventSummary } from './summary';
 export { unitHydrograph, defaultUnitDepth_mm } from './unit-hydrograph';

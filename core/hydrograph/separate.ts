@@ -6,6 +6,7 @@ import { dailyMeans, dailyToReadings } from './daily-means';
 import { filterSpec } from './filter-spec';
 import { findEventPointsDetailed } from './key-points';
 import { localMinimum, localMinimumInterval_days } from './local-minimum';
+import { defaultSmoothedMinima, type SeparationMethod } from './methods';
 import { positive, SEPARATE_FN as FN } from './method-checks';
 import { medianInterval_ms } from './resample';
 import { backToReadings, filterQuick, recursiveFilter, regularGrid } from './run-filter';
@@ -18,28 +19,11 @@ import {
   type PreparedSeries,
   type Series,
 } from './series';
-import { defaultSmoothedMinima, smoothedMinima } from './smoothed-minima';
+import { smoothedMinima } from './smoothed-minima';
 import { straightLine } from './straight-line';
 import { variableSlope } from './variable-slope';
 
-/**
- * A baseflow separation method: event methods use key points; the others are continuous filters.
- * Filter constants are per day, as published for daily data: Eckhardt's and Chapman–Maxwell's recession
- * constant and Lyne–Hollick's alpha are applied at the record's step Δt as c^(Δt/1 day) (exact for an
- * exponential recession; for Lyne–Hollick α our choice on sub-daily data, keeping its time constant in days).
- * Smoothed-minima blocks and the local-minimum interval are in days; on sub-daily records those two methods
- * work on daily mean flows, as published, and the daily baseflow is interpolated back to the readings.
- */
-export type SeparationMethod =
-  | { kind: 'constant-discharge' }
-  | { kind: 'straight-line' }
-  | { kind: 'concave' }
-  | { kind: 'variable-slope' }
-  | { kind: 'lyne-hollick'; alpha?: number; passes?: number }
-  | { kind: 'eckhardt'; bfiMax: number; recession: number }
-  | { kind: 'chapman-maxwell'; recession: number }
-  | { kind: 'smoothed-minima'; block_days?: number; factor?: number }
-  | { kind: 'local-minimum'; interval_days?: number };
+export type { SeparationMethod };
 
 /** Context of a separation: key points (UTC ms) for event methods, catchment area (km²), gap bridging limit (ms). */
 export interface SeparationContext {

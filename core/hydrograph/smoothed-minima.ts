@@ -1,9 +1,7 @@
 // Smoothed-minima baseflow (Institute of Hydrology 1980; Gustard et al. 1992, IH Report 108).
 import { MS_PER_DAY } from './series';
 import { joinAnchors } from './anchors';
-
-/** Default smoothed-minima settings: 5-day blocks and a 0.9 turning-point factor. */
-export const defaultSmoothedMinima = { block_days: 5, factor: 0.9 } as const;
+import { defaultSmoothedMinima } from './methods';
 
 /** Block minima and the turning points chosen among them (indices into the record). */
 export interface SmoothedMinimaDetail {

@@ -3,8 +3,8 @@
 // of 15-minute readings (2,880) with their discharges (as the compact series; as whole records and a bare
 // getAll of them for comparison). Prints JSON lines; asserts nothing.
 // Run: node --import tsx test/bench/db.browser.ts
-import { launchBrowser, startPreview } from '../browser/harness';
-import { buildDbPages, DB_PAGES_DIR } from '../browser/pages/build';
+import { launchBrowser, startPreview } from '../support/browser/harness';
+import { buildDbPages, DB_PAGES_DIR } from '../support/browser/pages/build';
 import { emit, sig3 } from './measure';
 
 const N = Number(process.env.FRESHET_BENCH_READINGS ?? 100_000);

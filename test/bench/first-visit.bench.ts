@@ -1,6 +1,6 @@
 // Benchmark figure: gzip bytes of JS and CSS that the first visit of the built app loads.
-import { startPreview } from '../browser/harness';
-import { FIRST_VISIT_BUDGET_BYTES, measureFirstVisit } from '../browser/first-visit';
+import { startPreview } from '../support/browser/harness';
+import { FIRST_VISIT_BUDGET_BYTES, measureFirstVisit } from '../support/browser/first-visit';
 import { emit } from './measure';
 
 const server = await startPreview(4185);

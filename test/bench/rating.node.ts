@@ -1,7 +1,7 @@
 // Rating benchmarks: dischargeAt against a bare power-law loop in the same run, and fitRating on 100
 // gaugings. Figures only; targets are stated, never asserted.
 import { dischargeAt, fitRating, type Rating } from '../../core/rating/index';
-import { normalGenerator, uniformGenerator } from '../core/rating/noise';
+import { normalGenerator, uniformGenerator } from '../support/noise';
 import { emit, medianMs, sig3 } from './measure';
 
 const N = 1_000_000;

@@ -2,8 +2,8 @@
 // import completes with progress events, every reading stored and the series holding exactly those readings.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { launchBrowser, startPreview, type Browser, type Preview } from './harness';
-import { buildDbPages, DB_PAGES_DIR } from './pages/build';
+import { launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import { buildDbPages, DB_PAGES_DIR } from '../support/browser/pages/build';
 
 let server: Preview;
 let browser: Browser;

@@ -5,8 +5,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_SITE_ID, demoRating, demoScenario, dischargeAt } from '../../core';
 import { significant } from '../../web/format';
-import { ARTIFACTS, launchBrowser, startPreview, type Browser, type Preview } from './harness';
-import { seriousViolations } from './axe';
+import { ARTIFACTS, launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import { seriousViolations } from '../support/browser/axe';
 
 let server: Preview;
 let browser: Browser;

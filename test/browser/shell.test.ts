@@ -4,9 +4,9 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { ARTIFACTS, launchBrowser, ROOT, startPreview, type Browser, type Preview } from './harness';
-import { seriousViolations } from './axe';
-import { FIRST_VISIT_BUDGET_BYTES, measureFirstVisit } from './first-visit';
+import { ARTIFACTS, launchBrowser, ROOT, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import { seriousViolations } from '../support/browser/axe';
+import { FIRST_VISIT_BUDGET_BYTES, measureFirstVisit } from '../support/browser/first-visit';
 
 const AREAS = ['sites', 'record', 'storm', 'data', 'about'];
 let server: Preview;

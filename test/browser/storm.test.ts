@@ -19,8 +19,8 @@ import {
   type EventPoints,
   type SeparationMethod,
 } from '../../core';
-import { ARTIFACTS, launchBrowser, startPreview, type Browser, type Preview } from './harness';
-import { seriousViolations } from './axe';
+import { ARTIFACTS, launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import { seriousViolations } from '../support/browser/axe';
 
 const DAY_MS = 86_400_000;
 let server: Preview;

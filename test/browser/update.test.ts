@@ -6,7 +6,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_SITE_ID } from '../../core';
-import { ARTIFACTS, launchBrowser, ROOT, startPreview, type Browser, type Preview } from './harness';
+import { ARTIFACTS, launchBrowser, ROOT, startPreview, type Browser, type Preview } from '../support/browser/harness';
 
 const PORT = 4182;
 let server: Preview | undefined;

@@ -5,7 +5,7 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   test: {
     include: ['test/browser/**/*.test.ts'],
-    globalSetup: ['test/browser/global-setup.ts'],
+    globalSetup: ['test/support/browser/global-setup.ts'],
     environment: 'node',
     fileParallelism: false,
     testTimeout: 120_000,

@@ -10,7 +10,8 @@ import {
 } from '../../web/db/index';
 import { upgradeFreshetDb } from '../../web/db/upgrade';
 import { closeDbForTests } from '../../web/db/testing';
-import { gauging, rating, reading, site, T0, useFreshDb } from './fixtures';
+import { useFreshDb } from '../support/db';
+import { gauging, rating, reading, site, T0 } from '../support/records';
 
 useFreshDb();
 

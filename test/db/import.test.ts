@@ -2,7 +2,8 @@
 // reported and not doubled.
 import { describe, expect, it, vi } from 'vitest';
 import { importReadings, listReadings, saveReading, saveSite, StorageError } from '../../web/db/index';
-import { loggerSeries, QUARTER_HOUR_MS, reading, site, T0, useFreshDb } from './fixtures';
+import { useFreshDb } from '../support/db';
+import { loggerSeries, QUARTER_HOUR_MS, reading, site, T0 } from '../support/records';
 
 useFreshDb();
 

@@ -9,7 +9,8 @@ import {
   readingsWithDischarge, restoreReading, saveRating, saveReading, saveSite, seriesWithDischarge, StorageError,
 } from '../../web/db/index';
 import { resetDbForTests, setClockForTests } from '../../web/db/testing';
-import { loggerSeries, QUARTER_HOUR_MS, rating, reading, site, T0, useFreshDb } from './fixtures';
+import { useFreshDb } from '../support/db';
+import { loggerSeries, QUARTER_HOUR_MS, rating, reading, site, T0 } from '../support/records';
 
 const { clock } = useFreshDb();
 const HOUR = 3_600_000;

@@ -9,7 +9,8 @@ import {
   saveAnalysis, saveConflict, saveDraft, saveGauging, saveRating, saveReading, saveSite, setMeta, storageState,
   changedSince, type RecordsChange,
 } from '../../web/db/index';
-import { gauging, rating, reading, site, T0, useFreshDb } from './fixtures';
+import { useFreshDb } from '../support/db';
+import { gauging, rating, reading, site, T0 } from '../support/records';
 
 const { clock } = useFreshDb();
 const HOUR = 3_600_000;

@@ -1,12 +1,6 @@
 // Chapman & Maxwell (1996) one-parameter recursive digital filter.
 import { firstOrderFilter } from './first-order';
 
-/**
- * Default Chapman–Maxwell recession constant k = 0.925 per day (as commonly used with daily data;
- * separateBaseflow applies it at the record's step as k^(Δt/1 day)).
- */
-export const defaultChapmanMaxwell = { recession: 0.925 } as const;
-
 /** Coefficients of b_k = carry·b_{k−1} + gain·Q_k for Chapman–Maxwell with the recession constant per step. */
 export function chapmanMaxwellCoefficients(recessionPerStep: number): { carry: number; gain: number } {
   return { carry: recessionPerStep / (2 - recessionPerStep), gain: (1 - recessionPerStep) / (2 - recessionPerStep) };

@@ -1,13 +1,7 @@
 // Lyne & Hollick (1979) recursive digital filter, passes alternating forward and backward
 // (Nathan & McMahon 1990), with reflected ends (Ladson et al. 2013).
+import { defaultLyneHollick } from '../methods';
 import { regularEnough } from './first-order';
-
-/**
- * Default Lyne–Hollick settings: α = 0.925 per day (published for daily data), 3 passes, 30 values reflected at
- * each end (30 days on daily data). separateBaseflow applies α at the record's step as α^(Δt/1 day) and
- * reflects 30 days of readings on sub-daily data.
- */
-export const defaultLyneHollick = { alpha: 0.925, passes: 3, reflect: 30 } as const;
 
 /**
  * Baseflow (m³/s) of a regular, gap-free record by the Lyne–Hollick filter with α per step of the record:

@@ -46,7 +46,7 @@ describe('sha256Hex', () => {
 
 const SITE_ID = '3f1c2a9e-8b7d-4c6e-9f01-2a3b4c5d6e7f';
 const READING_ID = '7d8e9f00-1a2b-4c3d-8e4f-5a6b7c8d9e0f';
-const rev = (ms: number) => formatRev({ wall_ms: ms, counter: 0, device: 'phone-a' });
+const rev = (ms: number) => formatRev({ wall_ms: ms, counter: 0, deviceId: 'phone-a' });
 
 function records(): SyncRecord[] {
   const t = Date.UTC(2026, 10, 20, 9, 30);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { separateBaseflow, separateBaseflowDetailed, summarizeEvent, type EventPoints } from '../../../core/hydrograph/index';
-import { H, T0, trapezoid, triangleSeries } from './fixtures';
+import { H, T0, trapezoid, triangleSeries } from '../../support/hydrograph-series';
 
 const points = (rise: number, peak: number, inflection: number, end: number): EventPoints => ({
   riseStart_ms: T0 + rise * H,

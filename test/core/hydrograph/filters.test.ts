@@ -8,7 +8,7 @@ import {
   separateBaseflowDetailed,
 } from '../../../core/hydrograph/index';
 import { lyneHollick } from '../../../core/hydrograph/filters/lyne-hollick';
-import { DAY, T0 } from './fixtures';
+import { DAY, T0 } from '../../support/hydrograph-series';
 
 const daily = (q: readonly number[]) => ({
   time_ms: Float64Array.from(q, (_, i) => T0 + i * DAY),

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { separateBaseflow, separateBaseflowDetailed, summarizeEvent } from '../../../core/hydrograph/index';
-import { H, T0 } from './fixtures';
+import { H, T0 } from '../../support/hydrograph-series';
 
 const hourly = (q: readonly number[]) => ({
   time_ms: Float64Array.from(q, (_, i) => T0 + i * H),

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { findEventPoints, findInflection, findInflectionDetailed, inflectionByNewtonPolynomial } from '../../../core/hydrograph/index';
-import { gammaSeries, H, T0 } from './fixtures';
+import { gammaSeries, H, T0 } from '../../support/hydrograph-series';
 
 // Exact, derived: for f(x) = x^n·e^{−n·x} (x = t/t_p), f' = f·n(1/x − 1) and
 // f'' = f·[n²(1/x − 1)² − n/x²], which is zero where |1 − x| = 1/√n; on the falling limb (x > 1)

@@ -7,7 +7,7 @@ import {
   inflectionByNewtonPolynomial,
   runoffDuration_days,
 } from '../../../core/hydrograph/index';
-import { DAY, fromHours, gammaSeries, H, T0, triangleSeries } from './fixtures';
+import { DAY, fromHours, gammaSeries, H, T0, triangleSeries } from '../../support/hydrograph-series';
 
 // NIST SP 811, Appendix B: 1 mi² = 2.589 988 110 336 km² (exact, 1.609344²).
 const KM2_PER_MI2 = 2.589988110336;

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { derivative, evaluate, lusolve, polynomialRoot, type Complex } from 'mathjs';
 import { forwardDifferences, inflectionByNewtonPolynomial, newtonToPower } from '../../../core/hydrograph/index';
-import { fromHours, gammaSeries, H, T0 } from './fixtures';
+import { fromHours, gammaSeries, H, T0 } from '../../support/hydrograph-series';
 
 describe('forward differences and the Newton polynomial', () => {
   it('Δ³ of a cubic is 6·a₃·h³ and Δ⁴ is 0', () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { separateBaseflow, summarizeEvent, type SeparationMethod, type Series } from '../../../core/hydrograph/index';
-import { pulse, T0 } from './fixtures';
+import { pulse, T0 } from '../../support/hydrograph-series';
 
 // Random multi-peak hydrographs (invented): a base flow plus 1–4 gamma-shaped pulses, 120 h of record,
 // regular (every 0.5 h) or irregular (random steps), optionally with a few missing readings.

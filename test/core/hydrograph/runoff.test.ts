@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { phiIndex, recessionConstant, summarizeEvent, unitHydrograph } from '../../../core/hydrograph/index';
-import { DAY, fromHours, H, T0, triangleSeries } from './fixtures';
+import { DAY, fromHours, H, T0, triangleSeries } from '../../support/hydrograph-series';
 
 describe('summarizeEvent', () => {
   // Triangle of 10 m³/s over a 6 h base on 1 m³/s: direct ½·10·6·3600 = 108 000 m³ (exact).

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { separateBaseflow, separateBaseflowDetailed, type Series } from '../../../core/hydrograph/index';
-import { DAY, H, T0 } from './fixtures';
+import { DAY, H, T0 } from '../../support/hydrograph-series';
 
 const MIN15 = 15 * 60_000;
 

@@ -9,7 +9,7 @@ import {
   type SeparationMethod,
   type Series,
 } from '../../../core/hydrograph/index';
-import { H, T0, triangleSeries } from './fixtures';
+import { H, T0, triangleSeries } from '../../support/hydrograph-series';
 
 const good = triangleSeries(() => 2, 10, 10, 14, 30, 1, 48);
 const zeros = new Float64Array(good.time_ms.length);

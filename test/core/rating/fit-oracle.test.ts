@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
 import { fitRating } from '../../../core/rating/index';
-import { normalGenerator, uniformGenerator } from './noise';
+import { normalGenerator, uniformGenerator } from '../../support/noise';
 
 // Oracle: ml-levenberg-marquardt (a general nonlinear least-squares package, test-only) minimises the
 // same log-space residuals ln Q − (ln C + b·ln(h − e)) over all three parameters at once.

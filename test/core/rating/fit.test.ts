@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { FIT_ADVISED_GAUGINGS, fitRating, type GaugingPoint } from '../../../core/rating/index';
-import { normalGenerator } from './noise';
+import { normalGenerator } from '../../support/noise';
 
 // Invented site: a gravel-bar control, Q = 12.5·(h − 0.35)^1.8.
 const TRUE = { coefficient: 12.5, offset_m: 0.35, exponent: 1.8 };

@@ -1,18 +1,15 @@
-// The one uPlot wrapper: a hydrograph of one or more lines against time. Created once, fed with
-// setData/setSize on change, destroyed on unmount. Times in, as everywhere, UTC ms; uPlot wants seconds.
-import { useEffect, useRef } from 'preact/hooks';
-import uPlot from 'uplot';
-import 'uplot/dist/uPlot.min.css';
-import './style.css';
+// A hydrograph: one or more lines of discharge (or stage) against time, as a configuration of the shared
+// Plot (which owns uPlot). Times in UTC ms, labelled in the site's zone.
+import { useCallback, useMemo } from 'preact/hooks';
+import { Plot, type PlotDrawView, type PlotSeries } from '../Plot';
 
 /** One line on the plot: values in display units, aligned with the plot's times. */
 export interface PlotLine {
   label: string;
   values: ArrayLike<number>;
-  /** CSS colour; the theme's colours are read from CSS variables when omitted. */
+  /** CSS colour or theme variable name; the theme's colours are used when omitted. */
   colour?: string;
   dash?: number[];
-  fill?: string;
 }
 
 /** A labelled vertical line at a time (UTC ms), e.g. a key point of a storm event. */
@@ -33,106 +30,57 @@ export interface HydrographProps {
   logScale?: boolean;
   /** Text for screen readers, summarising what the plot shows. */
   description: string;
-  /** Optional vertical lines at given times; changing them redraws without rebuilding the plot. */
+  /** Optional vertical lines at given times. */
   markers?: PlotMarker[];
 }
 
-function cssVar(name: string, fallback: string): string {
-  const v = getComputedStyle(document.documentElement).getPropertyValue(name).trim();
-  return v || fallback;
-}
-
-function toData(props: HydrographProps): uPlot.AlignedData {
-  const xs = Float64Array.from(props.time_ms, (t) => t / 1000);
-  const ys = props.lines.map((l) =>
-    Array.from(l.values, (v) => (Number.isFinite(v) && (!props.logScale || v > 0) ? v : null)),
-  );
-  return [xs as unknown as number[], ...ys];
-}
-
-/** Draws the markers as dashed vertical lines with their labels, in canvas pixels. */
-function drawMarkers(u: uPlot, markers: readonly PlotMarker[] | undefined): void {
-  if (!markers || markers.length === 0) return;
-  const { ctx, bbox } = u;
-  const px = uPlot.pxRatio;
-  ctx.save();
-  ctx.strokeStyle = cssVar('--muted', '#4a5358');
-  ctx.fillStyle = cssVar('--text', '#15191c');
-  ctx.lineWidth = 1.5 * px;
-  ctx.setLineDash([4 * px, 3 * px]);
-  ctx.font = `600 ${12 * px}px system-ui, sans-serif`;
+/** Draws markers as dashed vertical lines with their labels; labels that would touch move down a row. */
+export function drawMarkers(view: PlotDrawView, markers: readonly PlotMarker[]): void {
+  const { ctx, area, ratio } = view;
+  ctx.strokeStyle = view.colour('--muted', '#4a5358');
+  ctx.fillStyle = view.colour('--text', '#15191c');
+  ctx.lineWidth = 1.5 * ratio;
+  ctx.setLineDash([4 * ratio, 3 * ratio]);
+  ctx.font = `600 ${12 * ratio}px system-ui, sans-serif`;
   ctx.textAlign = 'center';
   ctx.textBaseline = 'top';
-  for (const m of markers) {
-    const x = u.valToPos(m.time_ms / 1000, 'x', true);
-    if (!Number.isFinite(x) || x < bbox.left || x > bbox.left + bbox.width) continue;
+  const row = 14 * ratio;
+  const placed: { x: number; row: number }[] = [];
+  for (const m of [...markers].sort((a, b) => a.time_ms - b.time_ms)) {
+    const x = view.xPos(m.time_ms);
+    if (!Number.isFinite(x) || x < area.left || x > area.left + area.width) continue;
+    const half = (ctx.measureText(m.label).width / 2) + 3 * ratio;
+    let r = 0;
+    while (placed.some((p) => p.row === r && Math.abs(p.x - x) < 2 * half)) r++;
+    placed.push({ x, row: r });
     ctx.beginPath();
-    ctx.moveTo(x, bbox.top + 14 * px);
-    ctx.lineTo(x, bbox.top + bbox.height);
+    ctx.moveTo(x, area.top + (r + 1) * row);
+    ctx.lineTo(x, area.top + area.height);
     ctx.stroke();
-    ctx.fillText(m.label, x, bbox.top);
+    ctx.fillText(m.label, x, area.top + r * row);
   }
-  ctx.restore();
-}
-
-function makeOptions(props: HydrographProps, width: number, markers: () => PlotMarker[] | undefined): uPlot.Options {
-  const text = cssVar('--text', '#15191c');
-  const grid = cssVar('--line', '#c9c4b8');
-  const palette = [cssVar('--accent', '#0a6d8c'), cssVar('--warn-line', '#a15c00'), cssVar('--bad-line', '#b3261e')];
-  const axis = { stroke: text, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid, width: 1 } };
-  return {
-    width,
-    height: props.height ?? 200,
-    tzDate: (ts) => uPlot.tzDate(new Date(ts * 1000), props.timeZone),
-    cursor: { drag: { x: false, y: false } },
-    hooks: { draw: [(u) => drawMarkers(u, markers())] },
-    legend: { show: true, live: true },
-    scales: { x: { time: true }, y: props.logScale ? { distr: 3 } : { range: (_u, min, max) => [Math.min(0, min), max > 0 ? max * 1.05 : 1] } },
-    axes: [{ ...axis }, { ...axis, label: props.yLabel, size: 56 }],
-    series: [
-      {},
-      ...props.lines.map((l, i) => ({
-        label: l.label,
-        stroke: l.colour ?? palette[i % palette.length],
-        width: 2,
-        dash: l.dash,
-        fill: l.fill,
-        points: { show: false },
-        spanGaps: false,
-      })),
-    ],
-  };
 }
 
 /** A hydrograph plot that fills its container's width. */
 export function Hydrograph(props: HydrographProps) {
-  const host = useRef<HTMLDivElement>(null);
-  const plot = useRef<uPlot | undefined>(undefined);
-  // Read by the draw hook, so new markers need only a redraw, not a new plot.
-  const markers = useRef(props.markers);
-  markers.current = props.markers;
-  const shape = `${props.lines.map((l) => l.label).join('|')}|${props.yLabel}|${props.logScale}|${props.timeZone}`;
-  useEffect(() => {
-    const el = host.current!;
-    const u = new uPlot(makeOptions(props, el.clientWidth || 320, () => markers.current), toData(props), el);
-    plot.current = u;
-    const resize = new ResizeObserver(() => u.setSize({ width: el.clientWidth || 320, height: props.height ?? 200 }));
-    resize.observe(el);
-    return () => {
-      resize.disconnect();
-      u.destroy();
-      plot.current = undefined;
-    };
-  }, [shape]);
-  useEffect(() => {
-    plot.current?.setData(toData(props));
-  }, [props.time_ms, props.lines]);
-  useEffect(() => {
-    plot.current?.redraw(false);
-  }, [props.markers]);
+  const series = useMemo<PlotSeries[]>(
+    () => props.lines.map((l) => ({ label: l.label, values: l.values, colour: l.colour, dash: l.dash })),
+    [props.lines],
+  );
+  const xAxis = useMemo(() => ({ kind: 'time' as const, timeZone: props.timeZone }), [props.timeZone]);
+  const markers = props.markers;
+  const draw = useCallback((view: PlotDrawView) => markers && drawMarkers(view, markers), [markers]);
   return (
-    <figure class="hydrograph">
-      <div ref={host} role="img" aria-label={props.description} />
-    </figure>
+    <Plot
+      x={props.time_ms}
+      xAxis={xAxis}
+      series={series}
+      yLabel={props.yLabel}
+      logY={props.logScale}
+      height={props.height ?? 200}
+      description={props.description}
+      draw={draw}
+      className="hydrograph"
+    />
   );
 }

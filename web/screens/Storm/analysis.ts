@@ -1,22 +1,19 @@
 // Glue between the stored series and the core's storm functions: one discharge per time, the method the
 // user picked as a core SeparationMethod, and the whole analysis as one result or one plain error.
 import {
-  BFI_MAX_PRESETS,
-  defaultChapmanMaxwell,
-  defaultEckhardt,
-  defaultLyneHollick,
-  defaultSmoothedMinima,
   findEventPointsDetailed,
   inflectionByNewtonPolynomial,
-  localMinimumInterval_days,
+  methodWithDefaults,
   separateBaseflowDetailed,
   summarizeEvent,
   type EventPoints,
   type EventSummary,
   type SeparationMethod,
 } from '../../../core';
-import { READING_SOURCE_CODES, type SeriesWithDischarge } from '../../db';
-import type { MethodChoice, MethodKind } from '../../components/SeparationPicker';
+import type { MethodChoice } from '../../components/SeparationPicker';
+
+// The rules "logger wins at the same time, manual readings averaged" and "which methods use key points" live in core.
+export { seriesFromReadings, usesKeyPoints, type SeriesFromReadings } from '../../../core';
 
 /** A discharge record ready for the core: times (UTC ms, ascending) and discharges (m³/s). */
 export interface StormSeries {
@@ -24,104 +21,9 @@ export interface StormSeries {
   discharge_m3s: Float64Array;
 }
 
-/** What was made of the stored readings of a window. */
-export type SeriesFromReadings =
-  | {
-      kind: 'ready';
-      series: StormSeries;
-      /** Readings left out because a logger reading had the same time. */
-      skipped: number;
-      /** Readings whose stage lies outside the rating's gauged range. */
-      extrapolated: number;
-    }
-  | { kind: 'unrated'; count: number; total: number; firstTime_ms: number }
-  | { kind: 'empty' };
-
-/**
- * One discharge (m³/s) per time from a window's series (times ascending). Where several readings share a
- * time, the logger readings win (averaged if there are several); without a logger reading the manual ones
- * are averaged. Why: the logger record is the continuous series a storm is read from, and a staff check at
- * the same minute checks the logger (its correction is applied at logger import); mixing it in would put
- * a step of a few millimetres into the record.
- */
-export function seriesFromReadings(rows: SeriesWithDischarge): SeriesFromReadings {
-  const t = rows.time_ms;
-  const q = rows.discharge_m3s;
-  const n = t.length;
-  if (n === 0) return { kind: 'empty' };
-  let unrated = 0;
-  let firstUnrated = -1;
-  for (let i = 0; i < n; i++) {
-    // NaN is how the series marks a reading with no rating in force.
-    if (Number.isNaN(q[i])) {
-      unrated++;
-      if (firstUnrated < 0) firstUnrated = i;
-    }
-  }
-  if (unrated > 0) return { kind: 'unrated', count: unrated, total: n, firstTime_ms: t[firstUnrated] };
-  const logger = READING_SOURCE_CODES.logger;
-  const times = new Float64Array(n);
-  const discharges = new Float64Array(n);
-  let m = 0;
-  let skipped = 0;
-  let extrapolated = 0;
-  let i = 0;
-  while (i < n) {
-    let j = i;
-    while (j + 1 < n && t[j + 1] === t[i]) j++;
-    let loggers = 0;
-    for (let k = i; k <= j; k++) if (rows.source[k] === logger) loggers++;
-    let sum = 0;
-    let chosen = 0;
-    for (let k = i; k <= j; k++) {
-      if (loggers > 0 && rows.source[k] !== logger) continue;
-      sum += q[k];
-      extrapolated += rows.extrapolated[k];
-      chosen++;
-    }
-    skipped += j + 1 - i - chosen;
-    times[m] = t[i];
-    discharges[m] = sum / chosen;
-    m++;
-    i = j + 1;
-  }
-  return {
-    kind: 'ready',
-    series: { time_ms: times.slice(0, m), discharge_m3s: discharges.slice(0, m) },
-    skipped,
-    extrapolated,
-  };
-}
-
-/** True for the methods that draw baseflow between the key points (the others filter the whole window). */
-export function usesKeyPoints(kind: MethodKind): boolean {
-  return kind === 'variable-slope' || kind === 'constant-discharge' || kind === 'straight-line' || kind === 'concave';
-}
-
 /** The core method for a pick, with every parameter written out so a saved analysis can be repeated. */
 export function methodFor(choice: MethodChoice, area_km2: number | undefined): SeparationMethod {
-  switch (choice.kind) {
-    case 'variable-slope':
-    case 'constant-discharge':
-    case 'straight-line':
-    case 'concave':
-      return { kind: choice.kind };
-    case 'lyne-hollick':
-      return { kind: 'lyne-hollick', alpha: defaultLyneHollick.alpha, passes: defaultLyneHollick.passes };
-    case 'chapman-maxwell':
-      return { kind: 'chapman-maxwell', recession: defaultChapmanMaxwell.recession };
-    case 'eckhardt':
-      return { kind: 'eckhardt', bfiMax: BFI_MAX_PRESETS[choice.bfiPreset], recession: defaultEckhardt.recession };
-    case 'smoothed-minima':
-      return { kind: 'smoothed-minima', block_days: defaultSmoothedMinima.block_days, factor: defaultSmoothedMinima.factor };
-    case 'local-minimum':
-      // Without an area the core says what it needs; with one, the interval is written out.
-      return area_km2 === undefined ? { kind: 'local-minimum' } : { kind: 'local-minimum', interval_days: localMinimumInterval_days(area_km2) };
-    default: {
-      const unknown: never = choice.kind;
-      throw new RangeError(`No separation method called ${String(unknown)}`);
-    }
-  }
+  return methodWithDefaults(choice.kind, { bfiPreset: choice.bfiPreset, area_km2 });
 }
 
 /** A computation that either gave a value or stopped with a plain sentence (from a core RangeError). */

@@ -1,26 +1,10 @@
-// Invented records for the storage tests and a fresh fake IndexedDB per test.
-import 'fake-indexeddb/auto';
-import { afterEach, beforeEach } from 'vitest';
+// Invented record bodies for tests (Kettle Creek at Fernbrook, an invented site): pure, no storage.
 import type { GaugingBody, RatingBody, ReadingBody, SiteBody } from '../../core/records/index';
-import { resetDbForTests, setClockForTests } from '../../web/db/testing';
 
 /** 2026-03-01T00:00:00Z, UTC ms: the invented start of the test data. */
 export const T0 = Date.UTC(2026, 2, 1);
 /** 15 minutes in ms. */
 export const QUARTER_HOUR_MS = 15 * 60 * 1000;
-
-/** Gives every test an empty database and a wall clock that the test can move. */
-export function useFreshDb(): { clock: { now: number } } {
-  const clock = { now: T0 + 86_400_000 * 365 };
-  beforeEach(() => {
-    clock.now = T0 + 86_400_000 * 365;
-    setClockForTests(() => clock.now);
-  });
-  afterEach(async () => {
-    await resetDbForTests();
-  });
-  return { clock };
-}
 
 /** An invented site (Kettle Creek at Fernbrook). */
 export function site(overrides: Partial<SiteBody> = {}): SiteBody {

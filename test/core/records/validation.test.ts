@@ -3,8 +3,8 @@ import { describe, expect, it } from 'vitest';
 import {
   fromSyncRecord, RecordValidationError, toSyncRecord, validateAnalysisBody, validateBody, validateGaugingBody,
   validateRatingBody, validateReadingBody, validateRecord, validateSiteBody, validateSyncRecord, type ReadingRecord,
-} from '../../core/records/index';
-import { gauging, rating, reading, site } from './fixtures';
+} from '../../../core/records/index';
+import { gauging, rating, reading, site } from '../../support/records';
 
 const SITE_ID = '0b6f1f3e-6a53-4f7c-9a53-1d2f6e1b7c10';
 

@@ -7,7 +7,7 @@ export default defineConfig({
   publicDir: false,
   logLevel: 'warn',
   build: {
-    outDir: resolve(import.meta.dirname, '../../../dist-test-pages'),
+    outDir: resolve(import.meta.dirname, '../../../../dist-test-pages'),
     emptyOutDir: true,
     target: 'es2022',
     rollupOptions: {

@@ -1,11 +1,11 @@
 // Test-only page: exposes web/db to page.evaluate in the Chromium test and benchmark.
 import { unwrap } from 'idb';
-import type { ReadingBody, ReadingRecord } from '../../../core/records/index';
+import type { ReadingBody, ReadingRecord } from '../../../../core/records/index';
 import {
   getDb, getSite, importReadings, listReadings, READING_SOURCE_CODES, readingSeries, readingsWithDischarge, saveRating, saveSite,
   seriesWithDischarge, storageState,
-} from '../../../web/db/index';
-import { deleteFreshetDbForTests } from '../../../web/db/testing';
+} from '../../../../web/db/index';
+import { deleteFreshetDbForTests } from '../../../../web/db/testing';
 
 const T0 = Date.UTC(2026, 2, 1);
 const QUARTER_HOUR_MS = 900_000;

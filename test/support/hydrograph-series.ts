@@ -1,5 +1,5 @@
 // Synthetic hydrographs with exactly known properties, built for the tests (invented values).
-import type { Series } from '../../../core/hydrograph/index';
+import type { Series } from '../../core/hydrograph/index';
 
 export const H = 3_600_000;
 export const DAY = 86_400_000;

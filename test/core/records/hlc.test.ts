@@ -2,7 +2,7 @@
 // Clocks"): monotonic per device, causality across devices, total order, string order = clock order.
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { compareRev, formatRev, maxRev, nextRev, parseRev, REV_MAX_COUNTER } from '../../core/records/index';
+import { compareRev, formatRev, maxRev, nextRev, parseRev, REV_MAX_COUNTER } from '../../../core/records/index';
 
 const wall = fc.integer({ min: 0, max: 4_102_444_800_000 });
 const device = fc.stringMatching(/^[A-Za-z0-9_-]{1,64}$/);

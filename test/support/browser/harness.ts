@@ -6,7 +6,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { chromium, type BrowserContext } from 'playwright-core';
 
-export const ROOT = resolve(import.meta.dirname, '../..');
+export const ROOT = resolve(import.meta.dirname, '../../..');
 
 /** Chromium to drive: $CHROMIUM_PATH, else the first of the usual Debian/Ubuntu/Chrome paths. */
 export function chromiumPath(): string {

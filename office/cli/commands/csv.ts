@@ -1,0 +1,52 @@
+// `freshet csv <bundle.json> --out <dir>`: the CSV tables of every site in a bundle, written all at once.
+import { gaugingsToCsv, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv } from '../../../core/index';
+import { expectPositionals, parseCommandArgs } from '../args';
+import { CliError, type Command } from '../io';
+import { readBundleFile } from '../read-bundle';
+import { siteStems, sitesOf } from '../site-data';
+import { writeFilesAtomically, type OutputFile } from '../write-files';
+
+const HELP = `Usage: freshet csv <bundle.json> --out <dir>
+
+Writes CSV tables (RFC 4180, UTF-8 with a byte-order mark, ISO 8601 times with the site's UTC offset,
+units in the header, in each site's display units) for every site in the bundle:
+  <site>_readings.csv         readings with discharge, shift, extrapolated flag, source, quality, note
+  <site>_gaugings.csv         gaugings: mean stage, discharge, method, grade
+  <site>_rating_segments.csv  each rating's power-law segments, coefficients in SI (Q m³/s, h m)
+  <site>_rating_tables.csv    each rating as a stage–discharge table (no shift), extrapolated rows marked
+Text that a spreadsheet could take for a formula is written with a leading apostrophe.
+The folder must be new or empty; nothing is written unless every file is.
+
+Options:
+  --out DIR    the folder to write (required)
+  -h, --help   show this help
+`;
+
+/** The `csv` subcommand. */
+export const csvCommand: Command = {
+  name: 'csv',
+  summary: 'write the CSV tables of every site in a bundle into a folder',
+  help: HELP,
+  async run(args, io) {
+    const parsed = parseCommandArgs('csv', args, { out: { type: 'string' } });
+    const [path] = expectPositionals('csv', parsed, ['bundle.json']);
+    const out = parsed.values.out;
+    if (typeof out !== 'string' || out === '') throw new CliError('freshet csv: --out <dir> is required (try freshet csv --help)', 2);
+    const bundle = await readBundleFile('csv', path, io.cwd);
+    const sites = sitesOf(bundle.records);
+    if (sites.length === 0) throw new CliError(`freshet csv: ${path} holds no site, so there is nothing to export`);
+    const stems = siteStems(sites.map((s) => s.site));
+    const files: OutputFile[] = [];
+    sites.forEach((s, i) => {
+      const o = { siteCode: s.site.code, timeZone: s.site.timeZone, units: s.site.displayUnits };
+      const stem = stems[i];
+      files.push({ name: `${stem}_readings.csv`, text: readingsToCsv(s.readings, o) });
+      files.push({ name: `${stem}_gaugings.csv`, text: gaugingsToCsv(s.gaugings, o) });
+      files.push({ name: `${stem}_rating_segments.csv`, text: ratingSegmentsToCsv(s.ratings, o) });
+      files.push({ name: `${stem}_rating_tables.csv`, text: ratingTablesToCsv(s.ratings, o) });
+    });
+    const dir = await writeFilesAtomically('csv', out, files, io.cwd);
+    io.stdout(`Wrote ${files.length} CSV files for ${sites.length} site${sites.length === 1 ? '' : 's'} to ${dir}\n`);
+    return 0;
+  },
+};

@@ -1,0 +1,32 @@
+// Reads a bundle file for a subcommand: the file, its JSON, then core's bundle checks, each failure as
+// one plain line.
+import { readFile } from 'node:fs/promises';
+import { resolve } from 'node:path';
+import { BundleError, parseBundle, type Bundle } from '../../core/exchange/index';
+import { CliError } from './io';
+
+/** The checked bundle in file `path` (relative to cwd), or a CliError (exit 1) saying what is wrong with it. */
+export async function readBundleFile(command: string, path: string, cwd: string): Promise<Bundle> {
+  const full = resolve(cwd, path);
+  let text: string;
+  try {
+    text = await readFile(full, 'utf8');
+  } catch (err) {
+    const code = (err as NodeJS.ErrnoException).code;
+    const why = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a folder, not a file' : code === 'EACCES' ? 'permission denied' : (err as Error).message.split('\n')[0];
+    throw new CliError(`freshet ${command}: cannot read ${path}: ${why}`);
+  }
+  let json: unknown;
+  try {
+    // A byte-order mark is not JSON; a file saved by an editor may start with one.
+    json = JSON.parse(text.replace(/^\uFEFF/, ''));
+  } catch (err) {
+    throw new CliError(`freshet ${command}: ${path} is not a bundle: it is not valid JSON (${(err as Error).message.split('\n')[0]})`);
+  }
+  try {
+    return parseBundle(json);
+  } catch (err) {
+    if (err instanceof BundleError) throw new CliError(`freshet ${command}: ${path}: ${err.message}`);
+    throw err;
+  }
+}

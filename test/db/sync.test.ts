@@ -6,7 +6,8 @@ import {
   acknowledge, applyIncoming, exportBundle, getDb, getMeta, getReading, getSite, getSyncValue, listConflicts, markExported,
   nextOutgoing, previewIncoming, readingSeries, saveReading, saveSite, settleConflict, waitingCount,
 } from '../../web/db/index';
-import { reading, site, T0, useFreshDb } from './fixtures';
+import { reading, site, T0 } from '../support/records';
+import { useFreshDb } from '../support/db';
 
 const { clock } = useFreshDb();
 const OFFICE = 'office-1';

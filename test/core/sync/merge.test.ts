@@ -8,7 +8,7 @@ import { formatRev, validateSyncRecord, type SyncRecord } from '../../../core/re
 import {
   applyPlan, decide, descends, frontierOf, planMerge, recordKey, stampOf, AHEAD_TOLERANCE_MS, type Frontier,
 } from '../../../core/sync/index';
-import { isAncestor, runHistory, stepArb, T0, type History } from './history';
+import { isAncestor, runHistory, stepArb, T0, type History } from '../../support/sync-history';
 
 const stepsArb = fc.array(stepArb, { minLength: 1, maxLength: 40 });
 

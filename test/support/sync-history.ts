@@ -1,8 +1,8 @@
 // Invented edit histories for the merge properties: a few devices edit a few records, pass versions to
 // one another, and sometimes settle a conflict; every version with the versions it was built on.
 import fc from 'fast-check';
-import { maxRev, nextRev, type SyncRecord } from '../../../core/records/index';
-import { mergeIntoFrontier, recordKey, seenAfter, type Frontier } from '../../../core/sync/index';
+import { maxRev, nextRev, type SyncRecord } from '../../core/records/index';
+import { mergeIntoFrontier, recordKey, seenAfter, type Frontier } from '../../core/sync/index';
 
 export const DEVICES = ['dev-a', 'dev-b', 'dev-c'] as const;
 export const RECORD_IDS = ['0b5a1c9e-3f0e-4c55-8a3e-1d2f00000001', '0b5a1c9e-3f0e-4c55-8a3e-1d2f00000002'] as const;

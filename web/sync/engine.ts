@@ -79,7 +79,9 @@ async function stop(outcome: Exclude<PushOutcome, { kind: 'delivered' }>, attemp
     // ±20 % spread so many phones coming back at once do not knock together.
     const wait = outcome.after_ms ?? retryDelay_ms(attempts) * (0.8 + 0.4 * Math.random());
     timer = setTimeout(() => void syncNow(), wait);
-    void askForBackgroundSync();
+    // Background Sync fires as soon as the browser believes it is online, so it is asked for only when the
+    // browser knows it is offline; otherwise a failing office would be retried in a tight loop.
+    if (!navigator.onLine) void askForBackgroundSync();
   }
   return { kind: outcome.kind, message: outcome.message };
 }

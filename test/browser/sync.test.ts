@@ -175,10 +175,10 @@ describe('push to an office endpoint on another origin', () => {
     const before = endpoint.pushes.length;
     await recordReading(a, '0.51');
     await until('the endpoint stored the bundle and dropped the connection', () => endpoint.pushes.length > before);
-    await a.evaluate(() => (location.hash = '#/sync'));
-    await a.getByTestId('problem').waitFor({ timeout: 20_000 });
-    expect(await waitingText(a)).toBe('1 record');
-    await a.getByRole('button', { name: 'Send and receive now' }).click();
+    // The app (or Chromium itself, which may resend a request whose reused connection died before any
+    // answer) sends the same bundle again; "Send and receive now" stands in for the wait before a retry.
+    await go(a, '#/sync');
+    if ((await waitingText(a)) !== 'nothing') await a.getByRole('button', { name: 'Send and receive now' }).click();
     await until('the phone has nothing waiting', async () => (await waitingText(a)) === 'nothing');
     const attempts = endpoint.pushes.slice(before);
     expect(attempts.map((p) => p.status)).toEqual(['dropped', 200]);
@@ -190,7 +190,8 @@ describe('push to an office endpoint on another origin', () => {
 describe('pull', () => {
   it('brings a new rating from the office and the discharges follow', async () => {
     await go(a, `#/sites/${siteId}`);
-    await a.getByText('no rating').first().waitFor();
+    await a.locator('.reading-row').first().waitFor();
+    expect(await a.locator('.reading-row .hint').first().textContent()).toMatch(/^no rating/);
     const now = Date.now();
     // Invented rating Q = 10·(h − 0.2)², gauged 0.3–1.5 m: at 0.51 m, Q = 10 · 0.31² = 0.961 m³/s (exact).
     const rating = {
@@ -205,7 +206,10 @@ describe('pull', () => {
     await a.getByRole('button', { name: 'Send and receive now' }).click();
     await go(a, `#/sites/${siteId}`);
     await a.getByText('0.961 m³/s').waitFor({ timeout: 20_000 });
-    expect(await a.getByText('no rating').count()).toBe(0);
+    // Q = 10·(h − 0.2)² at each stage recorded (exact analytic values, rounded to 3 significant figures).
+    const main = (await a.locator('main').textContent()) ?? '';
+    for (const q of ['0.441', '0.529', '0.625', '0.729', '0.841', '0.961']) expect(main).toContain(`${q} m³/s`);
+    expect(await a.locator('.reading-row .hint', { hasText: /^no rating/ }).count()).toBe(0);
   });
 
   it('brings two browser profiles to the same records', async () => {
@@ -214,7 +218,7 @@ describe('pull', () => {
     await setEndpoint(b, 'tok-b');
     await until('phone B pulled everything', async () => (await storedVersions(b)).length === 8);
     await recordReading(b, '0.62');
-    await until('phone B’s reading reached the endpoint', () => endpoint.records().length === 8);
+    await until('phone B’s reading reached the endpoint', () => endpoint.records().length === 9);
     await go(a, '#/sync');
     await a.getByRole('button', { name: 'Send and receive now' }).click();
     await until('both profiles hold the same versions', async () => JSON.stringify(await storedVersions(a)) === JSON.stringify(await storedVersions(b)));

@@ -96,3 +96,11 @@ export function displayUnit(quantity: DisplayQuantity, system: UnitSystem): stri
   const u = unitsOf('displayUnit', quantity, system);
   return system === 'us' ? u.us : u.metric;
 }
+
+/** Decimals a stage (m or ft) is shown with: millimetres in metric, hundredths of a foot in US units. */
+export const STAGE_DECIMALS: Readonly<Record<UnitSystem, number>> = { metric: 3, us: 2 };
+
+/** A stage or length (stored in m) as shown on screen with its unit, e.g. "0.734 m" or "2.41 ft". */
+export function stageText(stage_m: number, units: UnitSystem): string {
+  return `${toDisplay('stage', stage_m, units).toFixed(STAGE_DECIMALS[units])} ${displayUnit('stage', units)}`;
+}

@@ -1,5 +1,5 @@
 // Numbers and times as the screens show them: always with a unit, never NaN.
-import { displayUnit, toDisplay, toLocalInput, type DisplayQuantity, type UnitSystem } from '../core';
+import { displayUnit, STAGE_DECIMALS, toDisplay, toLocalInput, type DisplayQuantity, type UnitSystem } from '../core';
 
 /** A value in display units with its unit label; '—' when there is no value. */
 export function formatQuantity(quantity: DisplayQuantity, value_si: number | undefined, units: UnitSystem): string {
@@ -9,7 +9,7 @@ export function formatQuantity(quantity: DisplayQuantity, value_si: number | und
   switch (quantity) {
     case 'stage':
     case 'length':
-      return `${v.toFixed(units === 'us' ? 2 : 3)} ${unit}`;
+      return `${v.toFixed(STAGE_DECIMALS[units])} ${unit}`;
     case 'discharge':
     case 'velocity':
       return `${significant(v)} ${unit}`;

@@ -16,8 +16,8 @@
 //   previous year with ±4 % measurement scatter.
 import { continuousCoefficient, dischargeAt, stageAt, type Rating } from '../rating/index';
 import type { GaugingBody, RatingBody, ReadingBody, SiteBody } from '../records/index';
+import { MS_PER_DAY } from '../time/day';
 
-const DAY_MS = 86_400_000;
 const STEP_MS = 15 * 60_000;
 
 /** A demo record with its fixed id (so loading the scenario twice writes nothing new). */
@@ -82,7 +82,7 @@ export function demoFlow(t_days: number): number {
 export function demoScenario(end_ms: number): DemoScenario {
   if (!Number.isFinite(end_ms) || end_ms <= 0) throw new RangeError(`demoScenario needs an end time in UTC ms; got ${end_ms}`);
   const end = Math.floor(end_ms / STEP_MS) * STEP_MS;
-  const start = end - 21 * DAY_MS;
+  const start = end - 21 * MS_PER_DAY;
   const rnd = seeded(0x5eed_03);
   const rating = demoRating();
   const site: DemoItem<SiteBody> = {
@@ -99,7 +99,7 @@ export function demoScenario(end_ms: number): DemoScenario {
   const readings: DemoItem<ReadingBody>[] = [];
   let n = 0;
   for (let t = start; t <= end; t += STEP_MS) {
-    const q = demoFlow((t - start) / DAY_MS);
+    const q = demoFlow((t - start) / MS_PER_DAY);
     const noise = (rnd() - 0.5) * 0.004;
     const stage_m = Math.round((stageAt(rating, q) + noise) * 1000) / 1000;
     readings.push({
@@ -109,7 +109,7 @@ export function demoScenario(end_ms: number): DemoScenario {
   }
   // Staff checks beside the logger every 3–4 days.
   for (let d = 1, k = 0; d < 21; d += k % 2 === 0 ? 3 : 4, k++) {
-    const t = start + d * DAY_MS + 2 * 60 * 60_000;
+    const t = start + d * MS_PER_DAY + 2 * 60 * 60_000;
     const logger = readings[Math.round((t - start) / STEP_MS)];
     const offset = (1 + Math.floor(rnd() * 5)) / 1000;
     readings.push({
@@ -123,13 +123,13 @@ export function demoScenario(end_ms: number): DemoScenario {
     const scatter = (rnd() - 0.5) * 0.08;
     const q = dischargeAt(rating, h) * (1 + scatter);
     return {
-      id: demoId(4, i + 1), siteId: DEMO_SITE_ID, time_ms: start - (340 - i * 28) * DAY_MS + 23 * 60 * 60_000,
+      id: demoId(4, i + 1), siteId: DEMO_SITE_ID, time_ms: start - (340 - i * 28) * MS_PER_DAY + 23 * 60 * 60_000,
       meanStage_m: h, discharge_m3s: Math.round(q * 1000) / 1000, method: 'velocity-area',
       grade: Math.abs(scatter) < 0.025 ? 'good' : 'fair', observer: 'J. Tarrant (demo)', note: '',
     };
   });
   const ratingRecord: DemoItem<RatingBody> = {
-    id: demoId(5, 1), siteId: DEMO_SITE_ID, validFrom_ms: start - 365 * DAY_MS,
+    id: demoId(5, 1), siteId: DEMO_SITE_ID, validFrom_ms: start - 365 * MS_PER_DAY,
     segments: rating.segments, gaugedRange_m: rating.gaugedRange_m, shifts: [],
     fittedFrom: gaugings.map((g) => g.id), note: 'Demo rating: invented two-segment curve.',
   };

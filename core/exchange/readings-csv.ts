@@ -2,17 +2,12 @@
 // byte-order mark, units in the header, ISO 8601 times with the site's offset, free text neutralised.
 import { displayUnit, toDisplay, type UnitSystem } from '../units';
 import { toIsoWithOffset } from '../time/index';
-import type { ReadingRecord } from '../records/index';
+import { hasDischarge } from '../rating/index';
+import type { ReadingWithDischarge } from '../readings/index';
 import { csvNumber, csvTable, type CsvColumn } from './csv-write';
 
-/** One reading row to export: the stored reading and its discharge (m³/s, null without a rating). */
-export interface ReadingExportRow {
-  reading: ReadingRecord;
-  discharge_m3s: number | null;
-  /** Shift applied to the stage, m. */
-  shift_m: number;
-  extrapolated: boolean;
-}
+/** One reading row to export: the stored reading and its discharge (m³/s; NaN, none, without a rating). */
+export type ReadingExportRow = Pick<ReadingWithDischarge, 'reading' | 'discharge_m3s' | 'shift_m' | 'extrapolated'>;
 
 /** What the CSV describes: site code, its time zone (for the offsets) and the units to write. */
 export interface ReadingCsvOptions {
@@ -42,7 +37,7 @@ export function readingsToCsv(rows: readonly ReadingExportRow[], options: Readin
       toIsoWithOffset(x.time_ms, timeZone),
       toDisplay('stage', x.stage_m, units).toFixed(stageDecimals),
       toDisplay('stage', r.shift_m, units).toFixed(stageDecimals),
-      r.discharge_m3s === null ? '' : csvNumber(toDisplay('discharge', r.discharge_m3s, units), 6),
+      !hasDischarge(r.discharge_m3s) ? '' : csvNumber(toDisplay('discharge', r.discharge_m3s, units), 6),
       r.extrapolated ? 'yes' : 'no',
       x.source,
       x.quality,

@@ -12,7 +12,6 @@ export {
   defaultNewtonPolynomialNodes,
 } from './newton-polynomial';
 export type { NewtonPolynomialOptions, NewtonPolynomialInflection } from './newton-polynomial';
-export { RECESSION_FIT_READINGS } from './recession-extension';
 export { separateBaseflow, separateBaseflowDetailed } from './separate';
 export type { SeparationContext, SeparationResult } from './separate';
 export {

@@ -1,11 +1,11 @@
 // Local-minimum baseflow (Sloto & Crouse 1996, USGS WRIR 96-4040).
-import { MS_PER_DAY } from './series';
+import { checkArea, MS_PER_DAY } from './series';
 import { joinAnchors } from './anchors';
 import { runoffDuration_days } from './key-points';
 
 /** The interval 2N* (days): the odd integer from 3 to 11 nearest to 2N, N = 0.827·A^0.2 (A in km²). */
 export function localMinimumInterval_days(area_km2: number): number {
-  const twoN = 2 * runoffDuration_days(area_km2);
+  const twoN = 2 * runoffDuration_days(checkArea(area_km2, 'localMinimumInterval_days'));
   const odd = 2 * Math.round((twoN - 1) / 2) + 1;
   return Math.min(11, Math.max(3, odd));
 }

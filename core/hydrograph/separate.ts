@@ -1,7 +1,9 @@
 // Baseflow separation: one entry point for every event method and continuous filter.
-import { concave } from './concave';
 import { constantDischarge } from './constant-discharge';
-import type { EventInput } from './event-common';
+import { fillEvent, flowAt, type EventInput } from './event-common';
+import { concaveLine } from './concave';
+import { filterNoiseNote } from './filter-noise';
+import { lightlySmoothed, smoothingEffectNote } from './light-smoothing';
 import { dailyMeans, dailyToReadings } from './daily-means';
 import { filterSpec } from './filter-spec';
 import { findEventPointsDetailed } from './key-points';
@@ -13,6 +15,8 @@ import { backToReadings, filterQuick, recursiveFilter, regularGrid } from './run
 import {
   checkArea,
   checkEventPoints,
+  interpolateAt,
+  type BaseflowNodes,
   MS_PER_DAY,
   prepareSeries,
   type EventPoints,
@@ -20,8 +24,8 @@ import {
   type Series,
 } from './series';
 import { smoothedMinima } from './smoothed-minima';
-import { straightLine } from './straight-line';
-import { variableSlope } from './variable-slope';
+import { straightLineLine } from './straight-line';
+import { variableSlopeLine } from './variable-slope';
 
 export type { SeparationMethod };
 
@@ -31,6 +35,11 @@ export interface SeparationContext {
   area_km2?: number;
   /** Longest gap (ms) a recursive filter runs across; longer gaps split the record. Default 5 × median step. */
   maxBridge_ms?: number;
+  /**
+   * 'light': separate a lightly smoothed copy (a centred mean of up to 5 readings, 30 minutes either side at most),
+   * cap the baseflow at the recorded discharge, and state the effect in a note. Off by default.
+   */
+  smoothing?: 'light';
 }
 
 /** Baseflow (m³/s, one per reading, 0 ≤ b ≤ Q) with plain sentences about resampling, gaps and key points. */
@@ -38,6 +47,11 @@ export interface SeparationResult {
   baseflow: Float64Array;
   notes: string[];
   points?: EventPoints;
+  /**
+   * Event methods: the baseflow (m³/s) at the key points (UTC ms), where the line bends between readings;
+   * summarizeEvent takes them as extra trapezoid nodes.
+   */
+  baseflowAtPoints?: BaseflowNodes;
 }
 
 const DAILY_TOLERANCE = 1e-6;
@@ -53,12 +67,18 @@ export function separateBaseflowDetailed(
   method: SeparationMethod,
   context?: SeparationContext,
 ): SeparationResult {
+  if (context?.smoothing !== undefined) return smoothedSeparation(series, method, context);
   const kind = method?.kind;
   if ((kind === 'eckhardt' || kind === 'chapman-maxwell' || kind === 'lyne-hollick') && context?.maxBridge_ms === undefined) {
     const spec = filterSpec(method);
     if (context?.area_km2 !== undefined) checkArea(context.area_km2, FN);
     const quick = filterQuick(series, spec);
-    if (quick !== null) return quick;
+    if (quick !== null) {
+      // filterQuick only runs on a series given as Float64Arrays.
+      const note = filterNoiseNote(series.discharge_m3s as Float64Array, spec.name);
+      if (note !== null) quick.notes.push(note);
+      return quick;
+    }
   }
   const prepared = prepareSeries(series, FN);
   const area = context?.area_km2 === undefined ? undefined : checkArea(context.area_km2, FN);
@@ -71,7 +91,13 @@ export function separateBaseflowDetailed(
     case 'lyne-hollick':
     case 'eckhardt':
     case 'chapman-maxwell':
-      return recursiveFilter(prepared, context?.maxBridge_ms, filterSpec(method));
+    {
+      const spec = filterSpec(method);
+      const run = recursiveFilter(prepared, context?.maxBridge_ms, spec);
+      const note = filterNoiseNote(prepared.discharge_m3s, spec.name, missingMask(prepared));
+      if (note !== null) run.notes.push(note);
+      return run;
+    }
     case 'smoothed-minima': {
       const block = positive(method.block_days ?? defaultSmoothedMinima.block_days, 'smoothed-minima block_days');
       const factor = method.factor ?? defaultSmoothedMinima.factor;
@@ -116,15 +142,45 @@ function eventMethod(
     notes.push('Key points were found automatically.', ...found.notes.filter((n) => !notes.includes(n)));
   }
   const input: EventInput = { time_ms: prepared.time_ms, discharge_m3s: prepared.discharge_m3s, points };
-  const baseflow =
-    kind === 'constant-discharge'
-      ? constantDischarge(input)
-      : kind === 'straight-line'
-        ? straightLine(input)
-        : kind === 'concave'
-          ? concave(input)
-          : variableSlope(input);
-  return { baseflow, notes, points };
+  if (kind === 'constant-discharge') return { baseflow: constantDischarge(input), notes, points };
+  const line = kind === 'straight-line' ? straightLineLine(input) : kind === 'concave' ? concaveLine(input) : variableSlopeLine(input);
+  const baseflow = fillEvent(input, line);
+  const times = [points.riseStart_ms, points.peak_ms, points.inflection_ms, points.runoffEnd_ms];
+  const baseflowAtPoints: BaseflowNodes = {
+    time_ms: times,
+    baseflow_m3s: times.map((x) => Math.min(flowAt(input, x), Math.max(0, line(x)))),
+  };
+  return { baseflow, notes, points, baseflowAtPoints };
+}
+
+/** Separates a lightly smoothed copy of the record and says what the smoothing changed (see SeparationContext). */
+function smoothedSeparation(series: Series, method: SeparationMethod, context: SeparationContext): SeparationResult {
+  if (context.smoothing !== 'light') {
+    throw new RangeError(`${FN} needs smoothing 'light' or none; got ${JSON.stringify(context.smoothing)}`);
+  }
+  const plain: SeparationContext = { ...context, smoothing: undefined };
+  const prepared = prepareSeries(series, FN);
+  const raw = separateBaseflowDetailed(series, method, plain);
+  const smooth = lightlySmoothed(prepared);
+  if (smooth.discharge_m3s === null) return { ...raw, notes: [...raw.notes, smooth.note] };
+  const t = prepared.time_ms;
+  const q = prepared.discharge_m3s;
+  const result = separateBaseflowDetailed({ time_ms: t, discharge_m3s: smooth.discharge_m3s }, method, plain);
+  const b = result.baseflow;
+  for (let i = 0; i < b.length; i++) if (b[i] > q[i]) b[i] = q[i];
+  if (result.baseflowAtPoints) {
+    const nodes = result.baseflowAtPoints;
+    nodes.baseflow_m3s = nodes.baseflow_m3s.map((v, k) => Math.min(v, interpolateAt(t, q, nodes.time_ms[k])));
+  }
+  const note = smoothingEffectNote(t, q, raw.baseflow, smooth.discharge_m3s, b, smooth.readings);
+  return { ...result, notes: [...new Set([...prepared.notes, ...result.notes]), note] };
+}
+
+function missingMask(prepared: PreparedSeries): Uint8Array | undefined {
+  if (prepared.gaps.length === 0) return undefined;
+  const mask = new Uint8Array(prepared.time_ms.length);
+  for (const g of prepared.gaps) mask.fill(1, g.first, g.last + 1);
+  return mask;
 }
 
 /**

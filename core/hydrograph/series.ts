@@ -1,6 +1,6 @@
 // Storm-series types, input checks and gap bridging shared by every hydrograph computation.
 
-/** A discharge record: times (UTC epoch ms, strictly ascending) and discharges (m³/s; NaN marks a gap). */
+/** A discharge record: times (UTC epoch ms, strictly ascending) and discharges (m³/s; NaN, null or undefined marks a gap). */
 export interface Series {
   time_ms: ArrayLike<number>;
   discharge_m3s: ArrayLike<number>;
@@ -14,10 +14,22 @@ export interface EventPoints {
   runoffEnd_ms: number;
 }
 
+/** Baseflow (m³/s) at extra times (UTC ms, ascending) where a separation line bends between readings. */
+export interface BaseflowNodes {
+  time_ms: number[];
+  baseflow_m3s: number[];
+}
+
 /** A run of missing discharges: readings first..last (inclusive indices) are NaN. */
 export interface Gap {
   first: number;
   last: number;
+}
+
+/** A stretch with no readings in a record that otherwise has a steady step (a logger outage): after reading `after`. */
+export interface Outage {
+  after: number;
+  length_ms: number;
 }
 
 /** A checked series: times (ms) and discharges (m³/s) as Float64Array, gaps filled by linear interpolation; may share the caller's arrays, never written to when shared. */
@@ -25,13 +37,15 @@ export interface PreparedSeries {
   time_ms: Float64Array;
   discharge_m3s: Float64Array;
   gaps: Gap[];
+  /** Stretches without readings more than 3 times the usual step long (only in records with a usual step). */
+  outages: Outage[];
   notes: string[];
   /** True when every interval equals the others within one part in a million. */
   regular: boolean;
 }
 
-/** Milliseconds per day. */
-export const MS_PER_DAY = 86_400_000;
+/** Milliseconds per day (the one definition lives in core/time). */
+export { MS_PER_DAY } from '../time/day';
 
 /** Checks a series; returns it as Float64Arrays with interior gaps bridged linearly and end gaps held level. */
 export function prepareSeries(series: Series, fn: string): PreparedSeries {
@@ -47,6 +61,7 @@ export function prepareSeries(series: Series, fn: string): PreparedSeries {
   }
   const tIn = series.time_ms;
   const qIn = series.discharge_m3s;
+  if (!(tIn instanceof Float64Array)) checkNumbers(tIn, 'time_ms', fn);
   // The caller's Float64Arrays are used as they are (core never writes to them); anything else is copied.
   const t = tIn instanceof Float64Array ? tIn : Float64Array.from(tIn);
   const scan = quickScan(t, qIn);
@@ -54,18 +69,65 @@ export function prepareSeries(series: Series, fn: string): PreparedSeries {
   if (!scan.clean) valid = slowScan(t, qIn, fn);
   const stepMin = scan.stepMin;
   const stepMax = scan.stepMax;
-  if (valid === 0) throw new RangeError(`${fn} needs at least one reading with a discharge; all ${n} are gaps (NaN)`);
-  const q = valid === n && qIn instanceof Float64Array ? qIn : Float64Array.from(qIn);
+  if (valid === 0) throw new RangeError(`${fn} needs at least one reading with a discharge; all ${n} are gaps (missing)`);
+  // null and undefined (what JSON and sparse arrays make of a missing value) are gaps like NaN.
+  const q = valid === n && qIn instanceof Float64Array ? qIn : Float64Array.from(qIn, (v) => (v === null || v === undefined ? NaN : v));
   const regular = n < 3 || stepMax - stepMin <= 1e-6 * stepMin;
   const gaps = valid === n ? [] : bridgeGaps(t, q);
   const notes = gaps.map((g) => gapNote(t, g, n));
-  return { time_ms: t, discharge_m3s: q, gaps, notes, regular };
+  const outages = regular ? [] : findOutages(t);
+  for (const o of outages) notes.push(outageNote(t, o));
+  return { time_ms: t, discharge_m3s: q, gaps, outages, notes, regular };
 }
 
-/** One quick pass: clean when times are finite and ascending and every discharge is finite and ≥ 0. */
+/** Throws a RangeError naming the first entry of a plain array that is a string, boolean or anything but a number. */
+function checkNumbers(values: ArrayLike<unknown>, name: string, fn: string): void {
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    if (typeof v === 'number' || ((v === null || v === undefined) && name === 'discharge_m3s')) continue;
+    const shown = typeof v === 'string' ? `the text ${JSON.stringify(v)}` : `${typeof v} ${String(v)}`;
+    throw new RangeError(`${fn} needs ${name} as numbers; ${name}[${i}] is ${shown}`);
+  }
+}
+
+/** Stretches without readings longer than 3 usual steps, where at least half the intervals are the usual step (±1 %). */
+function findOutages(t: Float64Array): Outage[] {
+  const n = t.length;
+  const d = new Float64Array(n - 1);
+  for (let i = 0; i < n - 1; i++) d[i] = t[i + 1] - t[i];
+  const sorted = Float64Array.from(d).sort();
+  const usual = sorted[sorted.length >> 1];
+  let steady = 0;
+  for (let i = 0; i < d.length; i++) if (Math.abs(d[i] - usual) <= 0.01 * usual) steady++;
+  if (2 * steady < d.length) return [];
+  const outages: Outage[] = [];
+  for (let i = 0; i < d.length; i++) if (d[i] > 3 * usual) outages.push({ after: i, length_ms: d[i] });
+  return outages;
+}
+
+/** A UTC time (ms) as "2025-05-01 06:00 UTC" for notes. */
+export function utcLabel(time_ms: number): string {
+  return `${new Date(time_ms).toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+}
+
+/** A duration (ms) in words for notes: hours below two days, else days. */
+export function durationLabel(duration_ms: number): string {
+  const hours = duration_ms / 3_600_000;
+  return hours < 48 ? `${Number(hours.toPrecision(3))} h` : `${Number((hours / 24).toPrecision(3))} days`;
+}
+
+function outageNote(t: Float64Array, o: Outage): string {
+  return (
+    `There are no readings for ${durationLabel(o.length_ms)} after ${utcLabel(t[o.after])} (a logger outage?); ` +
+    `the flow across it is taken as a straight line between the readings either side.`
+  );
+}
+
+/** One quick pass: clean when times are finite and ascending and every discharge is a finite number ≥ 0. */
 function quickScan(t: Float64Array, q: ArrayLike<number>): { clean: boolean; stepMin: number; stepMax: number } {
   const n = t.length;
-  let ok = t[0] > -Infinity && t[0] < Infinity && q[0] >= 0 && q[0] < Infinity;
+  // null, strings and booleans pass `>= 0` in JavaScript: a plain array is also checked for type, slowly.
+  let ok = t[0] > -Infinity && t[0] < Infinity && q[0] >= 0 && q[0] < Infinity && (q instanceof Float64Array || allNumbers(q));
   let stepMin = Infinity;
   let stepMax = 0;
   let previous = t[0];
@@ -81,6 +143,11 @@ function quickScan(t: Float64Array, q: ArrayLike<number>): { clean: boolean; ste
   return { clean: ok, stepMin, stepMax };
 }
 
+function allNumbers(q: ArrayLike<unknown>): boolean {
+  for (let i = 0; i < q.length; i++) if (typeof q[i] !== 'number') return false;
+  return true;
+}
+
 /** The detailed pass when the quick one found something: throws on bad input, else counts valid discharges. */
 function slowScan(t: Float64Array, q: ArrayLike<number>, fn: string): number {
   let previous = -Infinity;
@@ -94,7 +161,12 @@ function slowScan(t: Float64Array, q: ArrayLike<number>, fn: string): number {
       );
     }
     previous = ti;
-    const qi = q[i];
+    const qi: unknown = q[i];
+    if (qi === null || qi === undefined) continue;
+    if (typeof qi !== 'number') {
+      const shown = typeof qi === 'string' ? `the text ${JSON.stringify(qi)}` : `${typeof qi} ${String(qi)}`;
+      throw new RangeError(`${fn} needs discharges as numbers (NaN, null or nothing marks a gap); discharge_m3s[${i}] is ${shown}`);
+    }
     if (qi >= 0 && qi !== Infinity) {
       valid++;
       continue;

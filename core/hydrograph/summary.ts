@@ -1,6 +1,6 @@
 // Event summary: peak, trapezoid volumes, baseflow index, runoff depth and runoff coefficient.
-import { trapezoidVolumes } from './integrate';
-import { checkArea, interpolateAt, prepareSeries, type Series } from './series';
+import { trapezoidVolumes, trapezoidVolumesWithNodes } from './integrate';
+import { checkArea, interpolateAt, prepareSeries, type BaseflowNodes, type Series } from './series';
 
 /** Options of summarizeEvent: area (km²), rainfall depth (mm) and a window (UTC ms; whole series by default). */
 export interface SummaryOptions {
@@ -8,6 +8,8 @@ export interface SummaryOptions {
   rainfall_mm?: number;
   from_ms?: number;
   to_ms?: number;
+  /** Baseflow at the key points from separateBaseflowDetailed: extra trapezoid nodes where the line bends. */
+  baseflowAtPoints?: BaseflowNodes;
 }
 
 /** Event summary: peak (m³/s) and its time (UTC ms), volumes (m³), BFI (0–1), depth (mm), coefficient (0–1+). */
@@ -52,10 +54,14 @@ export function summarizeEvent(series: Series, baseflow: ArrayLike<number>, opti
       peakTime_ms = x;
     }
   }
-  const { total_m3, baseflow_m3 } = trapezoidVolumes(t, q, baseflow, from, to);
+  const nodes = options?.baseflowAtPoints;
+  if (nodes !== undefined) checkNodes(nodes, q, t, fn);
+  const { total_m3, baseflow_m3 } =
+    nodes === undefined ? trapezoidVolumes(t, q, baseflow, from, to) : trapezoidVolumesWithNodes(t, q, baseflow, from, to, nodes);
   const direct = Math.max(0, total_m3 - baseflow_m3);
   let baseflowIndex = 0;
   if (total_m3 > 0) baseflowIndex = baseflow_m3 / total_m3;
+  else if (to === from) notes.push('The window starts and ends at the same time, so it holds no volume; the baseflow index is given as 0.');
   else notes.push('There is no flow in the window; the baseflow index is given as 0.');
   const result: EventSummary = {
     peak_m3s,
@@ -92,6 +98,25 @@ export function checkBaseflow(baseflow: ArrayLike<number>, q: Float64Array, fn: 
     const b = baseflow[i];
     if (!Number.isFinite(b) || b < 0 || b > q[i] * (1 + BASEFLOW_SLACK) + Number.MIN_VALUE) {
       throw new RangeError(`${fn} needs 0 ≤ baseflow ≤ discharge at every reading; reading ${i} has baseflow ${b} m³/s and discharge ${q[i]} m³/s`);
+    }
+  }
+}
+
+/** Checks extra baseflow nodes: finite times inside the series, 0 ≤ b ≤ Q at each (Q interpolated). */
+function checkNodes(nodes: BaseflowNodes, q: Float64Array, t: Float64Array, fn: string): void {
+  const { time_ms: times, baseflow_m3s: values } = nodes;
+  if (!Array.isArray(times) || !Array.isArray(values) || times.length !== values.length) {
+    throw new RangeError(`${fn} needs baseflowAtPoints as equal lists of times and baseflows`);
+  }
+  for (let k = 0; k < times.length; k++) {
+    const x = times[k];
+    const v = values[k];
+    if (!Number.isFinite(x) || x < t[0] || x > t[t.length - 1]) {
+      throw new RangeError(`${fn} needs baseflowAtPoints times inside the series; got ${x}`);
+    }
+    const qx = interpolateAt(t, q, x);
+    if (!Number.isFinite(v) || v < 0 || v > qx * (1 + BASEFLOW_SLACK) + Number.MIN_VALUE) {
+      throw new RangeError(`${fn} needs 0 ≤ baseflow ≤ discharge at baseflowAtPoints; got ${v} m³/s where the discharge is ${qx} m³/s`);
     }
   }
 }

@@ -38,6 +38,11 @@ export function shiftAt(shifts: readonly DatedShift[], time_ms: number, stage_m:
   validateShifts('shiftAt', shifts);
   requireFinite('shiftAt', 'time_ms', time_ms);
   requireFinite('shiftAt', 'stage_m', stage_m);
+  return shiftIn(shifts, time_ms, stage_m);
+}
+
+/** shiftAt (m) without validation, for callers that validated the shifts, time (UTC ms) and stage (m) already. */
+export function shiftIn(shifts: readonly DatedShift[], time_ms: number, stage_m: number): number {
   if (shifts.length === 0 || time_ms < shifts[0].time_ms) return 0;
   let k = shifts.length - 1;
   while (shifts[k].time_ms > time_ms) k--;

@@ -1,2 +1,3 @@
-// Checks on stage readings as they are entered.
+// Checks on stage readings as they are entered, and stored readings with their discharge.
 export { checkReading, FUTURE_TOLERANCE_MS, type ReadingCheck, type ReadingCheckInput, type ReadingWarning, type ReadingWarningCode } from './plausibility';
+export { withDischarge, type ReadingWithDischarge } from './with-discharge';

@@ -1,7 +1,7 @@
 // What a technician should know about a stage reading as it is typed: the discharge from the rating
 // in force (with its shift), and plain warnings that never block saving. [DOMAIN.md §1: trade practice]
-import { dischargeAt, isExtrapolated, shiftAt, zeroFlowStage_m, type DatedShift, type Rating } from '../rating/index';
-import { displayUnit, toDisplay, type UnitSystem } from '../units';
+import { dischargeAtTime, ratingInForce, zeroFlowStage_m, type DatedRating, type StageDischarge } from '../rating/index';
+import { stageText, type UnitSystem } from '../units';
 
 /** Kinds of plausibility warning, one sentence each when shown. */
 export type ReadingWarningCode = 'no-rating' | 'below-zero-flow' | 'extrapolated' | 'jump' | 'future';
@@ -22,26 +22,19 @@ export interface ReadingCheckInput {
   previous?: { stage_m: number; time_ms: number };
   /** Stage change (m) above which a jump from the previous reading is flagged. */
   jumpLimit_m: number;
-  /** The rating in force at time_ms with its dated shifts, if the site has one. */
-  rating?: { rating: Rating; shifts: readonly DatedShift[] };
+  /** The site's ratings (any order; the one in force at time_ms applies, with its dated shifts). */
+  ratings: readonly DatedRating[];
   /** Units for the sentences. */
   units: UnitSystem;
 }
 
-/** Discharge (m³/s) and shift (m) for the reading, whether it is extrapolated, and the warnings. */
-export interface ReadingCheck {
-  discharge_m3s?: number;
-  shift_m: number;
-  extrapolated: boolean;
+/** Discharge (m³/s, NaN when no rating is in force), shift (m), extrapolated flag and rating of the reading, and the warnings. */
+export interface ReadingCheck extends StageDischarge {
   warnings: ReadingWarning[];
 }
 
 /** A time more than this far ahead of the device clock is flagged as in the future (ms). */
 export const FUTURE_TOLERANCE_MS = 5 * 60_000;
-
-function stageText(stage_m: number, units: UnitSystem): string {
-  return `${toDisplay('stage', stage_m, units).toFixed(units === 'us' ? 2 : 3)} ${displayUnit('stage', units)}`;
-}
 
 function durationText(ms: number): string {
   const min = Math.round(ms / 60_000);
@@ -52,34 +45,27 @@ function durationText(ms: number): string {
 
 /** Checks a stage reading and computes its discharge. Throws RangeError for a non-finite stage or time. */
 export function checkReading(input: ReadingCheckInput): ReadingCheck {
-  const { stage_m, time_ms, now_ms, previous, jumpLimit_m, rating, units } = input;
+  const { stage_m, time_ms, now_ms, previous, jumpLimit_m, ratings, units } = input;
   if (!Number.isFinite(stage_m)) throw new RangeError(`checkReading needs a finite stage in m; got ${stage_m}`);
   if (!Number.isFinite(time_ms)) throw new RangeError(`checkReading needs a finite time in UTC ms; got ${time_ms}`);
   if (!Number.isFinite(now_ms)) throw new RangeError(`checkReading needs the clock in UTC ms; got ${now_ms}`);
   if (!(jumpLimit_m > 0)) throw new RangeError(`checkReading needs a jump limit above 0 m; got ${jumpLimit_m}`);
   const warnings: ReadingWarning[] = [];
-  let discharge_m3s: number | undefined;
-  let shift_m = 0;
-  let extrapolated = false;
+  const rating = ratingInForce(ratings, time_ms);
+  const q = dischargeAtTime(rating ? [rating] : [], time_ms, stage_m);
   if (!rating) {
     warnings.push({ code: 'no-rating', text: 'No rating is in force at this time, so no discharge can be given.' });
-  } else {
-    shift_m = shiftAt(rating.shifts, time_ms, stage_m);
-    discharge_m3s = dischargeAt(rating.rating, stage_m, shift_m);
-    const zero_m = zeroFlowStage_m(rating.rating);
-    if (stage_m + shift_m <= zero_m) {
-      warnings.push({
-        code: 'below-zero-flow',
-        text: `The stage${shift_m ? ' with its shift' : ''} is at or below the zero-flow stage of ${stageText(zero_m, units)}: the discharge is 0.`,
-      });
-    } else if (isExtrapolated(rating.rating, stage_m)) {
-      extrapolated = true;
-      const [lo, hi] = rating.rating.gaugedRange_m!;
-      warnings.push({
-        code: 'extrapolated',
-        text: `The stage is outside the gauged range (${stageText(lo, units)} to ${stageText(hi, units)}): the discharge is extrapolated.`,
-      });
-    }
+  } else if (q.discharge_m3s === 0) {
+    warnings.push({
+      code: 'below-zero-flow',
+      text: `The stage${q.shift_m ? ' with its shift' : ''} is at or below the zero-flow stage of ${stageText(zeroFlowStage_m(rating), units)}: the discharge is 0.`,
+    });
+  } else if (q.extrapolated) {
+    const [lo, hi] = rating.gaugedRange_m!;
+    warnings.push({
+      code: 'extrapolated',
+      text: `The stage is outside the gauged range (${stageText(lo, units)} to ${stageText(hi, units)}): the discharge is extrapolated.`,
+    });
   }
   if (previous && Math.abs(stage_m - previous.stage_m) > jumpLimit_m) {
     const d = stage_m - previous.stage_m;
@@ -91,5 +77,5 @@ export function checkReading(input: ReadingCheckInput): ReadingCheck {
   if (time_ms > now_ms + FUTURE_TOLERANCE_MS) {
     warnings.push({ code: 'future', text: `The time is ${durationText(time_ms - now_ms)} ahead of this phone's clock.` });
   }
-  return { discharge_m3s, shift_m, extrapolated, warnings };
+  return { ...q, warnings };
 }

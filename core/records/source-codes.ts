@@ -15,7 +15,9 @@ export const READING_SOURCE_CODES = {
 /** A reading source code (0–3) as stored in a series. */
 export type ReadingSourceCode = (typeof READING_SOURCE_CODES)[ReadingSource];
 
-const BY_CODE: readonly ReadingSource[] = ['staff', 'wire-weight', 'crest-stage', 'logger'];
+const BY_CODE: readonly ReadingSource[] = (Object.keys(READING_SOURCE_CODES) as ReadingSource[]).sort(
+  (a, b) => READING_SOURCE_CODES[a] - READING_SOURCE_CODES[b],
+);
 
 /** The reading source of a series code; throws a RangeError for a code that names none. */
 export function readingSourceOfCode(code: number): ReadingSource {

@@ -52,16 +52,26 @@ export interface SiteBody {
   jumpLimit_m: number;
 }
 
+/** All reading sources (where a stage reading came from), in the order screens list them: the one list. */
+export const READING_SOURCES = ['staff', 'wire-weight', 'crest-stage', 'logger'] as const;
+/** All reading quality grades (the reader's own judgement), best first: the one list. */
+export const READING_QUALITIES = ['good', 'fair', 'poor', 'estimated'] as const;
+
 /** Where a stage reading came from. */
-export type ReadingSource = 'staff' | 'wire-weight' | 'crest-stage' | 'logger';
+export type ReadingSource = (typeof READING_SOURCES)[number];
 
 /** The reader's own judgement of a reading. */
-export type ReadingQuality = 'good' | 'fair' | 'poor' | 'estimated';
+export type ReadingQuality = (typeof READING_QUALITIES)[number];
 
-/** All reading sources, in the order screens list them. */
-export const READING_SOURCES: readonly ReadingSource[] = ['staff', 'wire-weight', 'crest-stage', 'logger'];
-/** All reading quality grades, best first. */
-export const READING_QUALITIES: readonly ReadingQuality[] = ['good', 'fair', 'poor', 'estimated'];
+/** True when x names a reading source. */
+export function isReadingSource(x: unknown): x is ReadingSource {
+  return (READING_SOURCES as readonly unknown[]).includes(x);
+}
+
+/** True when x names a reading quality. */
+export function isReadingQuality(x: unknown): x is ReadingQuality {
+  return (READING_QUALITIES as readonly unknown[]).includes(x);
+}
 
 /** A stage reading: gauge height (m above gauge datum) at a time (UTC ms) at one site. */
 export interface ReadingBody {

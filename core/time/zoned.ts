@@ -1,5 +1,6 @@
 // Wall-clock time in a site's IANA time zone, for showing and entering times. Inside, times are UTC
 // epoch milliseconds; the zone rules come from the platform's Intl time-zone data.
+import { MS_PER_DAY } from './day';
 
 /** A wall-clock time in some zone: year, month 1–12, day, hour 0–23, minute, second. */
 export interface WallTime {
@@ -54,7 +55,7 @@ export function instantOf(wall: WallTime, timeZone: string): number {
   if (!fields.every(Number.isFinite)) throw new RangeError('instantOf needs a complete wall-clock time (year, month, day, hour, minute, second)');
   const naive = Date.UTC(wall.year, wall.month - 1, wall.day, wall.hour, wall.minute, wall.second);
   // Try the offsets in force a day either side of the naive guess; keep the earliest that round-trips.
-  const candidates = [...new Set([zoneOffset_min(naive - 86_400_000, timeZone), zoneOffset_min(naive, timeZone), zoneOffset_min(naive + 86_400_000, timeZone)])]
+  const candidates = [...new Set([zoneOffset_min(naive - MS_PER_DAY, timeZone), zoneOffset_min(naive, timeZone), zoneOffset_min(naive + MS_PER_DAY, timeZone)])]
     .map((off) => naive - off * 60_000)
     .sort((a, b) => a - b);
   for (const t of candidates) {
@@ -62,7 +63,7 @@ export function instantOf(wall: WallTime, timeZone: string): number {
     if (back.year === wall.year && back.month === wall.month && back.day === wall.day && back.hour === wall.hour && back.minute === wall.minute) return t;
   }
   // In a gap: no instant shows this wall time; use the offset from before the change.
-  return naive - zoneOffset_min(naive - 86_400_000, timeZone) * 60_000;
+  return naive - zoneOffset_min(naive - MS_PER_DAY, timeZone) * 60_000;
 }
 
 const pad = (n: number, w = 2) => String(n).padStart(w, '0');

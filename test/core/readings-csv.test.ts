@@ -32,7 +32,7 @@ describe('readingsToCsv', () => {
       reading: reading({ time_ms: Date.UTC(2026, 11, 1, 3, 0), stage_m: 1.9, note: 'debris, "large" log\nat the control', warnings: ['Outside the gauged range.'], gps: { lat: -41.5, lon: 174.25, accuracy_m: 8, time_ms: 0 } }),
       discharge_m3s: 9.87654321, shift_m: -0.01, extrapolated: true,
     },
-    { reading: reading({ time_ms: Date.UTC(2026, 11, 1, 4, 0) }), discharge_m3s: null, shift_m: 0, extrapolated: false },
+    { reading: reading({ time_ms: Date.UTC(2026, 11, 1, 4, 0) }), discharge_m3s: Number.NaN, shift_m: 0, extrapolated: false },
   ];
 
   it('reads back field for field with a general CSV parser, in metric', () => {

@@ -5,11 +5,13 @@ import { checkReading, type DatedShift, type Rating } from '../../core';
 
 const rating: Rating = { segments: [{ fromStage_m: 0.2, coefficient: 5, offset_m: 0.2, exponent: 2 }], gaugedRange_m: [0.3, 1.2] };
 const NOW = Date.UTC(2026, 5, 1, 12);
-const base = { time_ms: NOW - 60_000, now_ms: NOW, jumpLimit_m: 0.3, units: 'metric' as const };
+const base = { time_ms: NOW - 60_000, now_ms: NOW, jumpLimit_m: 0.3, units: 'metric' as const, ratings: [] };
+/** The rating in force from a year before NOW, with these dated shifts. */
+const inForce = (shifts: DatedShift[] = []) => [{ ...rating, id: 'r1', validFrom_ms: NOW - 365 * 86_400_000, shifts }];
 
 describe('checkReading', () => {
   it('gives the discharge of the power law inside the gauged range with no warning', () => {
-    const r = checkReading({ ...base, stage_m: 0.7, rating: { rating, shifts: [] } });
+    const r = checkReading({ ...base, stage_m: 0.7, ratings: inForce() });
     expect(r.discharge_m3s).toBeCloseTo(5 * 0.5 ** 2, 12); // exact: 1.25 m³/s
     expect(r.warnings).toEqual([]);
     expect(r.extrapolated).toBe(false);
@@ -17,7 +19,7 @@ describe('checkReading', () => {
 
   it('applies the shift in force at that time', () => {
     const shifts: DatedShift[] = [{ time_ms: NOW - 86_400_000, curve: { points: [{ stage_m: 0, shift_m: -0.1 }] }, toNext: 'hold' }];
-    const r = checkReading({ ...base, stage_m: 0.7, rating: { rating, shifts } });
+    const r = checkReading({ ...base, stage_m: 0.7, ratings: inForce(shifts) });
     expect(r.shift_m).toBeCloseTo(-0.1, 12);
     expect(r.discharge_m3s).toBeCloseTo(5 * 0.4 ** 2, 12); // exact: 0.8 m³/s
   });
@@ -25,15 +27,15 @@ describe('checkReading', () => {
   it('warns once for each case, in words', () => {
     const codes = (input: Parameters<typeof checkReading>[0]) => checkReading(input).warnings.map((w) => w.code);
     expect(codes({ ...base, stage_m: 0.5 })).toEqual(['no-rating']);
-    expect(codes({ ...base, stage_m: 0.15, rating: { rating, shifts: [] } })).toEqual(['below-zero-flow']);
-    expect(codes({ ...base, stage_m: 1.5, rating: { rating, shifts: [] } })).toEqual(['extrapolated']);
-    expect(codes({ ...base, stage_m: 0.25, rating: { rating, shifts: [] } })).toEqual(['extrapolated']);
-    expect(codes({ ...base, stage_m: 1.0, previous: { stage_m: 0.6, time_ms: base.time_ms - 3_600_000 }, rating: { rating, shifts: [] } })).toEqual(['jump']);
-    expect(codes({ ...base, stage_m: 0.8, previous: { stage_m: 0.6, time_ms: base.time_ms - 3_600_000 }, rating: { rating, shifts: [] } })).toEqual([]);
-    expect(codes({ ...base, time_ms: NOW + 3_600_000, stage_m: 0.8, rating: { rating, shifts: [] } })).toEqual(['future']);
-    const jump = checkReading({ ...base, stage_m: 1.0, previous: { stage_m: 0.4, time_ms: base.time_ms - 3_600_000 }, rating: { rating, shifts: [] } }).warnings[0].text;
+    expect(codes({ ...base, stage_m: 0.15, ratings: inForce() })).toEqual(['below-zero-flow']);
+    expect(codes({ ...base, stage_m: 1.5, ratings: inForce() })).toEqual(['extrapolated']);
+    expect(codes({ ...base, stage_m: 0.25, ratings: inForce() })).toEqual(['extrapolated']);
+    expect(codes({ ...base, stage_m: 1.0, previous: { stage_m: 0.6, time_ms: base.time_ms - 3_600_000 }, ratings: inForce() })).toEqual(['jump']);
+    expect(codes({ ...base, stage_m: 0.8, previous: { stage_m: 0.6, time_ms: base.time_ms - 3_600_000 }, ratings: inForce() })).toEqual([]);
+    expect(codes({ ...base, time_ms: NOW + 3_600_000, stage_m: 0.8, ratings: inForce() })).toEqual(['future']);
+    const jump = checkReading({ ...base, stage_m: 1.0, previous: { stage_m: 0.4, time_ms: base.time_ms - 3_600_000 }, ratings: inForce() }).warnings[0].text;
     expect(jump).toMatch(/rose 0\.600 m since the previous reading 60 min earlier/);
-    const us = checkReading({ ...base, units: 'us', stage_m: 1.5, rating: { rating, shifts: [] } }).warnings[0].text;
+    const us = checkReading({ ...base, units: 'us', stage_m: 1.5, ratings: inForce() }).warnings[0].text;
     expect(us).toMatch(/0\.98 ft to 3\.94 ft/); // 0.3 m and 1.2 m in international feet (NIST SP 811)
   });
 

@@ -3,10 +3,11 @@
 // and seriesWithDischarge must agree row for row with readingsWithDischarge.
 import { describe, expect, it, vi } from 'vitest';
 import fc from 'fast-check';
-import { READING_SOURCES, type ReadingBody, type ReadingRecord, type ReadingSource } from '../../core/records/index';
+import { nextRev, READING_SOURCES, type ReadingBody, type ReadingRecord, type ReadingSource } from '../../core/records/index';
 import {
   deleteRating, deleteReading, getDb, importReadings, listReadings, READING_SOURCE_CODES, readingSeries, readingSourceOfCode,
-  readingsWithDischarge, restoreReading, saveRating, saveReading, saveSite, seriesWithDischarge, StorageError,
+  putReadingsInTx, readingsWithDischarge, restoreReading, saveRating, saveReading, saveSite, seriesWithDischarge, StorageError,
+  withReadingsWrite,
 } from '../../web/db/index';
 import { resetDbForTests, setClockForTests } from '../../web/db/testing';
 import { useFreshDb } from '../support/db';
@@ -79,10 +80,14 @@ describe('the series follows every write to readings', () => {
     // exact: day 0 keeps only the noon reading; day 1 holds 00:10 then 01:00.
     expect(byDay.get(T0 / DAY)).toHaveLength(1);
     expect(byDay.get(T0 / DAY + 1)?.[0]).toBe(moved.id);
-    // Back across the boundary, then to another site: each chunk loses what left it.
-    await saveReading({ ...moved, time_ms: T0 + DAY - 1 });
+    // Back across the boundary; a form may not move it to another site, a merged record from another
+    // device may: each chunk loses what left it.
+    const back = await saveReading({ ...moved, time_ms: T0 + DAY - 1 });
     await expectSeriesMatchesReadings(a.id);
-    await saveReading({ ...moved, siteId: b.id, time_ms: T0 + DAY - 1 });
+    await expect(saveReading({ ...back, siteId: b.id })).rejects.toMatchObject({ name: 'StorageError', reason: 'moved' });
+    expect((await expectSeriesMatchesReadings(a.id)).length).toBe(3);
+    const merged = { ...back, siteId: b.id, rev: nextRev(back.rev, T0 + 2 * DAY, 'other-device') };
+    await withReadingsWrite([], (tx) => putReadingsInTx(tx, [merged]));
     expect((await expectSeriesMatchesReadings(a.id)).length).toBe(2);
     expect((await expectSeriesMatchesReadings(b.id)).map((r) => r.id)).toEqual([moved.id]);
   });
@@ -230,11 +235,11 @@ describe('seriesWithDischarge', () => {
       expect(q.time_ms[i]).toBe(row.reading.time_ms);
       expect(q.stage_m[i]).toBe(row.reading.stage_m);
       expect(readingSourceOfCode(q.source[i])).toBe(row.reading.source);
-      if (row.discharge_m3s === null) expect(q.discharge_m3s[i]).toBeNaN();
+      if (row.ratingId === undefined) expect(q.discharge_m3s[i]).toBeNaN();
       else expect(q.discharge_m3s[i]).toBe(row.discharge_m3s);
       expect(q.shift_m[i]).toBe(row.shift_m);
       expect(q.extrapolated[i] === 1).toBe(row.extrapolated);
-      expect(q.ratingIndex[i] < 0 ? null : q.ratingIds[q.ratingIndex[i]]).toBe(row.ratingId);
+      expect(q.ratingIndex[i] < 0 ? undefined : q.ratingIds[q.ratingIndex[i]]).toBe(row.ratingId);
     });
     expect(q.ratingIds).toEqual([first.id, second.id]);
     // exact: before 06:00 no rating is in force (20 quarter hours from 01:00 to 05:45); at 06:00 the first

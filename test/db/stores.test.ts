@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { compareRev, parseRev, RecordValidationError } from '../../core/records/index';
 import {
-  currentRating, deleteRating, deleteReading, deleteSite, deviceId, discardDraft, dismissConflict, getDraft, getGauging, getMeta,
+  ratingInForceAt, deleteRating, deleteReading, deleteSite, deviceId, discardDraft, dismissConflict, getDraft, getGauging, getMeta,
   getReading, getSite, latestReadings, readingBefore, listAnalyses, listConflicts, listDrafts, listGaugings, listRatings,
   listReadings, listSites, observeRev, onRecordsChanged, readingsWithDischarge, restoreReading, restoreSite,
   saveAnalysis, saveConflict, saveDraft, saveGauging, saveRating, saveReading, saveSite, setMeta, storageState,
@@ -118,13 +118,13 @@ describe('gaugings, ratings, analyses', () => {
     const r2 = await saveRating(rating(s.id, T0 + 10 * HOUR));
     const r3 = await saveRating(rating(s.id, T0 + 20 * HOUR));
     await saveRating(rating((await saveSite(site({ code: 'KC-02' }))).id, T0 + 5 * HOUR));
-    expect(await currentRating(s.id, T0 - 1)).toBeUndefined();
-    expect((await currentRating(s.id, T0))?.id).toBe(r1.id);
-    expect((await currentRating(s.id, T0 + 10 * HOUR - 1))?.id).toBe(r1.id);
-    expect((await currentRating(s.id, T0 + 15 * HOUR))?.id).toBe(r2.id);
-    expect((await currentRating(s.id, T0 + 99 * HOUR))?.id).toBe(r3.id);
+    expect(await ratingInForceAt(s.id, T0 - 1)).toBeUndefined();
+    expect((await ratingInForceAt(s.id, T0))?.id).toBe(r1.id);
+    expect((await ratingInForceAt(s.id, T0 + 10 * HOUR - 1))?.id).toBe(r1.id);
+    expect((await ratingInForceAt(s.id, T0 + 15 * HOUR))?.id).toBe(r2.id);
+    expect((await ratingInForceAt(s.id, T0 + 99 * HOUR))?.id).toBe(r3.id);
     await deleteRating(r3.id);
-    expect((await currentRating(s.id, T0 + 99 * HOUR))?.id).toBe(r2.id);
+    expect((await ratingInForceAt(s.id, T0 + 99 * HOUR))?.id).toBe(r2.id);
     expect((await listRatings(s.id)).map((r) => r.id)).toEqual([r1.id, r2.id]);
   });
 
@@ -141,13 +141,15 @@ describe('gaugings, ratings, analyses', () => {
     await saveReading(reading(s.id, T0 + 5 * HOUR, 0.1));
     const rows = await readingsWithDischarge(s.id, T0 - HOUR, T0 + 5 * HOUR);
     // exact: Q = 10·(h + s − 0.2)² (power-law rating, ISO 18320 form).
-    expect(rows[0]).toMatchObject({ discharge_m3s: null, ratingId: null });
+    expect(rows[0].ratingId).toBeUndefined();
+    expect(rows[0].discharge_m3s).toBeNaN(); // no rating in force: NO_DISCHARGE
     expect(rows[1].discharge_m3s).toBeCloseTo(10 * 0.5 ** 2, 12);
     expect(rows[2]).toMatchObject({ ratingId: shifted.id, shift_m: 0.1, extrapolated: false });
     expect(rows[2].discharge_m3s).toBeCloseTo(10 * 0.6 ** 2, 12);
     expect(rows[3].extrapolated).toBe(true); // 1.9 m is above the gauged 1.5 m
     expect(rows[3].discharge_m3s).toBeCloseTo(10 * 1.8 ** 2, 12);
     expect(rows[4].discharge_m3s).toBe(0); // exact: 0.1 + 0.1 m is at the 0.2 m offset: no flow
+    expect(rows[4].extrapolated).toBe(false); // no flow is not an extrapolation, though 0.1 m is below the gauged 0.3 m
   });
 
   it('lists analyses of a site', async () => {

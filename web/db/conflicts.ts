@@ -3,12 +3,11 @@
 // and the same conflict never comes back), in one transaction with the removal of the conflict.
 import { fromSyncRecord, parseRev, toSyncRecord, type ConflictRecord, type ReadingRecord } from '../../core/records/index';
 import { seenAfter, stampOf } from '../../core/sync/index';
-import { withDb } from './connection';
 import { now_ms, stampInTx } from './clock';
 import { StorageError, storageMessage } from './errors';
-import { afterWrite, DURABLE, inTx, listAll, listRange, removeIn, saveIn, type SaveInput } from './records';
+import { afterWrite, listAll, listRange, removeIn, saveIn, type SaveInput } from './records';
 import { quietly } from './quietly';
-import { updateSeriesInTx } from './series-chunks';
+import { putReadingsInTx, withReadingsWrite } from './readings-write';
 import { STORE_OF_KIND } from './sync-merge';
 
 /** Keeps a losing version for review; resolves once it is durable. */
@@ -29,29 +28,26 @@ export async function listConflicts(recordId?: string): Promise<ConflictRecord[]
  */
 export async function settleConflict(id: string, useKept: boolean): Promise<void> {
   const at = now_ms();
-  const kind = await withDb(async (db) => {
-    const tx = db.transaction(['sites', 'readings', 'gaugings', 'ratings', 'analyses', 'series', 'conflicts', 'meta'], 'readwrite', DURABLE);
-    return inTx(tx, async () => {
-      const conflict = await tx.objectStore('conflicts').get(id);
-      if (!conflict) throw new StorageError('not-found', storageMessage('not-found'));
-      const store = tx.objectStore(STORE_OF_KIND[conflict.kind]);
-      const current = await store.get(conflict.recordId);
-      quietly(tx.objectStore('conflicts').delete(id));
-      const notice = conflict.reason === 'ahead' && !useKept;
-      if (!notice) {
-        const inUse = current ? toSyncRecord(conflict.kind, current as never) : undefined;
-        const rev = await stampInTx(tx, at, current?.rev);
-        const chosen = useKept || !inUse ? conflict.losing : inUse;
-        const bases = inUse ? [stampOf(inUse), stampOf(conflict.losing)] : [stampOf(conflict.losing)];
-        const seen = seenAfter(parseRev(rev).deviceId, bases);
-        const { seen: _old, ...body } = chosen.body as typeof chosen.body & { seen?: string[] };
-        const record = fromSyncRecord({ ...chosen, rev, body: { ...body, updated_ms: at, ...(seen ? { seen } : {}) } } as typeof chosen);
-        quietly(store.put(record as never));
-        if (conflict.kind === 'reading') await updateSeriesInTx(tx, current as ReadingRecord | undefined, record as ReadingRecord);
-      }
-      await tx.done;
-      return conflict.kind;
-    });
+  // The one readings writer opens the transaction, so a settled reading and its series are written its way.
+  const kind = await withReadingsWrite(['sites', 'gaugings', 'ratings', 'analyses', 'conflicts'], async (tx) => {
+    const conflict = await tx.objectStore('conflicts').get(id);
+    if (!conflict) throw new StorageError('not-found', storageMessage('not-found'));
+    const store = tx.objectStore(STORE_OF_KIND[conflict.kind]);
+    const current = await store.get(conflict.recordId);
+    quietly(tx.objectStore('conflicts').delete(id));
+    const notice = conflict.reason === 'ahead' && !useKept;
+    if (!notice) {
+      const inUse = current ? toSyncRecord(conflict.kind, current as never) : undefined;
+      const rev = await stampInTx(tx, at, current?.rev);
+      const chosen = useKept || !inUse ? conflict.losing : inUse;
+      const bases = inUse ? [stampOf(inUse), stampOf(conflict.losing)] : [stampOf(conflict.losing)];
+      const seen = seenAfter(parseRev(rev).deviceId, bases);
+      const { seen: _old, ...body } = chosen.body as typeof chosen.body & { seen?: string[] };
+      const record = fromSyncRecord({ ...chosen, rev, body: { ...body, updated_ms: at, ...(seen ? { seen } : {}) } } as typeof chosen);
+      if (conflict.kind === 'reading') await putReadingsInTx(tx, [record as ReadingRecord]);
+      else quietly(store.put(record as never));
+    }
+    return conflict.kind;
   });
   afterWrite([kind, 'conflict']);
 }

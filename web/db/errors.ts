@@ -9,6 +9,8 @@ export type StorageFailure =
   | 'version' // a newer version of the app changed the database: this page must reload
   | 'closed' // the connection was closed and could not be reopened
   | 'not-found' // no record with that id
+  | 'stale' // an edit of a record that was changed or deleted since the form opened
+  | 'moved' // an edit that would move a reading to another site
   | 'unavailable' // no IndexedDB in this browser (e.g. some private modes)
   | 'unknown';
 
@@ -31,6 +33,8 @@ const MESSAGES: Record<StorageFailure, string> = {
   version: 'A newer version of Freshet was opened in another tab. Reload this page to keep working.',
   closed: 'The browser closed Freshet’s data store and it could not be reopened. Reload the page and try again.',
   'not-found': 'That record is not on this phone.',
+  stale: 'This reading was changed or deleted in another tab or on another device after you opened it, so your edit was not saved. Open the reading again to see it as it is now.',
+  moved: 'A saved reading cannot be moved to another site. Record a new reading at the other site and delete this one instead.',
   unavailable: 'This browser does not let Freshet store data (private browsing may be on).',
   unknown: 'Saving failed for an unexpected reason and nothing was written. Please try again.',
 };

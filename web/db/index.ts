@@ -8,16 +8,18 @@ export { storageState, type StorageState } from './persist';
 export { deviceId, observeRev } from './clock';
 export { changedSince, type ReadOptions, type SaveInput } from './records';
 export { saveSite, getSite, deleteSite, restoreSite, listSites } from './sites';
-export { saveReading, getReading, deleteReading, restoreReading, listReadings, latestReading, latestReadings, readingBefore } from './readings';
-export { readingsWithDischarge, type ReadingWithDischarge } from './readings-discharge';
-export { readingSeries, type ReadingSeries } from './readings-series';
-export { seriesWithDischarge, type SeriesWithDischarge } from './series-discharge';
-export { READING_SOURCE_CODES, readingSourceOfCode, type ReadingSourceCode } from '../../core/records/index';
+export { getReading, listReadings, latestReading, latestReadings, readingBefore } from './readings';
 export {
-  importReadings, DEFAULT_IMPORT_BATCH, type ImportOptions, type ImportProgress, type ImportDuplicate, type ImportResult,
-} from './readings-import';
+  saveReading, deleteReading, restoreReading, importReadings, withReadingsWrite, putReadingsInTx, addReadingsInTx,
+  DEFAULT_IMPORT_BATCH, type SaveReadingOptions, type ImportOptions, type ImportProgress, type ImportDuplicate, type ImportResult,
+  type OtherStore, type ReadingsTx,
+} from './readings-write';
+export { readingsWithDischarge, seriesWithDischarge, type SeriesWithDischarge } from './discharge-read';
+export { readingSeries, type ReadingSeries } from './series-read';
+export type { ReadingWithDischarge } from '../../core/readings/index';
+export { READING_SOURCE_CODES, readingSourceOfCode, type ReadingSourceCode } from '../../core/records/index';
 export { saveGauging, getGauging, deleteGauging, restoreGauging, listGaugings } from './gaugings';
-export { saveRating, getRating, deleteRating, restoreRating, listRatings, currentRating } from './ratings';
+export { saveRating, getRating, deleteRating, restoreRating, listRatings, ratingInForceAt } from './ratings';
 export { saveAnalysis, getAnalysis, deleteAnalysis, restoreAnalysis, listAnalyses } from './analyses';
 export { saveDraft, getDraft, discardDraft, listDrafts } from './drafts';
 export { saveConflict, dismissConflict, listConflicts } from './conflicts';

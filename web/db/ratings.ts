@@ -1,6 +1,6 @@
 // Ratings: each in force from its validFrom_ms until the next one of the same site.
+import { ratingInForce } from '../../core/rating/index';
 import type { RatingRecord } from '../../core/records/index';
-import { withDb } from './connection';
 import { getIn, listRange, restoreIn, saveIn, tombstoneIn, type ReadOptions, type SaveInput } from './records';
 
 /** Validates and saves a rating (new id when absent); resolves with the stored record once it is durable. */
@@ -17,12 +17,7 @@ export function listRatings(siteId: string, options?: ReadOptions): Promise<Rati
   return listRange('ratings', 'by-site-from', [siteId, -Infinity], [siteId, Infinity], options);
 }
 
-/** The rating in force at a site at time_ms (UTC ms): the latest validFrom_ms ≤ time_ms that is not deleted. */
-export function currentRating(siteId: string, time_ms: number): Promise<RatingRecord | undefined> {
-  return withDb(async (db) => {
-    const index = db.transaction('ratings').store.index('by-site-from');
-    let cursor = await index.openCursor(IDBKeyRange.bound([siteId, -Infinity], [siteId, time_ms]), 'prev');
-    while (cursor && cursor.value.deleted) cursor = await cursor.continue();
-    return cursor?.value;
-  });
+/** The rating in force at a site at time_ms (UTC ms), as core's ratingInForce picks it, or undefined. */
+export async function ratingInForceAt(siteId: string, time_ms: number): Promise<RatingRecord | undefined> {
+  return ratingInForce(await listRange('ratings', 'by-site-from', [siteId, -Infinity], [siteId, time_ms]), time_ms);
 }

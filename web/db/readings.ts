@@ -1,18 +1,13 @@
-// Stage readings: save, get, delete/restore, list by site and time window, latest per site.
+// Reading stage readings: get, list by site and time window, latest per site, the one before a time.
+// Every write goes through readings-write.ts.
 import type { ReadingRecord } from '../../core/records/index';
 import type { IDBPIndex } from 'idb';
 import { withDb } from './connection';
 import type { FreshetDB } from './schema';
-import { getIn, listRange, restoreIn, saveIn, tombstoneIn, type ReadOptions, type SaveInput } from './records';
+import { getIn, listRange, type ReadOptions } from './records';
 
-/** Validates and saves a reading (new id when absent); resolves with the stored record once it is durable. */
-export const saveReading = (reading: SaveInput<ReadingRecord>): Promise<ReadingRecord> => saveIn('readings', reading);
 /** The reading with this id, or undefined (tombstones only with includeDeleted). */
 export const getReading = (id: string, options?: ReadOptions): Promise<ReadingRecord | undefined> => getIn('readings', id, options);
-/** Deletes a reading by tombstone; returns the tombstone (undo with restoreReading), or undefined if already deleted. */
-export const deleteReading = (id: string): Promise<ReadingRecord | undefined> => tombstoneIn('readings', id);
-/** Undoes deleteReading under a new revision. */
-export const restoreReading = (id: string): Promise<ReadingRecord | undefined> => restoreIn('readings', id);
 
 /** Readings of a site with from_ms ≤ time_ms ≤ to_ms (UTC ms), oldest first. */
 export function listReadings(siteId: string, from_ms: number, to_ms: number, options?: ReadOptions): Promise<ReadingRecord[]> {

@@ -4,13 +4,15 @@ import type { IndexNames, StoreNames } from 'idb';
 import { isUuid, parseRev, RecordValidationError, validateBody, type RecordKind, type StoredRecords } from '../../core/records/index';
 import { seenAfter } from '../../core/sync/index';
 import type { FreshetDB, RecordStore } from './schema';
+
+/** Stores written through saveIn and its kin: every record store but readings (readings-write.ts is their one writer). */
+export type PlainStore = Exclude<RecordStore, 'readings'>;
 import { withDb } from './connection';
 import { now_ms, stampInTx } from './clock';
 import { StorageError, storageMessage } from './errors';
 import { notifyRecordsChanged } from './events';
 import { requestPersistenceOnce } from './persist';
 import { quietly } from './quietly';
-import { updateSeriesInTx } from './series-chunks';
 
 /** The record kind kept in each store. */
 export const KIND_OF_STORE = {
@@ -56,11 +58,6 @@ export async function inTx<T>(tx: { abort(): void; done: Promise<void> }, fn: ()
   }
 }
 
-/** The stores a write to `store` touches: readings also keep the series (series-chunks.ts) in step. */
-function writeScope(store: RecordStore): StoreNames<FreshetDB>[] {
-  return store === 'readings' ? ['readings', 'series', 'meta'] : [store, 'meta'];
-}
-
 /** After a write is durable: ask for persistent storage (first time) and tell the screens. */
 export function afterWrite(kinds: RecordKind[], ids?: string[]): void {
   requestPersistenceOnce();
@@ -81,22 +78,21 @@ export function withSeen<T extends object>(record: T, rev: string, before: { rev
 }
 
 /** Validates and saves one record in store S: new id when absent, new rev, updated_ms now; resolves when durable. */
-export async function saveIn<S extends RecordStore>(store: S, input: SaveInput<RecordOf<S>>): Promise<RecordOf<S>> {
+export async function saveIn<S extends PlainStore>(store: S, input: SaveInput<RecordOf<S>>): Promise<RecordOf<S>> {
   const kind = KIND_OF_STORE[store];
   const { id: given, body } = splitInput(kind, input);
   const id = given ?? crypto.randomUUID();
   const at = now_ms();
   const saved = await withDb(async (db) => {
-    const tx = db.transaction(writeScope(store), 'readwrite', DURABLE);
+    const tx = db.transaction([store, 'meta'], 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const s = tx.objectStore(store);
       // The earlier version: its revision and `seen` list carry over (sync tells edits from concurrent
-      // changes by them), and a reading's earlier version says where it sat in the series.
+      // changes by them).
       const before = (await s.get(id)) as RecordOf<S> | undefined;
       const rev = await stampInTx(tx, at, before?.rev);
       const record = withSeen({ ...body, id, rev, updated_ms: at }, rev, before) as unknown as RecordOf<S>;
       quietly(s.put(record as FreshetDB[S]['value']));
-      if (store === 'readings') await updateSeriesInTx(tx, before as RecordOf<'readings'> | undefined, record as RecordOf<'readings'>);
       await tx.done;
       return record;
     });
@@ -113,11 +109,11 @@ export async function getIn<S extends RecordStore>(store: S, id: string, options
 }
 
 /** Marks or unmarks a record deleted under a new revision; undefined when there is nothing to change. */
-async function setDeleted<S extends RecordStore>(store: S, id: string, deleted: boolean): Promise<RecordOf<S> | undefined> {
+async function setDeleted<S extends PlainStore>(store: S, id: string, deleted: boolean): Promise<RecordOf<S> | undefined> {
   const kind = KIND_OF_STORE[store];
   const at = now_ms();
   const changed = await withDb(async (db) => {
-    const tx = db.transaction(writeScope(store), 'readwrite', DURABLE);
+    const tx = db.transaction([store, 'meta'], 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const s = tx.objectStore(store);
       const existing = (await s.get(id)) as RecordOf<S> | undefined;
@@ -131,7 +127,6 @@ async function setDeleted<S extends RecordStore>(store: S, id: string, deleted: 
       const fields = withSeen({ ...rest, rev, updated_ms: at }, rev, existing);
       const record = (deleted ? { ...fields, deleted: true } : fields) as RecordOf<S>;
       quietly(s.put(record as FreshetDB[S]['value']));
-      if (store === 'readings') await updateSeriesInTx(tx, existing as RecordOf<'readings'>, record as RecordOf<'readings'>);
       await tx.done;
       return record;
     });
@@ -141,12 +136,12 @@ async function setDeleted<S extends RecordStore>(store: S, id: string, deleted: 
 }
 
 /** Deletes by tombstone (deleted: true, new rev); returns the tombstone, or undefined when already deleted. */
-export function tombstoneIn<S extends RecordStore>(store: S, id: string): Promise<RecordOf<S> | undefined> {
+export function tombstoneIn<S extends PlainStore>(store: S, id: string): Promise<RecordOf<S> | undefined> {
   return setDeleted(store, id, true);
 }
 
 /** Undoes a deletion: writes the record again without the tombstone under a new rev; undefined when not deleted. */
-export function restoreIn<S extends RecordStore>(store: S, id: string): Promise<RecordOf<S> | undefined> {
+export function restoreIn<S extends PlainStore>(store: S, id: string): Promise<RecordOf<S> | undefined> {
   return setDeleted(store, id, false);
 }
 

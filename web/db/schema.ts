@@ -1,5 +1,5 @@
 // The whole IndexedDB schema as one type: a wrong store, index or value fails to compile.
-import type { DBSchema } from 'idb';
+import type { DBSchema, IDBPTransaction, StoreNames } from 'idb';
 import type {
   AnalysisRecord, ConflictRecord, DraftRecord, GaugingRecord, RatingRecord, ReadingRecord, SiteRecord,
 } from '../../core/records/index';
@@ -126,3 +126,13 @@ export interface FreshetDB extends DBSchema {
 
 /** Stores that hold records with an envelope (all but meta). */
 export type RecordStore = 'sites' | 'readings' | 'gaugings' | 'ratings' | 'analyses' | 'drafts' | 'conflicts';
+
+/** Stores every readings write holds: the readings, their series, and meta for the revision clock. */
+export type ReadingsStores = 'readings' | 'series' | 'meta';
+
+/**
+ * A readwrite transaction of the readings writer: it holds the readings, series and meta stores and the
+ * other stores its opener asked for. Typed over every store, so the opener's own stores are reachable;
+ * asking for a store outside its scope throws NotFoundError at run time.
+ */
+export type ReadingsTx = IDBPTransaction<FreshetDB, StoreNames<FreshetDB>[], 'readwrite'>;

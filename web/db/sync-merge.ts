@@ -9,10 +9,10 @@ import {
 import { isAhead, planMerge, recordKey, type Frontier, type MergePlan, type MergeSummary } from '../../core/sync/index';
 import { withDb } from './connection';
 import { now_ms, stampInTx } from './clock';
-import { afterWrite, DURABLE, inTx } from './records';
+import { afterWrite } from './records';
 import type { FreshetDB } from './schema';
 import { quietly } from './quietly';
-import { updateSeriesInTx } from './series-chunks';
+import { putReadingsInTx, withReadingsWrite } from './readings-write';
 
 /** The store that keeps each kind of synced record. */
 export const STORE_OF_KIND = {
@@ -94,9 +94,10 @@ export async function previewIncoming(records: readonly SyncRecord[]): Promise<I
 export async function applyIncoming(records: readonly SyncRecord[], options: { cursor?: string } = {}): Promise<IncomingResult> {
   checkAll(records);
   const at = now_ms();
-  const { plan, kinds } = await withDb(async (db) => {
-    const tx = db.transaction([...SCOPE], 'readwrite', DURABLE);
-    return inTx(tx, async () => {
+  // The one readings writer opens the transaction, so readings and their series are written its way.
+  const { plan, kinds } = await withReadingsWrite(['sites', 'gaugings', 'ratings', 'analyses', 'conflicts', 'sync'], async (rtx) => {
+    const tx = rtx as unknown as MergeWriteTx;
+    {
       const current = await readCurrent(tx, records);
       const plan = planMerge(records, current.frontiers, at);
       const kinds = await writePlan(tx, plan, current, at);
@@ -111,9 +112,8 @@ export async function applyIncoming(records: readonly SyncRecord[], options: { c
         if (next !== last && next !== undefined) quietly(meta.put(next, 'lastRev'));
       }
       if (options.cursor !== undefined) quietly(tx.objectStore('sync').put(options.cursor, 'cursor'));
-      await tx.done;
       return { plan, kinds };
-    });
+    }
   });
   if (kinds.size > 0) afterWrite([...kinds]);
   return { summary: plan.summary };
@@ -123,12 +123,13 @@ async function writePlan(tx: MergeWriteTx, plan: MergePlan, current: Current, at
   const kinds = new Set<SyncKind | 'conflict'>();
   const newConflicts: Omit<ConflictRecord, 'id' | 'rev' | 'updated_ms'>[] = [];
   const conflicts = tx.objectStore('conflicts');
+  const readings: ReadingRecord[] = [];
   for (const [key, { before, after }] of plan.changes) {
     const kind = after.winner.kind;
     if (before?.winner.rev !== after.winner.rev) {
       const record = fromSyncRecord(after.winner);
-      quietly(tx.objectStore(STORE_OF_KIND[kind]).put(record as never));
-      if (kind === 'reading') await updateSeriesInTx(tx, current.stored.get(key) as ReadingRecord | undefined, record as ReadingRecord);
+      if (kind === 'reading') readings.push(record as ReadingRecord);
+      else quietly(tx.objectStore(STORE_OF_KIND[kind]).put(record as never));
       kinds.add(kind);
     }
     const keep = new Set(after.others.map((o) => o.rev));
@@ -142,6 +143,7 @@ async function writePlan(tx: MergeWriteTx, plan: MergePlan, current: Current, at
       if (!had.has(o.rev)) newConflicts.push({ kind, recordId: o.id, losing: o, winnerRev: after.winner.rev, found_ms: at, reason: 'concurrent' });
     }
   }
+  if (readings.length > 0) await putReadingsInTx(tx as unknown as Parameters<typeof putReadingsInTx>[0], readings);
   for (const flag of plan.ahead) {
     const losing = flag.displaced ?? flag.record;
     newConflicts.push({ kind: flag.record.kind, recordId: flag.record.id, losing, winnerRev: flag.record.rev, found_ms: at, reason: 'ahead' });

@@ -1,15 +1,13 @@
 // Data: what is stored on this phone, whether the browser will keep it, and readings exported as CSV
 // for the office (by download or the phone's share sheet).
 import { useEffect, useState } from 'preact/hooks';
-import { fromLocalInput, readingsToCsv, toLocalInput, type SiteRecord } from '../../../core';
+import { fromLocalInput, MS_PER_DAY, readingsToCsv, toLocalInput, type SiteRecord } from '../../../core';
 import { latestReadings, listConflicts, listDrafts, listSites, readingsWithDischarge, storageState, type StorageState } from '../../db';
 import type { ScreenProps } from '../../app/routes';
 import { useRecords } from '../../app/use-records';
 import { describedBy, Field } from '../../components/Field';
 import { formatTime } from '../../format';
 import { href } from '../../router';
-
-const DAY_MS = 86_400_000;
 
 function bytes(n: number): string {
   return n < 1024 ** 2 ? `${(n / 1024).toFixed(1)} KiB` : n < 1024 ** 3 ? `${(n / 1024 ** 2).toFixed(1)} MiB` : `${(n / 1024 ** 3).toFixed(2)} GiB`;
@@ -60,7 +58,7 @@ function ExportSection({ sites }: { sites: SiteRecord[] }) {
     if (!site) return;
     void latestReadings([site.id]).then((m) => {
       const end = m.get(site.id)?.time_ms ?? Date.now();
-      setRange({ from: toLocalInput(end - 30 * DAY_MS, site.timeZone), to: toLocalInput(end + 60_000, site.timeZone) });
+      setRange({ from: toLocalInput(end - 30 * MS_PER_DAY, site.timeZone), to: toLocalInput(end + 60_000, site.timeZone) });
     });
   }, [site?.id]);
   if (!site) return null;

@@ -1,5 +1,5 @@
 // The reading form's state and its typed actions: the screen owns this draft through useReducer.
-import type { GpsFix, JsonValue, ReadingQuality, ReadingRecord, ReadingSource } from '../../../core';
+import { isReadingQuality, isReadingSource, type GpsFix, type JsonValue, type ReadingQuality, type ReadingRecord, type ReadingSource } from '../../../core';
 
 /** What the technician has typed so far. `timeText` is empty while the time follows the clock. */
 export interface ReadingForm {
@@ -63,9 +63,6 @@ export function toDraftFields(form: ReadingForm): { [key: string]: JsonValue } {
   return fields;
 }
 
-const SOURCES: readonly string[] = ['staff', 'wire-weight', 'crest-stage', 'logger'];
-const QUALITIES: readonly string[] = ['good', 'fair', 'poor', 'estimated'];
-
 /** A form restored from draft fields; anything malformed falls back to the blank form's value. */
 export function fromDraftFields(fields: { [key: string]: JsonValue }, observer: string): ReadingForm {
   const text = (k: string, d: string) => (typeof fields[k] === 'string' ? (fields[k] as string) : d);
@@ -75,8 +72,8 @@ export function fromDraftFields(fields: { [key: string]: JsonValue }, observer: 
   return {
     stageText: text('stageText', ''),
     timeText: text('timeText', ''),
-    source: SOURCES.includes(text('source', '')) ? (fields.source as ReadingSource) : base.source,
-    quality: QUALITIES.includes(text('quality', '')) ? (fields.quality as ReadingQuality) : base.quality,
+    source: isReadingSource(fields.source) ? fields.source : base.source,
+    quality: isReadingQuality(fields.quality) ? fields.quality : base.quality,
     observer: text('observer', observer),
     note: text('note', ''),
     ...(gpsOk && { gps: { lat: gps.lat, lon: gps.lon, accuracy_m: gps.accuracy_m, time_ms: gps.time_ms } }),

@@ -4,10 +4,10 @@
 // is kept as a draft on every change and restored when the app reopens.
 import { useEffect, useMemo, useReducer, useRef, useState } from 'preact/hooks';
 import {
-  checkReading, fromDisplay, fromLocalInput, displayUnit, READING_QUALITIES, READING_SOURCES, RecordValidationError,
+  checkReading, fromDisplay, hasDischarge, STAGE_DECIMALS, fromLocalInput, displayUnit, READING_QUALITIES, READING_SOURCES, RecordValidationError,
   toDisplay, toLocalInput, type ReadingQuality, type ReadingSource, type SiteRecord,
 } from '../../../core';
-import { currentRating, discardDraft, getReading, getSite, listDrafts, listSites, readingBefore, saveDraft, saveReading, StorageError } from '../../db';
+import { discardDraft, getReading, getSite, listDrafts, listRatings, listSites, readingBefore, saveDraft, saveReading, StorageError } from '../../db';
 import type { ScreenProps } from '../../app/routes';
 import { onBeforeUpdate } from '../../app/updates';
 import { useRecords } from '../../app/use-records';
@@ -143,7 +143,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       } else if (readingId) {
         const r = await getReading(readingId);
         if (!live) return;
-        if (r) dispatch({ type: 'replace', form: formOfReading(r, toDisplay('stage', r.stage_m, u).toFixed(u === 'us' ? 2 : 3), toLocalInput(r.time_ms, site.timeZone)) });
+        if (r) dispatch({ type: 'replace', form: formOfReading(r, toDisplay('stage', r.stage_m, u).toFixed(STAGE_DECIMALS[u]), toLocalInput(r.time_ms, site.timeZone)) });
         else setError({ text: 'That reading is not on this phone any more.' });
       }
       setReady(true);
@@ -212,19 +212,19 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   const context = useRecords(
     async () => {
       if (t === undefined) return undefined;
-      const [rating, previous] = await Promise.all([currentRating(site.id, t), readingBefore(site.id, t, readingId)]);
-      return { rating, previous };
+      const [ratings, previous] = await Promise.all([listRatings(site.id), readingBefore(site.id, t, readingId)]);
+      return { ratings, previous };
     },
     ['rating', 'reading'],
     [site.id, t === undefined ? 'none' : Math.floor(t / 60_000), readingId],
   );
   const check = useMemo(() => {
     if (!('stage_m' in stage) || t === undefined || context.state !== 'ready' || !context.value) return undefined;
-    const { rating, previous } = context.value;
+    const { ratings, previous } = context.value;
     return checkReading({
       stage_m: stage.stage_m!, time_ms: t, now_ms: now, jumpLimit_m: site.jumpLimit_m, units: u,
       previous: previous && { stage_m: previous.stage_m, time_ms: previous.time_ms },
-      rating: rating && { rating: { segments: rating.segments, gaugedRange_m: rating.gaugedRange_m }, shifts: rating.shifts },
+      ratings,
     });
   }, [stage, t, now, context, site.jumpLimit_m, u]);
 
@@ -261,7 +261,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       }
       clearTimeout(pendingDraft.current);
       pendingDraft.current = undefined;
-      const q = check.discharge_m3s === undefined ? 'no discharge (no rating)' : formatQuantity('discharge', check.discharge_m3s, u) + (check.extrapolated ? ', extrapolated' : '');
+      const q = !hasDischarge(check.discharge_m3s) ? 'no discharge (no rating)' : formatQuantity('discharge', check.discharge_m3s, u) + (check.extrapolated ? ', extrapolated' : '');
       setSaved(`Saved: ${formatQuantity('stage', record.stage_m, u)} at ${formatTime(record.time_ms, site.timeZone)}, ${q}.`);
       setRestoredAt(undefined);
       if (form.readingId) navigate(href('sites', site.id), true);
@@ -325,10 +325,10 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
         {check && (
           <>
             <p class="figure">
-              <span data-testid="discharge">{check.discharge_m3s === undefined ? 'No discharge' : formatQuantity('discharge', check.discharge_m3s, u)}</span>
+              <span data-testid="discharge">{!hasDischarge(check.discharge_m3s) ? 'No discharge' : formatQuantity('discharge', check.discharge_m3s, u)}</span>
               {check.extrapolated && <> <span class="tag">extrapolated</span></>}
             </p>
-            {check.discharge_m3s !== undefined && check.warnings.every((w) => w.code !== 'extrapolated' && w.code !== 'below-zero-flow') && (
+            {hasDischarge(check.discharge_m3s) && check.warnings.every((w) => w.code !== 'extrapolated' && w.code !== 'below-zero-flow') && (
               <p class="callout ok">Within the gauged range of the rating.</p>
             )}
             {check.shift_m !== 0 && <p class="muted">Includes a shift of {formatQuantity('stage', check.shift_m, u)}.</p>}

@@ -3,16 +3,15 @@
 import { useMemo, useState } from 'preact/hooks';
 import type { SiteRecord } from '../../../core';
 import {
-  currentRating, deleteReading, getSite, listGaugings, readingsWithDischarge, restoreReading, seriesWithDischarge, type ReadingWithDischarge,
+  deleteReading, getSite, listGaugings, ratingInForceAt, readingsWithDischarge, restoreReading, seriesWithDischarge, type ReadingWithDischarge,
 } from '../../db';
 import { useRecords } from '../../app/use-records';
 import { Hydrograph } from '../../components/Hydrograph';
 import { formatAgo, formatQuantity, formatTime } from '../../format';
 import { href } from '../../router';
-import { toDisplay, displayUnit } from '../../../core';
+import { displayUnit, hasDischarge, MS_PER_DAY, toDisplay } from '../../../core';
 import './style.css';
 
-const DAY_MS = 86_400_000;
 /** How many days the small hydrograph shows, ending at the latest reading. */
 const PLOT_DAYS = 7;
 const PAGE = 50;
@@ -29,8 +28,8 @@ async function readSite(siteId: string, days: number): Promise<SiteView | undefi
   if (!site) return undefined;
   const now = Date.now();
   // Readings of the last `days` days and anything typed with a time ahead of the clock.
-  const readings = (await readingsWithDischarge(siteId, now - days * DAY_MS, now + 365 * DAY_MS)).reverse();
-  const rating = await currentRating(siteId, now);
+  const readings = (await readingsWithDischarge(siteId, now - days * MS_PER_DAY, now + 365 * MS_PER_DAY)).reverse();
+  const rating = await ratingInForceAt(siteId, now);
   const gaugings = await listGaugings(siteId);
   const ratingNote = rating
     ? `Rating in force since ${formatTime(rating.validFrom_ms, site.timeZone)}: ${rating.segments.length} segment${rating.segments.length > 1 ? 's' : ''}` +
@@ -43,7 +42,7 @@ async function readSite(siteId: string, days: number): Promise<SiteView | undefi
 /** The discharge of the PLOT_DAYS days up to the latest reading (last_ms, UTC ms), read as the compact series. */
 function SmallPlot({ site, last_ms }: { site: SiteRecord; last_ms: number | undefined }) {
   const series = useRecords(
-    () => (last_ms === undefined ? Promise.resolve(undefined) : seriesWithDischarge(site.id, last_ms - PLOT_DAYS * DAY_MS, last_ms)),
+    () => (last_ms === undefined ? Promise.resolve(undefined) : seriesWithDischarge(site.id, last_ms - PLOT_DAYS * MS_PER_DAY, last_ms)),
     ['reading', 'rating'],
     [site.id, last_ms],
   );
@@ -53,8 +52,8 @@ function SmallPlot({ site, last_ms }: { site: SiteRecord; last_ms: number | unde
     const times: number[] = [];
     const values: number[] = [];
     for (let i = 0; i < time_ms.length; i++) {
-      // NaN marks a reading with no rating in force: it has no discharge to plot.
-      if (Number.isNaN(discharge_m3s[i])) continue;
+      // A reading with no rating in force has no discharge to plot.
+      if (!hasDischarge(discharge_m3s[i])) continue;
       times.push(time_ms[i]);
       values.push(toDisplay('discharge', discharge_m3s[i], site.displayUnits));
     }
@@ -150,7 +149,7 @@ export default function SiteReadings({ siteId }: { siteId: string }) {
                   <span>
                     <strong>{formatQuantity('stage', r.reading.stage_m, u)}</strong>
                     <span class="hint">
-                      {r.discharge_m3s === null ? 'no rating' : formatQuantity('discharge', r.discharge_m3s, u)}
+                      {!hasDischarge(r.discharge_m3s) ? 'no rating' : formatQuantity('discharge', r.discharge_m3s, u)}
                       {r.extrapolated && <> <span class="tag">extrapolated</span></>}
                       {r.reading.warnings.length > 0 && <> <span class="tag">{r.reading.warnings.length} warning{r.reading.warnings.length > 1 ? 's' : ''}</span></>}
                     </span>

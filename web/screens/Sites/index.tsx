@@ -8,7 +8,7 @@ import { listSites, readingsWithDischarge, latestReadings, type ReadingWithDisch
 import { formatAgo, formatQuantity } from '../../format';
 import { href, navigate } from '../../router';
 import { lazyScreen } from '../../components/LazyScreen';
-import type { SiteRecord } from '../../../core';
+import { hasDischarge, type SiteRecord } from '../../../core';
 import SiteForm from '../SiteForm';
 
 const SiteReadings = lazyScreen<{ siteId: string }>(() => import('../SiteReadings'));
@@ -95,7 +95,7 @@ function SitesList() {
                     <>
                       <span>{formatQuantity('stage', latest.reading.stage_m, site.displayUnits)}</span>
                       <span class="hint">
-                        {latest.discharge_m3s === null ? 'no rating' : formatQuantity('discharge', latest.discharge_m3s, site.displayUnits)}
+                        {!hasDischarge(latest.discharge_m3s) ? 'no rating' : formatQuantity('discharge', latest.discharge_m3s, site.displayUnits)}
                         {latest.extrapolated && ' (extrapolated)'}
                       </span>
                       <span class="hint">{formatAgo(latest.reading.time_ms, now)}</span>

@@ -2,7 +2,7 @@
 // what plots and the storm analysis need, at a fraction of the cost of reading whole records.
 import type { SeriesChunk } from './schema';
 import { withDb } from './connection';
-import { dayOf } from './series-chunks';
+import { dayOf } from './series-edit';
 
 /** Non-deleted readings of a window as parallel arrays: times (UTC ms, ascending), stages (m), sources (READING_SOURCE_CODES). */
 export interface ReadingSeries {

@@ -1,15 +1,13 @@
-// Bulk import of logger readings: validated first, then written in batches inside ONE readwrite
-// transaction (all or nothing), with progress after each batch; (site, source, time) duplicates, already
-// stored or repeated in the input, are reported and skipped. The series (series-chunks.ts) of the days
-// imported is merged in memory and each day's chunk put once, in the same transaction.
+// Adding many new readings inside a transaction of the readings writer (readings-write.ts): validated
+// first, then written in batches with progress after each; (site, source, time) duplicates, already
+// stored or repeated in the input, are reported and skipped. The series (series-edit.ts) of the days
+// added is merged in memory and each day's chunk put once, in the same transaction.
 import { unwrap } from 'idb';
 import { RecordValidationError, validateReadingBody, type ReadingBody, type ReadingRecord, type ReadingSource } from '../../core/records/index';
-import { withDb } from './connection';
-import { now_ms, stampInTx } from './clock';
+import { stampInTx } from './clock';
 import { StorageError, storageMessage } from './errors';
-import { afterWrite, DURABLE, inTx } from './records';
-import type { SeriesChunk } from './schema';
-import { dayOf, mergeIntoChunks } from './series-chunks';
+import type { ReadingsTx, SeriesChunk } from './schema';
+import { dayOf, mergeIntoChunks } from './series-edit';
 
 /** Readings written per batch unless told otherwise. */
 export const DEFAULT_IMPORT_BATCH = 5000;
@@ -62,12 +60,17 @@ function abortError(): StorageError {
 }
 
 /**
- * Imports many readings (e.g. 100,000 from a logger file) in one transaction: every reading is written
- * or none is. Readings whose (site, source, time) is already stored, or appears earlier in the input,
- * are reported in `duplicates` and not written. Throws a RecordValidationError naming the first bad
- * field ("readings[12].stage_m") before writing anything, or a StorageError if the write fails.
+ * Adds new readings inside tx (which holds readings, series and meta): each gets a new id and one new
+ * revision stamped at at_ms (UTC ms). Readings whose (site, source, time) is already stored, or appears
+ * earlier in the input, are reported in `duplicates` and not written. Throws a RecordValidationError
+ * naming the first bad field ("readings[12].stage_m") before writing anything. The caller awaits tx.done.
  */
-export async function importReadings(readings: readonly ReadingBody[], options: ImportOptions = {}): Promise<ImportResult> {
+export async function addReadingsInTx(
+  tx: ReadingsTx,
+  readings: readonly ReadingBody[],
+  at: number,
+  options: ImportOptions = {},
+): Promise<ImportResult> {
   const batch = Math.max(1, Math.floor(options.batchSize ?? DEFAULT_IMPORT_BATCH));
   const groups = new Map<string, Group>();
   const duplicates: ImportDuplicate[] = [];
@@ -93,7 +96,6 @@ export async function importReadings(readings: readonly ReadingBody[], options: 
     keep.push(i);
   }
   if (options.signal?.aborted) throw abortError();
-  const at = now_ms();
   const ids = keep.map(() => crypto.randomUUID());
   const days = new Map<string, { min: number; max: number }>();
   for (const g of groups.values()) {
@@ -104,44 +106,35 @@ export async function importReadings(readings: readonly ReadingBody[], options: 
       d.max = Math.max(d.max, dayOf(g.max_ms));
     }
   }
-
-  const result = await withDb(async (db) => {
-    const tx = db.transaction(['readings', 'series', 'meta'], 'readwrite', DURABLE);
-    return inTx(tx, async () => {
-      const index = tx.objectStore('readings').index('by-site-source-time');
-      const series = tx.objectStore('series');
-      const [rev, stored, chunks] = await Promise.all([
-        stampInTx(tx, at),
-        Promise.all(
-          [...groups.values()].map((g) => index.getAll(IDBKeyRange.bound([g.siteId, g.source, g.min_ms], [g.siteId, g.source, g.max_ms]))),
-        ),
-        Promise.all([...days].map(([siteId, d]) => series.getAll(IDBKeyRange.bound([siteId, d.min], [siteId, d.max])))),
-      ]);
-      const skip = new Set<number>();
-      [...groups.values()].forEach((g, gi) => {
-        for (const old of stored[gi]) {
-          const i = old.deleted ? undefined : g.times.get(old.time_ms);
-          if (i === undefined || skip.has(i)) continue;
-          skip.add(i);
-          duplicates.push({ index: i, siteId: g.siteId, source: g.source, time_ms: old.time_ms, existingId: old.id });
-        }
-      });
-      const toWrite: ReadingRecord[] = [];
-      keep.forEach((i, j) => {
-        if (!skip.has(i)) toWrite.push({ ...readings[i], id: ids[j], rev, updated_ms: at });
-      });
-      const storedChunks = new Map<string, SeriesChunk>();
-      for (const c of chunks.flat()) storedChunks.set(`${c.siteId}\u0000${c.day}`, c);
-      const merged = mergeIntoChunks(toWrite, storedChunks);
-      await writeInBatches(unwrap(tx.objectStore('readings')), toWrite, batch, options);
-      const rawSeries = unwrap(series);
-      for (const c of merged) rawSeries.put(c);
-      await tx.done;
-      return { imported: toWrite.length, duplicates: duplicates.sort((a, b) => a.index - b.index), rev };
-    });
+  const index = tx.objectStore('readings').index('by-site-source-time');
+  const series = tx.objectStore('series');
+  const [rev, stored, chunks] = await Promise.all([
+    stampInTx(tx, at),
+    Promise.all(
+      [...groups.values()].map((g) => index.getAll(IDBKeyRange.bound([g.siteId, g.source, g.min_ms], [g.siteId, g.source, g.max_ms]))),
+    ),
+    Promise.all([...days].map(([siteId, d]) => series.getAll(IDBKeyRange.bound([siteId, d.min], [siteId, d.max])))),
+  ]);
+  const skip = new Set<number>();
+  [...groups.values()].forEach((g, gi) => {
+    for (const old of stored[gi]) {
+      const i = old.deleted ? undefined : g.times.get(old.time_ms);
+      if (i === undefined || skip.has(i)) continue;
+      skip.add(i);
+      duplicates.push({ index: i, siteId: g.siteId, source: g.source, time_ms: old.time_ms, existingId: old.id });
+    }
   });
-  if (result.imported > 0) afterWrite(['reading']);
-  return result;
+  const toWrite: ReadingRecord[] = [];
+  keep.forEach((i, j) => {
+    if (!skip.has(i)) toWrite.push({ ...readings[i], id: ids[j], rev, updated_ms: at });
+  });
+  const storedChunks = new Map<string, SeriesChunk>();
+  for (const c of chunks.flat()) storedChunks.set(`${c.siteId}\u0000${c.day}`, c);
+  const merged = mergeIntoChunks(toWrite, storedChunks);
+  await writeInBatches(unwrap(tx.objectStore('readings')), toWrite, batch, options);
+  const rawSeries = unwrap(series);
+  for (const c of merged) rawSeries.put(c);
+  return { imported: toWrite.length, duplicates: duplicates.sort((a, b) => a.index - b.index), rev };
 }
 
 /**

@@ -34,7 +34,7 @@ async function post(base: string, token: string, entry: Entry): Promise<PushOutc
 
 /** The acknowledgement, as web/db/outbox.ts `acknowledge` writes it: mark, status, entry gone, one transaction. */
 async function acknowledge(db: IDBPDatabase, entry: Entry): Promise<void> {
-  const tx = db.transaction(['outbox', 'sync'], 'readwrite');
+  const tx = db.transaction(['outbox', 'sync'] as const, 'readwrite');
   const sync = tx.objectStore('sync');
   const [acked, status] = await Promise.all([sync.get('acked'), sync.get('status')]);
   const next = typeof acked === 'string' && acked > entry.through ? acked : entry.through;

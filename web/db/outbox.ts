@@ -64,24 +64,32 @@ export function waitingCount(): Promise<number> {
  */
 export async function nextOutgoing(): Promise<OutboxEntry | undefined> {
   const at = now_ms();
-  const entry = await withDb(async (db) => {
-    const tx = db.transaction([...SYNCED_STORES, 'meta', 'sync', 'outbox'], 'readwrite');
-    const outbox = tx.objectStore('outbox');
-    const pending = await outbox.index('by-created').openCursor();
-    if (pending) {
-      await tx.done;
-      return pending.value;
-    }
+  const oldest = () => withDb(async (db) => (await db.transaction('outbox').store.index('by-created').openCursor())?.value);
+  const pending = await oldest();
+  if (pending) return pending;
+  // Read in one transaction, then kept in another that only writes the outbox (records are read, never
+  // written here); if another tab kept a bundle meanwhile, that one goes first.
+  const made = await withDb(async (db) => {
+    const tx = db.transaction([...SYNCED_STORES, 'meta', 'sync'], 'readonly');
     const [device, acked] = await Promise.all([tx.objectStore('meta').get('deviceId'), tx.objectStore('sync').get('acked')]);
     if (typeof device !== 'string') return undefined;
     const waiting = (await mineAfter(tx, device, acked as string | undefined)).slice(0, MAX_BUNDLE_RECORDS);
     if (waiting.length === 0) return undefined;
     const bundle = makeBundle({ id: crypto.randomUUID(), device, created_ms: at, records: waiting.map((w) => w.record) });
-    const made: OutboxEntry = { id: bundle.id, bundle, through: waiting[waiting.length - 1].mark, created_ms: at, attempts: 0, nextAttempt_ms: at };
-    await Promise.all([outbox.put(made), tx.done]);
+    return { id: bundle.id, bundle, through: waiting[waiting.length - 1].mark, created_ms: at, attempts: 0, nextAttempt_ms: at } satisfies OutboxEntry;
+  });
+  if (!made) return undefined;
+  const entry = await withDb(async (db) => {
+    const tx = db.transaction('outbox', 'readwrite');
+    const other = await tx.store.index('by-created').openCursor();
+    if (other) {
+      await tx.done;
+      return other.value;
+    }
+    await Promise.all([tx.store.put(made), tx.done]);
     return made;
   });
-  if (entry) notifySyncChanged();
+  notifySyncChanged();
   return entry;
 }
 

@@ -4,7 +4,7 @@ import { fromDisplay, isTimeZone, RecordValidationError, toDisplay, displayUnit,
 import { deleteSite, getSite, saveSite, StorageError } from '../../db';
 import { describedBy, Field } from '../../components/Field';
 import { parseDecimal, significant } from '../../format';
-import { href, navigate } from '../../router';
+import { href, navigate, type ScreenProps } from '../../router';
 
 interface Form {
   code: string;
@@ -92,8 +92,9 @@ function fieldOf(err: RecordValidationError): keyof Form {
   return 'code';
 }
 
-/** The site form; with siteId it edits that site, without it creates one. */
-export default function SiteForm({ siteId }: { siteId?: string }) {
+/** The site form ('#/sites/new', '#/sites/<siteId>/edit'): with siteId it edits that site, without it creates one. */
+export default function SiteForm({ params }: ScreenProps) {
+  const siteId = params.siteId;
   const [form, setForm] = useState<Form>(emptyForm);
   const [loaded, setLoaded] = useState(!siteId);
   const [errors, setErrors] = useState<Errors>({});

@@ -6,8 +6,8 @@ import {
   applyIncoming, exportBundle, getSyncValue, listConflicts, listSites, markExported, onSyncChanged, previewIncoming,
   settleConflict, syncedVersion, waitingCount, type IncomingResult, type SyncStatusRecord,
 } from '../../db';
-import type { ScreenProps } from '../../app/routes';
-import { useRecords } from '../../app/use-records';
+import type { ScreenProps } from '../../router';
+import { useRecords } from '../../db/use-records';
 import { describedBy, Field } from '../../components/Field';
 import { formatAgo } from '../../format';
 import { useStore } from '../../store';

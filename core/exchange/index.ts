@@ -6,3 +6,13 @@ export { ratingSegmentsToCsv, ratingTablesToCsv, RATING_TABLE_HEADROOM_M } from 
 export { stormToCsv, type SeparatedStorm } from './storm-csv';
 export { BUNDLE_FORMAT, BUNDLE_VERSION, BundleError, bundleChecksum, makeBundle, parseBundle, type Bundle, type BundleErrorReason, type BundleInput } from './bundle';
 export { sha256Hex, utf8Bytes } from './sha256';
+export { escapeXml, gmlId } from './xml-write';
+export { watermlTimeseries, WATERML_QUALITY, type TimeseriesDocumentInput } from './waterml-timeseries';
+export { watermlRatings, segmentEquation, type RatingsDocumentInput } from './waterml-ratings';
+export { ratingConversionPoints, chordGap, DEFAULT_CONVERSION_TOLERANCE, type ConversionPoint, type ConversionTolerance } from './rating-points';
+export { readCsvRecords, CsvSyntaxError, type CsvRecord } from './csv-read';
+export {
+  parseReadingsCsv, parseIsoWithOffset, CsvImportError, MAX_CSV_PROBLEMS, type ReadingCsvMapping, type CsvProblem, type CsvStageUnit,
+} from './readings-csv-import';
+export { guessReadingsMapping, type MappingGuess } from './readings-csv-mapping';
+export { isoWithOffsetFormatter } from './iso-times';

@@ -29,6 +29,8 @@ const Record = lazyScreen<ScreenProps>(() => import('../screens/Record'));
 const Storm = lazyScreen<ScreenProps>(() => import('../screens/Storm'));
 const Data = lazyScreen<ScreenProps>(() => import('../screens/Data'));
 const Sync = lazyScreen<ScreenProps>(() => import('../screens/Sync'));
+const Ratings = lazyScreen<ScreenProps>(() => import('../screens/Ratings'));
+const Gaugings = lazyScreen<ScreenProps>(() => import('../screens/Gaugings'));
 
 /** Every page, literal patterns before the ones with a parameter in the same place. */
 export const ROUTES: readonly RouteEntry[] = [
@@ -36,6 +38,13 @@ export const ROUTES: readonly RouteEntry[] = [
   { pattern: 'sites/new', area: 'sites', Screen: SiteForm },
   { pattern: 'sites/:siteId', area: 'sites', Screen: SiteReadings },
   { pattern: 'sites/:siteId/edit', area: 'sites', Screen: SiteForm },
+  { pattern: 'sites/:siteId/ratings', area: 'sites', Screen: Ratings },
+  { pattern: 'sites/:siteId/ratings/new', area: 'sites', Screen: Ratings },
+  { pattern: 'sites/:siteId/ratings/fit', area: 'sites', Screen: Ratings },
+  { pattern: 'sites/:siteId/ratings/import', area: 'sites', Screen: Ratings },
+  { pattern: 'sites/:siteId/ratings/:ratingId', area: 'sites', Screen: Ratings },
+  { pattern: 'sites/:siteId/gaugings', area: 'sites', Screen: Gaugings },
+  { pattern: 'sites/:siteId/gaugings/new', area: 'sites', Screen: Gaugings },
   { pattern: 'record', area: 'record', Screen: Record },
   { pattern: 'record/:siteId', area: 'record', Screen: Record },
   { pattern: 'record/:siteId/:readingId', area: 'record', Screen: Record },

@@ -118,8 +118,10 @@ export default function SiteReadings({ params }: ScreenProps) {
         <a class="button" href={href('sites', site.id, 'edit')}>Edit site</a>
       </div>
       <p class={ratingNote ? 'callout' : 'callout warn'}>
-        {ratingNote ?? 'No rating yet: readings are kept as stage only until a rating is added.'}
-        {` · ${gaugingCount} gauging${gaugingCount === 1 ? '' : 's'} on this phone`}
+        {ratingNote ?? 'No rating yet: readings are kept as stage only until a rating is added.'}{' '}
+        <a href={href('sites', site.id, 'ratings')}>{ratingNote ? 'Ratings and shifts' : 'Add a rating'}</a>
+        {' · '}
+        <a href={href('sites', site.id, 'gaugings')}>{`${gaugingCount} gauging${gaugingCount === 1 ? '' : 's'} on this phone`}</a>
       </p>
       <SmallPlot site={site} last_ms={readings[0]?.reading.time_ms} />
       {message && <p class="callout bad" role="alert">{message}</p>}

@@ -8,3 +8,4 @@ export * from './demo/index';
 export * from './time/index';
 export * from './readings/index';
 export * from './exchange/index';
+export * from './sync/index';

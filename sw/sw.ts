@@ -4,6 +4,7 @@
 import { clientsClaim } from 'workbox-core';
 import { cleanupOutdatedCaches, createHandlerBoundToURL, precacheAndRoute } from 'workbox-precaching';
 import { NavigationRoute, registerRoute } from 'workbox-routing';
+import { PUSH_TAG, pushFromWorker } from './background-push';
 
 declare const self: ServiceWorkerGlobalScope & { __WB_MANIFEST: Array<{ url: string; revision: string | null }> };
 
@@ -21,4 +22,13 @@ self.addEventListener('message', (event) => {
   if (typeof data === 'object' && data !== null && (data as { type?: unknown }).type === 'SKIP_WAITING') {
     void self.skipWaiting();
   }
+});
+
+// Background Sync (where the browser has it) only triggers a push; the data stays in the app's outbox.
+interface SyncEventLike extends ExtendableEvent {
+  readonly tag: string;
+}
+self.addEventListener('sync' as keyof ServiceWorkerGlobalScopeEventMap, (event) => {
+  const e = event as unknown as SyncEventLike;
+  if (e.tag === PUSH_TAG) e.waitUntil(pushFromWorker(self));
 });

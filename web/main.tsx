@@ -10,3 +10,5 @@ applyTheme();
 watchOnline();
 render(<App />, document.getElementById('app')!);
 startServiceWorker();
+// Sync loads after the first paint: it is not needed to show the app, and it keeps the first visit small.
+void import('./sync/triggers').then((m) => m.startSyncTriggers());

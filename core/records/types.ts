@@ -14,6 +14,12 @@ export interface RecordEnvelope {
   updated_ms: number;
   /** Present (and true) when the record was deleted: a tombstone that syncs like any change. */
   deleted?: true;
+  /**
+   * The versions from other devices this one was built on: at most one revision per device (the latest),
+   * never this revision's own device. Absent on a first version. Sync uses it to tell an edit that knew
+   * an earlier version from a concurrent change (core/sync/ancestry.ts).
+   */
+  seen?: string[];
 }
 
 /** A point on the Earth in decimal degrees (WGS 84). */
@@ -222,8 +228,11 @@ export const SYNC_KINDS: readonly SyncKind[] = ['site', 'reading', 'gauging', 'r
 
 /** The unit of exchange: one record as it travels in a bundle; body holds the fields plus updated_ms. */
 export type SyncRecord<K extends SyncKind = SyncKind> = {
-  [P in K]: { kind: P; id: string; rev: string; deleted?: true; body: SyncBodies[P] & { updated_ms: number } };
+  [P in K]: { kind: P; id: string; rev: string; deleted?: true; body: SyncBodies[P] & { updated_ms: number; seen?: string[] } };
 }[K];
+
+/** Why a version was kept for review: changed on two sides since they last agreed, or dated ahead of the clock. */
+export type ConflictReason = 'concurrent' | 'ahead';
 
 /** A losing version kept for review after a merge: the record it lost to and when it was found (UTC ms). */
 export interface ConflictBody {
@@ -232,6 +241,8 @@ export interface ConflictBody {
   losing: SyncRecord;
   winnerRev: string;
   found_ms: number;
+  /** Absent means 'concurrent' (conflicts written before the reason was kept). */
+  reason?: ConflictReason;
 }
 
 /** A stored site. */

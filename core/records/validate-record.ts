@@ -2,7 +2,7 @@
 import type { RecordKind, StoredRecords, SyncKind, SyncRecord } from './types';
 import { SYNC_KINDS } from './types';
 import { requireObject, requireOneOf, requireRef, requireTime, requireUuid } from './checks';
-import { validateEnvelope } from './envelope';
+import { validateEnvelope, validateSeen } from './envelope';
 import { isRev } from './hlc';
 import { RecordValidationError } from './validation-error';
 import { validateAnalysisBody } from './validate-analysis';
@@ -22,6 +22,7 @@ export function validateSyncRecord(x: unknown): asserts x is SyncRecord {
   if (o.deleted !== undefined && o.deleted !== true) throw new RecordValidationError(kind, 'deleted', 'true or absent', o.deleted);
   const body = requireObject(kind, 'body', o.body);
   requireTime(kind, 'body.updated_ms', body.updated_ms);
+  validateSeen(kind, 'body.seen', body.seen);
   validateBody(kind, body);
 }
 
@@ -37,6 +38,7 @@ export function validateConflictBody(x: unknown): void {
     throw new RecordValidationError(k, 'losing', `a ${kind} record with id ${String(o.recordId)}`, `${losing.kind} ${losing.id}`);
   }
   if (!isRev(o.winnerRev)) throw new RecordValidationError(k, 'winnerRev', 'a revision string', o.winnerRev);
+  if (o.reason !== undefined) requireOneOf(k, 'reason', o.reason, ['concurrent', 'ahead']);
   requireTime(k, 'found_ms', o.found_ms);
 }
 

@@ -5,7 +5,8 @@ export const AREAS = [
   { id: 'sites', label: 'Sites', title: 'Sites' },
   { id: 'record', label: 'Record', title: 'Record a reading' },
   { id: 'storm', label: 'Storm', title: 'Storm runoff' },
-  { id: 'data', label: 'Data', title: 'Data and sync' },
+  { id: 'data', label: 'Data', title: 'Data on this phone' },
+  { id: 'sync', label: 'Sync', title: 'Sync with the office' },
   { id: 'about', label: 'About', title: 'About' },
 ] as const;
 

@@ -28,6 +28,7 @@ const SiteReadings = lazyScreen<ScreenProps>(() => import('../screens/SiteReadin
 const Record = lazyScreen<ScreenProps>(() => import('../screens/Record'));
 const Storm = lazyScreen<ScreenProps>(() => import('../screens/Storm'));
 const Data = lazyScreen<ScreenProps>(() => import('../screens/Data'));
+const Sync = lazyScreen<ScreenProps>(() => import('../screens/Sync'));
 const Ratings = lazyScreen<ScreenProps>(() => import('../screens/Ratings'));
 const Gaugings = lazyScreen<ScreenProps>(() => import('../screens/Gaugings'));
 const LoggerImport = lazyScreen<ScreenProps>(() => import('../screens/LoggerImport'));
@@ -53,6 +54,7 @@ export const ROUTES: readonly RouteEntry[] = [
   { pattern: 'data', area: 'data', Screen: Data },
   { pattern: 'data/logger', area: 'data', Screen: LoggerImport },
   { pattern: 'data/logger/:siteId', area: 'data', Screen: LoggerImport },
+  { pattern: 'sync', area: 'sync', Screen: Sync },
   { pattern: 'about', area: 'about', Screen: About },
 ];
 

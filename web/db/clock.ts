@@ -25,9 +25,10 @@ export interface MetaTx {
 
 /**
  * Issues the next revision inside tx: reads the device id (creating it on first use) and the last
- * revision from meta, advances the clock past both it and this tab's memory, and writes it back.
+ * revision from meta, advances the clock past it, this tab's memory and `above` (the revision being
+ * replaced, when there is one), and writes it back.
  */
-export async function stampInTx(tx: MetaTx, at_ms: number): Promise<string> {
+export async function stampInTx(tx: MetaTx, at_ms: number, above?: string): Promise<string> {
   const meta = tx.objectStore('meta');
   const [storedDevice, storedLast] = await Promise.all([meta.get('deviceId'), meta.get('lastRev')]);
   let deviceId: string;
@@ -36,7 +37,9 @@ export async function stampInTx(tx: MetaTx, at_ms: number): Promise<string> {
     deviceId = crypto.randomUUID();
     quietly(meta.put(deviceId, 'deviceId'));
   }
-  const previous = maxRev(typeof storedLast === 'string' ? storedLast : undefined, lastIssued);
+  // `above`: the revision of the version being replaced, which may come from a clock ahead of this one;
+  // the new revision must sort above it or the edit would lose to its own starting point.
+  const previous = maxRev(maxRev(typeof storedLast === 'string' ? storedLast : undefined, lastIssued), above);
   const rev = nextRev(previous, at_ms, deviceId);
   quietly(meta.put(rev, 'lastRev'));
   lastIssued = rev;

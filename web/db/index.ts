@@ -28,3 +28,11 @@ export { saveAnalysis, getAnalysis, deleteAnalysis, restoreAnalysis, listAnalyse
 export { saveDraft, getDraft, discardDraft, listDrafts } from './drafts';
 export { saveConflict, dismissConflict, listConflicts } from './conflicts';
 export { getMeta, setMeta } from './meta';
+export { settleConflict } from './conflicts';
+export { applyIncoming, previewIncoming, STORE_OF_KIND, syncedVersion, type IncomingResult } from './sync-merge';
+export {
+  acknowledge, exportBundle, markExported, markOf, MAX_BUNDLE_RECORDS, nextOutgoing, noteAttempt, waitingCount, type ExportFile,
+} from './outbox';
+export { getSyncValue, setSyncValue, updateSyncStatus } from './sync-store';
+export { onSyncChanged } from './sync-events';
+export type { OutboxEntry, SyncKey, SyncProblem, SyncSettings, SyncStatusRecord, SyncValues } from './schema';

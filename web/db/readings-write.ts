@@ -10,7 +10,8 @@ import {
 import { withDb } from './connection';
 import { now_ms, stampInTx } from './clock';
 import { StorageError, storageMessage } from './errors';
-import { afterWrite, DURABLE, inTx, type SaveInput } from './records';
+import { afterWrite, DURABLE, inTx, withSeen, type SaveInput } from './records';
+import { isAhead } from '../../core/sync/index';
 import type { FreshetDB, ReadingsStores, ReadingsTx } from './schema';
 import { updateSeriesInTx } from './series-edit';
 import { addReadingsInTx, type ImportOptions, type ImportResult } from './readings-add';
@@ -67,7 +68,9 @@ export async function putReadingsInTx(tx: ReadingsTx, records: readonly ReadingR
   const meta = tx.objectStore('meta');
   const [befores, storedRev] = await Promise.all([Promise.all(unique.map((r) => store.get(r.id))), meta.get('lastRev')]);
   for (const r of unique) quietly(store.put(r));
-  const highest = unique.reduce<string | undefined>((m, r) => maxRev(m, r.rev), typeof storedRev === 'string' ? storedRev : undefined);
+  // Revisions dated ahead of this device's clock (a wrong date elsewhere) do not move it (core/sync/ahead.ts).
+  const at = now_ms();
+  const highest = unique.reduce<string | undefined>((m, r) => (isAhead(r.rev, at) ? m : maxRev(m, r.rev)), typeof storedRev === 'string' ? storedRev : undefined);
   if (highest !== undefined && highest !== storedRev) quietly(meta.put(highest, 'lastRev'));
   await updateSeriesInTx(tx, unique.map((after, i) => ({ before: befores[i], after })));
   const byId = new Map(unique.map((r, i) => [r.id, befores[i]]));
@@ -83,7 +86,7 @@ export interface SaveReadingOptions {
 }
 
 function splitReading(input: SaveInput<ReadingRecord>): { id: string | undefined; body: ReadingBody } {
-  const { id, rev: _rev, updated_ms: _updated, deleted: _deleted, ...body } = input as SaveInput<ReadingRecord> & Record<string, unknown>;
+  const { id, rev: _rev, updated_ms: _updated, deleted: _deleted, seen: _seen, ...body } = input as SaveInput<ReadingRecord> & Record<string, unknown>;
   if (id !== undefined && !isUuid(id)) throw new RecordValidationError('reading', 'id', 'a lower-case UUID or absent for a new record', id);
   validateReadingBody(body);
   return { id, body };
@@ -103,12 +106,14 @@ export async function saveReading(input: SaveInput<ReadingRecord>, options: Save
   const saved = await withDb(async (db) => {
     const tx = db.transaction(['readings', 'series', 'meta', ...also], 'readwrite', DURABLE);
     return inTx(tx, async () => {
-      const [rev, before] = await Promise.all([stampInTx(tx, at), tx.objectStore('readings').get(id)]);
+      // The new revision sorts above the one it replaces, and carries its `seen` list on (core/sync).
+      const before = await tx.objectStore('readings').get(id);
+      const rev = await stampInTx(tx, at, before?.rev);
       if (options.expectedRev !== undefined && (!before || before.deleted || before.rev !== options.expectedRev)) {
         throw new StorageError('stale', storageMessage('stale'));
       }
       if (before && !before.deleted && before.siteId !== body.siteId) throw new StorageError('moved', storageMessage('moved'));
-      const record: ReadingRecord = { ...body, id, rev, updated_ms: at };
+      const record: ReadingRecord = withSeen({ ...body, id, rev, updated_ms: at }, rev, before);
       quietly(tx.objectStore('readings').put(record));
       if (options.draftId !== undefined) quietly(tx.objectStore('drafts').delete(options.draftId));
       await updateSeriesInTx(tx, [{ before, after: record }]);
@@ -131,9 +136,10 @@ async function setDeleted(id: string, deleted: boolean): Promise<ReadingRecord |
         await tx.done;
         return undefined;
       }
-      const rev = await stampInTx(tx, at);
-      const { deleted: _was, ...rest } = existing;
-      const record: ReadingRecord = deleted ? { ...rest, rev, updated_ms: at, deleted: true } : { ...rest, rev, updated_ms: at };
+      const rev = await stampInTx(tx, at, existing.rev);
+      const { deleted: _was, seen: _seen, ...rest } = existing;
+      const fields = withSeen({ ...rest, rev, updated_ms: at }, rev, existing);
+      const record: ReadingRecord = deleted ? { ...fields, deleted: true } : fields;
       quietly(tx.objectStore('readings').put(record));
       await updateSeriesInTx(tx, [{ before: existing, after: record }]);
       await tx.done;

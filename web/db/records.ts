@@ -1,7 +1,8 @@
 // The operations every record store shares: save, get, tombstone, restore, list by index range.
 // Each write is one transaction over the store and meta (for the revision), awaited to tx.done.
 import type { IndexNames, StoreNames } from 'idb';
-import { isUuid, RecordValidationError, validateBody, type RecordKind, type StoredRecords } from '../../core/records/index';
+import { isUuid, parseRev, RecordValidationError, validateBody, type RecordKind, type StoredRecords } from '../../core/records/index';
+import { seenAfter } from '../../core/sync/index';
 import type { FreshetDB, RecordStore } from './schema';
 
 /** Stores written through saveIn and its kin: every record store but readings (readings-write.ts is their one writer). */
@@ -65,10 +66,16 @@ export function afterWrite(kinds: RecordKind[], ids?: string[]): void {
 }
 
 function splitInput(kind: RecordKind, input: object): { id: string | undefined; body: Record<string, unknown> } {
-  const { id, rev: _rev, updated_ms: _updated, deleted: _deleted, ...body } = input as Record<string, unknown>;
+  const { id, rev: _rev, updated_ms: _updated, deleted: _deleted, seen: _seen, ...body } = input as Record<string, unknown>;
   if (id !== undefined && !isUuid(id)) throw new RecordValidationError(kind, 'id', 'a lower-case UUID or absent for a new record', id);
   validateBody(kind, body);
   return { id: id as string | undefined, body };
+}
+
+/** The record with the `seen` list of a new version `rev` written on top of `before` (none for a first version). */
+export function withSeen<T extends object>(record: T, rev: string, before: { rev: string; seen?: string[] } | undefined): T & { seen?: string[] } {
+  const seen = before ? seenAfter(parseRev(rev).deviceId, [before]) : undefined;
+  return seen ? { ...record, seen } : record;
 }
 
 /** Validates and saves one record in store S: new id when absent, new rev, updated_ms now; resolves when durable. */
@@ -80,9 +87,13 @@ export async function saveIn<S extends PlainStore>(store: S, input: SaveInput<Re
   const saved = await withDb(async (db) => {
     const tx = db.transaction([store, 'meta'], 'readwrite', DURABLE);
     return inTx(tx, async () => {
-      const rev = await stampInTx(tx, at);
-      const record = { ...body, id, rev, updated_ms: at } as unknown as RecordOf<S>;
-      quietly(tx.objectStore(store).put(record as FreshetDB[S]['value']));
+      const s = tx.objectStore(store);
+      // The earlier version: its revision and `seen` list carry over (sync tells edits from concurrent
+      // changes by them).
+      const before = (await s.get(id)) as RecordOf<S> | undefined;
+      const rev = await stampInTx(tx, at, before?.rev);
+      const record = withSeen({ ...body, id, rev, updated_ms: at }, rev, before) as unknown as RecordOf<S>;
+      quietly(s.put(record as FreshetDB[S]['value']));
       await tx.done;
       return record;
     });
@@ -112,9 +123,10 @@ async function setDeleted<S extends PlainStore>(store: S, id: string, deleted: b
         await tx.done;
         return undefined;
       }
-      const rev = await stampInTx(tx, at);
-      const { deleted: _was, ...rest } = existing as RecordOf<S> & { deleted?: true };
-      const record = (deleted ? { ...rest, rev, updated_ms: at, deleted: true } : { ...rest, rev, updated_ms: at }) as RecordOf<S>;
+      const rev = await stampInTx(tx, at, existing.rev);
+      const { deleted: _was, seen: _seen, ...rest } = existing as RecordOf<S> & { deleted?: true };
+      const fields = withSeen({ ...rest, rev, updated_ms: at }, rev, existing);
+      const record = (deleted ? { ...fields, deleted: true } : fields) as RecordOf<S>;
       quietly(s.put(record as FreshetDB[S]['value']));
       await tx.done;
       return record;

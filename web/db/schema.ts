@@ -3,6 +3,7 @@ import type { DBSchema, IDBPTransaction, StoreNames } from 'idb';
 import type {
   AnalysisRecord, ConflictRecord, DraftRecord, GaugingRecord, LoggerDayRecord, RatingRecord, ReadingRecord, SiteRecord,
 } from '../../core/records/index';
+import type { Bundle } from '../../core/exchange/index';
 
 /** Name of the app's database. */
 export const DB_NAME = 'freshet';
@@ -38,6 +39,61 @@ export interface SeriesChunk {
   id: string[];
 }
 
+/** The office endpoint: its base URL (https, or http on this machine) and the device's bearer token. */
+export interface SyncSettings {
+  base: string;
+  token: string;
+}
+
+/** A failed exchange, in words for the screen: what went wrong, whether the user must act, when (UTC ms). */
+export interface SyncProblem {
+  message: string;
+  /** 'retry': the app tries again by itself; 'fix': the user must change something (token, address). */
+  kind: 'retry' | 'fix';
+  at_ms: number;
+}
+
+/** Where sync stands: the last success and the last problem (UTC ms), the last file export. */
+export interface SyncStatusRecord {
+  lastSuccess_ms?: number;
+  lastProblem?: SyncProblem;
+  lastExport_ms?: number;
+}
+
+/**
+ * Values in the sync store (version 2), by key. Marks are "<rev> <kind> <id>" keys: every record of this
+ * device whose key sorts above `acked` still waits for the office.
+ */
+export interface SyncValues {
+  settings: SyncSettings;
+  /** Mark of the last record the office acknowledged (201/200 to a push that carried it). */
+  acked: string;
+  /** Mark of the last record written to a file of changes. */
+  exported: string;
+  /** The office's pull cursor (opaque), stored in the transaction that merged what it covers. */
+  cursor: string;
+  status: SyncStatusRecord;
+}
+
+/** Keys of the sync store. */
+export type SyncKey = keyof SyncValues;
+
+/**
+ * A bundle made for the office and not yet acknowledged. It is sent again, unchanged and under the same
+ * id (the Idempotency-Key), until the office answers 201 or 200; then the acked mark moves to `through`.
+ */
+export interface OutboxEntry {
+  /** The bundle's id. */
+  id: string;
+  bundle: Bundle;
+  /** Mark of the last record in the bundle. */
+  through: string;
+  created_ms: number;
+  attempts: number;
+  /** Earliest time for the next automatic attempt, UTC ms. */
+  nextAttempt_ms: number;
+}
+
 /** Keys of the meta store. */
 export type MetaKey = keyof MetaValues & string;
 
@@ -62,6 +118,10 @@ export interface FreshetDB extends DBSchema {
   meta: { key: string; value: MetaValues[MetaKey] };
   /** Derived from readings, local only, never synced (see SeriesChunk); key [siteId, day]. */
   series: { key: [string, number]; value: SeriesChunk };
+  /** Version 2: sync settings, marks, cursor and status (local only). */
+  sync: { key: SyncKey; value: SyncValues[SyncKey] };
+  /** Version 2: bundles made for the office and not yet acknowledged, by bundle id, oldest first. */
+  outbox: { key: string; value: OutboxEntry; indexes: { 'by-created': number } };
   /** Logger records, one record per site and UTC day (since version 3); they sync as kind 'logger-day'. */
   loggerDays: { key: string; value: LoggerDayRecord; indexes: { 'by-site-day': [string, number]; 'by-rev': string } };
 }

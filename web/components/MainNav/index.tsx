@@ -10,6 +10,7 @@ const ICONS: Record<AreaId, ComponentChildren> = {
   record: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><path d="M6 3v18M6 6h5M6 10h3M6 14h5M6 18h3" /><path d="M14 15c2-1.5 4-1.5 6 0" /><path d="M14 19c2-1.5 4-1.5 6 0" /></svg>,
   storm: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><path d="M3 20h18" /><path d="M4 19c3 0 4-13 7-13s4 9 9 11" /></svg>,
   data: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><ellipse cx="12" cy="6" rx="7" ry="3" /><path d="M5 6v12c0 1.7 3.1 3 7 3s7-1.3 7-3V6" /><path d="M5 12c0 1.7 3.1 3 7 3s7-1.3 7-3" /></svg>,
+  sync: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><path d="M4 9h13l-3-3" /><path d="M20 15H7l3 3" /></svg>,
   about: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><circle cx="12" cy="12" r="9" /><path d="M12 11v6M12 7.5v.5" /></svg>,
 };
 

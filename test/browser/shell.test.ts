@@ -8,7 +8,7 @@ import { ARTIFACTS, launchBrowser, ROOT, startPreview, type Browser, type Previe
 import { seriousViolations } from '../support/browser/axe';
 import { FIRST_VISIT_BUDGET_BYTES, measureFirstVisit } from '../support/browser/first-visit';
 
-const AREAS = ['sites', 'record', 'storm', 'data', 'about'];
+const AREAS = ['sites', 'record', 'storm', 'data', 'sync', 'about'];
 let server: Preview;
 let browser: Browser;
 let page: Page;

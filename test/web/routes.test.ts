@@ -50,7 +50,7 @@ describe('the route table', () => {
   });
   it('gives every area of the bottom bar a home page, and every page an area of the bar', () => {
     const areas = AREAS.map((a) => a.id);
-    expect(areas).toEqual(['sites', 'record', 'storm', 'data', 'about']);
+    expect(areas).toEqual(['sites', 'record', 'storm', 'data', 'sync', 'about']);
     for (const a of areas) expect(ROUTES.some((r) => r.pattern === a)).toBe(true);
     for (const r of ROUTES) expect(areas).toContain(r.area);
   });

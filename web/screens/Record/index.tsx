@@ -13,7 +13,7 @@ import { onBeforeUpdate } from '../../app/updates';
 import { useRecords } from '../../app/use-records';
 import { Cautions } from '../../components/Cautions';
 import { describedBy, Field } from '../../components/Field';
-import { formatQuantity, formatTime, parseDecimal } from '../../format';
+import { formatQuantity, formatTime, parseDecimal, spaceInsideNumber } from '../../format';
 import { href, navigate } from '../../router';
 import { blankForm, formOfReading, formReducer, fromDraftFields, hasContent, toDraftFields, type ReadingForm } from './form';
 import './style.css';
@@ -198,7 +198,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   const stage = useMemo(() => {
     if (!form.stageText.trim()) return { empty: true as const };
     const v = parseDecimal(form.stageText);
-    return v === undefined ? { error: `Type the stage as a number, like ${u === 'us' ? '2.41' : '0.734'}.` } : { stage_m: fromDisplay('stage', v, u) };
+    return v === undefined ? { error: spaceInsideNumber(form.stageText) ?? `Type the stage as a number, like ${u === 'us' ? '2.41' : '0.734'}.` } : { stage_m: fromDisplay('stage', v, u) };
   }, [form.stageText, u]);
   const time = useMemo(() => {
     if (!form.timeText) return { time_ms: Math.floor(now / 1000) * 1000, followsClock: true };

@@ -3,7 +3,7 @@ import { useEffect, useMemo, useState } from 'preact/hooks';
 import { fromDisplay, isTimeZone, RecordValidationError, toDisplay, displayUnit, type SiteRecord, type UnitSystem } from '../../../core';
 import { deleteSite, getSite, saveSite, StorageError } from '../../db';
 import { describedBy, Field } from '../../components/Field';
-import { parseDecimal, significant } from '../../format';
+import { decimalProblem, parseDecimal, significant } from '../../format';
 import { href, navigate } from '../../router';
 
 interface Form {
@@ -46,7 +46,7 @@ function toSite(f: Form): { site?: Omit<SiteRecord, 'id' | 'rev' | 'updated_ms'>
       return undefined;
     }
     const v = parseDecimal(text);
-    if (v === undefined) errors[key] = `${what} must be a number, like 12.5; got "${text}".`;
+    if (v === undefined) errors[key] = `${what}: ${decimalProblem(text)}`;
     return v;
   };
   if (!f.code.trim()) errors.code = 'A site code is needed, like "PB-03".';

@@ -4,7 +4,7 @@
 // is kept as a draft on every change and restored when the app reopens.
 import { useEffect, useMemo, useReducer, useRef, useState } from 'preact/hooks';
 import {
-  checkReading, fromDisplay, hasDischarge, STAGE_DECIMALS, fromLocalInput, displayUnit, READING_QUALITIES, READING_SOURCES, RecordValidationError,
+  checkReading, fromDisplay, hasDischarge, STAGE_DECIMALS, readLocalInput, displayUnit, READING_QUALITIES, READING_SOURCES, RecordValidationError,
   toDisplay, toLocalInput, type ReadingQuality, type ReadingSource, type SiteRecord,
 } from '../../../core';
 import { discardDraft, getReading, getSite, listDrafts, listRatings, listSites, readingBefore, saveDraft, saveReading, StorageError } from '../../db';
@@ -12,6 +12,7 @@ import type { ScreenProps } from '../../app/routes';
 import { onBeforeUpdate } from '../../app/updates';
 import { useRecords } from '../../app/use-records';
 import { Cautions } from '../../components/Cautions';
+import { TimeChoice } from '../../components/TimeChoice';
 import { describedBy, Field } from '../../components/Field';
 import { formatQuantity, formatTime, parseDecimal, spaceInsideNumber } from '../../format';
 import { href, navigate } from '../../router';
@@ -119,6 +120,8 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   const [saved, setSaved] = useState<string>();
   const [error, setError] = useState<{ field?: string; text: string }>();
   const [gpsState, setGpsState] = useState<string>();
+  /** Which instant the user picked for a time the clocks skipped or repeated (kept while the text is the same). */
+  const [timeChoice, setTimeChoice] = useState<{ text: string; time_ms: number }>();
   const draftId = useRef<string | undefined>(undefined);
   const pendingDraft = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
   const formRef = useRef(form);
@@ -143,7 +146,12 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       } else if (readingId) {
         const r = await getReading(readingId);
         if (!live) return;
-        if (r) dispatch({ type: 'replace', form: formOfReading(r, toDisplay('stage', r.stage_m, u).toFixed(STAGE_DECIMALS[u]), toLocalInput(r.time_ms, site.timeZone)) });
+        if (r) {
+          const timeText = toLocalInput(r.time_ms, site.timeZone);
+          // A stored time in the repeated hour is already decided: keep its instant, do not ask again.
+          setTimeChoice({ text: timeText, time_ms: r.time_ms });
+          dispatch({ type: 'replace', form: formOfReading(r, toDisplay('stage', r.stage_m, u).toFixed(STAGE_DECIMALS[u]), timeText) });
+        }
         else setError({ text: 'That reading is not on this phone any more.' });
       }
       setReady(true);
@@ -203,11 +211,14 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   const time = useMemo(() => {
     if (!form.timeText) return { time_ms: Math.floor(now / 1000) * 1000, followsClock: true };
     try {
-      return { time_ms: fromLocalInput(form.timeText, site.timeZone), followsClock: false };
+      const answer = readLocalInput(form.timeText, site.timeZone);
+      if (answer.kind === 'one') return { time_ms: answer.time_ms, followsClock: false };
+      const picked = timeChoice?.text === form.timeText && answer.candidates_ms.includes(timeChoice.time_ms) ? timeChoice.time_ms : undefined;
+      return picked === undefined ? { ask: answer, followsClock: false } : { time_ms: picked, ask: answer, followsClock: false };
     } catch (err) {
       return { error: (err as Error).message };
     }
-  }, [form.timeText, now, site.timeZone]);
+  }, [form.timeText, now, site.timeZone, timeChoice]);
   const t = 'time_ms' in time ? time.time_ms : undefined;
   const context = useRecords(
     async () => {
@@ -236,7 +247,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       return;
     }
     if (t === undefined || !check) {
-      setError({ field: 'time', text: ('error' in time && time.error) || 'The time could not be read yet; try again.' });
+      setError({ field: 'time', text: ('error' in time && time.error) || ('ask' in time ? 'Choose which of the two times below was meant.' : 'The time could not be read yet; try again.') });
       return;
     }
     setSaving(true);
@@ -351,6 +362,19 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
           />
           {!time.followsClock && <button type="button" style="flex:0 0 auto" onClick={() => dispatch({ type: 'set', field: 'timeText', value: '' })}>Now</button>}
         </div>
+        {'ask' in time && time.ask && (
+          <TimeChoice
+            id="time-choice"
+            typed={form.timeText}
+            answer={time.ask}
+            timeZone={site.timeZone}
+            chosen_ms={'time_ms' in time ? time.time_ms : undefined}
+            onChoose={(time_ms) => {
+              setTimeChoice({ text: form.timeText, time_ms });
+              if (error?.field === 'time') setError(undefined);
+            }}
+          />
+        )}
       </Field>
       <div class="row two">
         <Field id="source" label="Read from">

@@ -13,6 +13,7 @@ import { onBeforeUpdate } from '../../app/updates';
 import { useRecords } from '../../app/use-records';
 import { Cautions } from '../../components/Cautions';
 import { TimeChoice } from '../../components/TimeChoice';
+import { locationProblem, plainError } from '../../plain-words';
 import { describedBy, Field } from '../../components/Field';
 import { formatQuantity, formatTime, parseDecimal, spaceInsideNumber } from '../../format';
 import { href, navigate } from '../../router';
@@ -85,7 +86,7 @@ function ChooseSite() {
                     setHere({ lat: p.coords.latitude, lon: p.coords.longitude });
                     setLocating(undefined);
                   },
-                  (err) => setLocating(`No location (${err.message}); the sites stay in code order.`),
+                  (err) => setLocating(`${locationProblem(err)} The sites stay in code order.`),
                   { enableHighAccuracy: false, timeout: 20_000, maximumAge: 300_000 },
                 );
               }}
@@ -188,7 +189,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
     clearTimeout(pendingDraft.current);
     pendingDraft.current = setTimeout(() => {
       pendingDraft.current = undefined;
-      void writeDraft(formRef.current).catch((err: unknown) => setError({ text: `The draft could not be kept: ${String(err)}` }));
+      void writeDraft(formRef.current).catch((err: unknown) => setError({ text: `The draft could not be kept: ${plainError(err, { units: u, timeZone: site.timeZone })}` }));
     }, DRAFT_DELAY_MS);
   }, [form, ready]);
   useEffect(() => {
@@ -278,8 +279,9 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       if (form.readingId) navigate(href('sites', site.id), true);
       else dispatch({ type: 'saved' });
     } catch (err) {
-      if (err instanceof RecordValidationError) setError({ field: err.field.startsWith('stage') ? 'stage' : err.field.startsWith('time') ? 'time' : undefined, text: `Not saved: ${err.message}` });
-      else setError({ text: err instanceof StorageError ? err.message : `Not saved: ${String(err)}` });
+      const text = plainError(err, { doing: 'save', units: u, timeZone: site.timeZone });
+      if (err instanceof RecordValidationError) setError({ field: err.field.startsWith('stage') ? 'stage' : err.field.startsWith('time') ? 'time' : undefined, text: `Not saved: ${text}` });
+      else setError({ text: err instanceof StorageError ? text : `Not saved: ${text}` });
     } finally {
       setSaving(false);
     }
@@ -296,7 +298,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
         dispatch({ type: 'gps', value: { lat: p.coords.latitude, lon: p.coords.longitude, accuracy_m: p.coords.accuracy, time_ms: Math.round(p.timestamp) } });
         setGpsState(undefined);
       },
-      (err) => setGpsState(`No location: ${err.message}. The reading can be saved without it.`),
+      (err) => setGpsState(`${locationProblem(err)} The reading can be saved without it.`),
       { enableHighAccuracy: true, timeout: 30_000, maximumAge: 60_000 },
     );
   }

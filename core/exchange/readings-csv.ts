@@ -6,7 +6,7 @@ import { hasDischarge } from '../rating/index';
 import type { ReadingWithDischarge } from '../readings/index';
 import { csvNumber, csvTable, type CsvColumn } from './csv-write';
 
-/** One reading row to export: the stored reading and its discharge (m³/s; NaN, none, without a rating). */
+/** One reading row to export: the stored reading and its discharge (m³/s; NaN, none, without a rating), shift (m). */
 export type ReadingExportRow = Pick<ReadingWithDischarge, 'reading' | 'discharge_m3s' | 'shift_m' | 'extrapolated'>;
 
 /** What the CSV describes: site code, its time zone (for the offsets) and the units to write. */

@@ -1,7 +1,7 @@
 // A bundle's records gathered per site for the exports: the latest revision of each record (the higher
 // rev wins, as in the merge rule), tombstones dropped, and each reading's discharge through the rating
 // in force at its time with that rating's dated shifts.
-import { compareRev, dischargeAt, fromSyncRecord, isExtrapolated, shiftAt } from '../../core/index';
+import { compareRev, fromSyncRecord, withDischarge } from '../../core/index';
 import type { AnalysisRecord, GaugingRecord, RatingRecord, ReadingExportRow, ReadingRecord, SiteRecord, SyncRecord } from '../../core/index';
 
 /** One site's records from a bundle: readings with discharge (oldest first), gaugings, ratings (by start), analyses. */
@@ -22,23 +22,6 @@ function latest(records: readonly SyncRecord[]): SyncRecord[] {
     if (!old || compareRev(r.rev, old.rev) > 0) best.set(key, r);
   }
   return [...best.values()].filter((r) => r.deleted !== true);
-}
-
-/** The readings with their discharge (m³/s) through the rating in force at each time; null before any rating. */
-export function withDischarge(readings: readonly ReadingRecord[], ratings: readonly RatingRecord[]): ReadingExportRow[] {
-  const out: ReadingExportRow[] = [];
-  let k = -1;
-  for (const reading of readings) {
-    while (k + 1 < ratings.length && ratings[k + 1].validFrom_ms <= reading.time_ms) k++;
-    const rating = k >= 0 ? ratings[k] : undefined;
-    if (!rating) {
-      out.push({ reading, discharge_m3s: null, shift_m: 0, extrapolated: false });
-      continue;
-    }
-    const shift_m = rating.shifts.length > 0 ? shiftAt(rating.shifts, reading.time_ms, reading.stage_m) : 0;
-    out.push({ reading, discharge_m3s: dischargeAt(rating, reading.stage_m, shift_m), shift_m, extrapolated: isExtrapolated(rating, reading.stage_m) });
-  }
-  return out;
 }
 
 /** Every site in the bundle with its records, sites in code order; records of sites not in the bundle are left out. */
@@ -64,7 +47,7 @@ export function sitesOf(records: readonly SyncRecord[]): SiteData[] {
       s.gaugings.sort((a, b) => a.time_ms - b.time_ms);
       s.ratings.sort((a, b) => a.validFrom_ms - b.validFrom_ms);
       s.analyses.sort((a, b) => a.from_ms - b.from_ms);
-      return { ...s, readings: withDischarge(rawReadings, s.ratings) };
+      return { ...s, readings: withDischarge(s.ratings, rawReadings) };
     });
 }
 

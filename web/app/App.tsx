@@ -12,7 +12,7 @@ export function App() {
   const route = useRoute();
   const isOnline = useStore(online);
   const mainRef = useRef<HTMLElement>(null);
-  const { area, title, Screen } = screenFor(route);
+  const { area, title, Screen, params } = screenFor(route);
   useEffect(() => {
     // Move focus to the new screen's heading so screen readers announce where the user is.
     const heading = mainRef.current?.querySelector<HTMLElement>('#screen-title');
@@ -30,7 +30,7 @@ export function App() {
         </span>
       </header>
       <main id="main" ref={mainRef} tabIndex={-1}>
-        <Screen route={route} />
+        <Screen route={route} params={params} />
       </main>
       <UpdateNotice />
       <MainNav current={area} />

@@ -1,37 +1,56 @@
-// Which screen shows for which route. Screens with heavy code load on first use.
+// Which screen shows for which route: one table of path patterns. Screens with heavy code load on
+// first use; a path that matches no pattern (or a damaged link) shows the "no such page" screen.
 import type { ComponentType } from 'preact';
-import type { Route } from '../router';
+import { matchRoute, type Route, type ScreenProps } from '../router';
 import { lazyScreen } from '../components/LazyScreen';
 import About from '../screens/About';
+import NotFound from '../screens/NotFound';
+import { areaOf, type AreaId } from './areas';
 
-/** Props every screen receives. */
-export interface ScreenProps {
-  route: Route;
-}
-
-interface Entry {
-  area: string;
-  title: string;
+interface RouteEntry {
+  /** Path segments; ':name' matches any one segment and passes it as params.name. */
+  pattern: string;
+  area: AreaId;
   Screen: ComponentType<ScreenProps>;
 }
 
+/** What shows for a route: the screen, the area lit in the bottom bar (none for a missing page), the title, the params. */
+export interface RouteMatch {
+  Screen: ComponentType<ScreenProps>;
+  area: AreaId | undefined;
+  title: string;
+  params: Record<string, string>;
+}
+
 const Sites = lazyScreen<ScreenProps>(() => import('../screens/Sites'));
+const SiteForm = lazyScreen<ScreenProps>(() => import('../screens/SiteForm'));
+const SiteReadings = lazyScreen<ScreenProps>(() => import('../screens/SiteReadings'));
 const Record = lazyScreen<ScreenProps>(() => import('../screens/Record'));
 const Storm = lazyScreen<ScreenProps>(() => import('../screens/Storm'));
 const Data = lazyScreen<ScreenProps>(() => import('../screens/Data'));
 
-/** The screen, its area in the bottom bar and its title for a route. */
-export function screenFor(route: Route): Entry {
-  switch (route.segments[0]) {
-    case 'record':
-      return { area: 'record', title: 'Record a reading', Screen: Record };
-    case 'storm':
-      return { area: 'storm', title: 'Storm runoff', Screen: Storm };
-    case 'data':
-      return { area: 'data', title: 'Data and sync', Screen: Data };
-    case 'about':
-      return { area: 'about', title: 'About', Screen: About };
-    default:
-      return { area: 'sites', title: 'Sites', Screen: Sites };
+/** Every page, literal patterns before the ones with a parameter in the same place. */
+export const ROUTES: readonly RouteEntry[] = [
+  { pattern: 'sites', area: 'sites', Screen: Sites },
+  { pattern: 'sites/new', area: 'sites', Screen: SiteForm },
+  { pattern: 'sites/:siteId', area: 'sites', Screen: SiteReadings },
+  { pattern: 'sites/:siteId/edit', area: 'sites', Screen: SiteForm },
+  { pattern: 'record', area: 'record', Screen: Record },
+  { pattern: 'record/:siteId', area: 'record', Screen: Record },
+  { pattern: 'record/:siteId/:readingId', area: 'record', Screen: Record },
+  { pattern: 'storm', area: 'storm', Screen: Storm },
+  { pattern: 'storm/:siteId', area: 'storm', Screen: Storm },
+  { pattern: 'data', area: 'data', Screen: Data },
+  { pattern: 'about', area: 'about', Screen: About },
+];
+
+/** The screen, area, title and params for a route. */
+export function screenFor(route: Route): RouteMatch {
+  if (!route.malformed) {
+    for (const r of ROUTES) {
+      const params = matchRoute(r.pattern, route.segments);
+      if (params) return { Screen: r.Screen, area: r.area, title: areaOf(r.area).title, params };
+    }
   }
+  return { Screen: NotFound, area: undefined, title: 'No such page', params: {} };
 }

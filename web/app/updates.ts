@@ -3,6 +3,7 @@
 // user accepts do we save what is open, let the new worker take over and reload this page. A page that
 // did not ask is never reloaded: it is told that a newer version is running in another tab.
 import { createStore } from '../store';
+import { noteRequest, online } from './online';
 
 /** Where the update flow stands, for the notice at the bottom of the screen. */
 export type UpdateStatus =
@@ -68,9 +69,10 @@ export function startServiceWorker(): void {
 
 /** Asks the server for a newer version; resolves quietly when offline. */
 export async function checkForUpdate(): Promise<void> {
-  if (!registration || !navigator.onLine) return;
+  if (!registration || !online.get()) return;
   try {
     await registration.update();
+    noteRequest('answered');
   } catch {
     // Offline or the server is away: try again at the next chance.
   }

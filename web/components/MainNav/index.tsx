@@ -1,31 +1,25 @@
-// The bottom navigation bar: the five areas of the app, reachable with one thumb.
+// The bottom navigation bar: the areas of the app (web/app/areas.ts), reachable with one thumb.
 import type { ComponentChildren } from 'preact';
-
-/** One area of the app in the bottom bar. */
-export interface NavArea {
-  id: string;
-  label: string;
-  icon: ComponentChildren;
-}
+import { AREAS, type AreaId } from '../../app/areas';
 
 const stroke = { fill: 'none', stroke: 'currentColor', 'stroke-width': 2, 'stroke-linecap': 'round', 'stroke-linejoin': 'round' } as const;
 
-/** The areas in bar order. */
-export const AREAS: NavArea[] = [
-  { id: 'sites', label: 'Sites', icon: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><path d="M12 21s-7-6.2-7-11a7 7 0 0 1 14 0c0 4.8-7 11-7 11z" /><circle cx="12" cy="10" r="2.5" /></svg> },
-  { id: 'record', label: 'Record', icon: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><path d="M6 3v18M6 6h5M6 10h3M6 14h5M6 18h3" /><path d="M14 15c2-1.5 4-1.5 6 0" /><path d="M14 19c2-1.5 4-1.5 6 0" /></svg> },
-  { id: 'storm', label: 'Storm', icon: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><path d="M3 20h18" /><path d="M4 19c3 0 4-13 7-13s4 9 9 11" /></svg> },
-  { id: 'data', label: 'Data', icon: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><ellipse cx="12" cy="6" rx="7" ry="3" /><path d="M5 6v12c0 1.7 3.1 3 7 3s7-1.3 7-3V6" /><path d="M5 12c0 1.7 3.1 3 7 3s7-1.3 7-3" /></svg> },
-  { id: 'about', label: 'About', icon: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><circle cx="12" cy="12" r="9" /><path d="M12 11v6M12 7.5v.5" /></svg> },
-];
+/** The icon of each area. */
+const ICONS: Record<AreaId, ComponentChildren> = {
+  sites: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><path d="M12 21s-7-6.2-7-11a7 7 0 0 1 14 0c0 4.8-7 11-7 11z" /><circle cx="12" cy="10" r="2.5" /></svg>,
+  record: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><path d="M6 3v18M6 6h5M6 10h3M6 14h5M6 18h3" /><path d="M14 15c2-1.5 4-1.5 6 0" /><path d="M14 19c2-1.5 4-1.5 6 0" /></svg>,
+  storm: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><path d="M3 20h18" /><path d="M4 19c3 0 4-13 7-13s4 9 9 11" /></svg>,
+  data: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><ellipse cx="12" cy="6" rx="7" ry="3" /><path d="M5 6v12c0 1.7 3.1 3 7 3s7-1.3 7-3V6" /><path d="M5 12c0 1.7 3.1 3 7 3s7-1.3 7-3" /></svg>,
+  about: <svg viewBox="0 0 24 24" aria-hidden="true" {...stroke}><circle cx="12" cy="12" r="9" /><path d="M12 11v6M12 7.5v.5" /></svg>,
+};
 
-/** Bottom bar; `current` is the id of the area on screen. */
-export function MainNav({ current }: { current: string }) {
+/** Bottom bar; `current` is the id of the area on screen (none on a missing page). */
+export function MainNav({ current }: { current: AreaId | undefined }) {
   return (
     <nav class="mainnav" aria-label="Main">
       {AREAS.map((a) => (
         <a key={a.id} href={`#/${a.id}`} aria-current={a.id === current ? 'page' : undefined}>
-          {a.icon}
+          {ICONS[a.id]}
           <span>{a.label}</span>
         </a>
       ))}

@@ -3,8 +3,8 @@
 import { useEffect, useState } from 'preact/hooks';
 import { fromLocalInput, MS_PER_DAY, readingsToCsv, toLocalInput, type SiteRecord } from '../../../core';
 import { latestReadings, listConflicts, listDrafts, listSites, readingsWithDischarge, storageState, type StorageState } from '../../db';
-import type { ScreenProps } from '../../app/routes';
-import { useRecords } from '../../app/use-records';
+import type { ScreenProps } from '../../router';
+import { useRecords } from '../../db/use-records';
 import { describedBy, Field } from '../../components/Field';
 import { formatTime } from '../../format';
 import { href } from '../../router';

@@ -8,9 +8,9 @@ import {
   toDisplay, toLocalInput, type ReadingQuality, type ReadingSource, type SiteRecord,
 } from '../../../core';
 import { discardDraft, getReading, getSite, listDrafts, listRatings, listSites, readingBefore, saveDraft, saveReading, StorageError } from '../../db';
-import type { ScreenProps } from '../../app/routes';
+import type { ScreenProps } from '../../router';
 import { onBeforeUpdate } from '../../app/updates';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../db/use-records';
 import { Cautions } from '../../components/Cautions';
 import { TimeChoice } from '../../components/TimeChoice';
 import { locationProblem, plainError } from '../../plain-words';
@@ -414,8 +414,8 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
 }
 
 /** The Record area: choose a site, then the reading form. */
-export default function Record({ route }: ScreenProps) {
-  const [, siteId, readingId] = route.segments;
+export default function Record({ params }: ScreenProps) {
+  const { siteId, readingId } = params;
   const site = useRecords(async () => (siteId ? getSite(siteId) : undefined), ['site'], [siteId]);
   if (!siteId) return <ChooseSite />;
   if (site.state === 'loading') return <p aria-busy="true">Opening the site…</p>;

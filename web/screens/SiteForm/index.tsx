@@ -8,7 +8,7 @@ import { deleteSite, getSite, saveSite, StorageError } from '../../db';
 import { describedBy, Field } from '../../components/Field';
 import { decimalProblem, parseDecimal } from '../../format';
 import { locationProblem, plainError } from '../../plain-words';
-import { href, navigate } from '../../router';
+import { href, navigate, type ScreenProps } from '../../router';
 
 interface Form {
   code: string;
@@ -114,8 +114,9 @@ function fieldOf(err: RecordValidationError): keyof Form {
   return 'code';
 }
 
-/** The site form; with siteId it edits that site, without it creates one. */
-export default function SiteForm({ siteId }: { siteId?: string }) {
+/** The site form ('#/sites/new', '#/sites/<siteId>/edit'): with siteId it edits that site, without it creates one. */
+export default function SiteForm({ params }: ScreenProps) {
+  const siteId = params.siteId;
   const [form, setForm] = useState<Form>(emptyForm);
   const [loaded, setLoaded] = useState(!siteId);
   const [errors, setErrors] = useState<Errors>({});

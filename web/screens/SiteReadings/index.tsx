@@ -5,10 +5,10 @@ import type { SiteRecord } from '../../../core';
 import {
   deleteReading, getSite, listGaugings, ratingInForceAt, readingsWithDischarge, restoreReading, seriesWithDischarge, type ReadingWithDischarge,
 } from '../../db';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../db/use-records';
 import { Hydrograph } from '../../components/Hydrograph';
 import { formatAgo, formatQuantity, formatTime } from '../../format';
-import { href } from '../../router';
+import { href, type ScreenProps } from '../../router';
 import { displayUnit, hasDischarge, MS_PER_DAY, toDisplay } from '../../../core';
 import './style.css';
 
@@ -75,7 +75,8 @@ function SmallPlot({ site, last_ms }: { site: SiteRecord; last_ms: number | unde
 }
 
 /** The readings screen of one site. */
-export default function SiteReadings({ siteId }: { siteId: string }) {
+export default function SiteReadings({ params }: ScreenProps) {
+  const siteId = params.siteId;
   const [days, setDays] = useState(30);
   const [shown, setShown] = useState(PAGE);
   const [undo, setUndo] = useState<{ id: string; text: string }>();

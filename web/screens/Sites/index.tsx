@@ -1,17 +1,13 @@
 // Sites: every site with its latest reading, that reading's discharge and how long ago; the way in to
 // a site's readings, to a new site, and (from the empty state) to the demo site.
 import { useState } from 'preact/hooks';
-import type { ScreenProps } from '../../app/routes';
-import { useRecords } from '../../app/use-records';
+import type { ScreenProps } from '../../router';
+import { useRecords } from '../../db/use-records';
 import { loadDemoSite } from '../../app/demo';
 import { listSites, readingsWithDischarge, latestReadings, type ReadingWithDischarge } from '../../db';
 import { formatAgo, formatQuantity } from '../../format';
 import { href, navigate } from '../../router';
-import { lazyScreen } from '../../components/LazyScreen';
 import { hasDischarge, type SiteRecord } from '../../../core';
-import SiteForm from '../SiteForm';
-
-const SiteReadings = lazyScreen<{ siteId: string }>(() => import('../SiteReadings'));
 
 interface SiteRow {
   site: SiteRecord;
@@ -113,11 +109,7 @@ function SitesList() {
   );
 }
 
-/** The Sites area: the list, one site's readings, or the site form, by route. */
-export default function Sites({ route }: ScreenProps) {
-  const [, id, action] = route.segments;
-  if (id === 'new') return <SiteForm />;
-  if (id && action === 'edit') return <SiteForm siteId={id} />;
-  if (id) return <SiteReadings siteId={id} />;
+/** The Sites area's home: every site with its latest reading. */
+export default function Sites(_props: ScreenProps) {
   return <SitesList />;
 }

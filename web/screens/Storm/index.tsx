@@ -1,17 +1,17 @@
 // Storm runoff: pick a site, let the core find last storm's key points, separate baseflow and read the
 // direct runoff volume and depth; save the analysis on the phone.
 import { useEffect } from 'preact/hooks';
-import type { ScreenProps } from '../../app/routes';
+import type { ScreenProps } from '../../router';
 import { Cautions } from '../../components/Cautions';
 import { listSites } from '../../db';
 import { href, navigate } from '../../router';
 import { SiteStorm } from './site-storm';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../db/use-records';
 import './style.css';
 
 /** The Storm runoff screen; '#/storm/<siteId>' opens it on that site. */
-export default function Storm({ route }: ScreenProps) {
-  const siteId = route.segments[1];
+export default function Storm({ params }: ScreenProps) {
+  const siteId = params.siteId;
   const sites = useRecords(() => listSites(), ['site'], []);
   const list = sites.state === 'ready' ? sites.value : [];
   const site = siteId === undefined ? undefined : list.find((s) => s.id === siteId);

@@ -4,7 +4,7 @@ import type { AnalysisRecord, UnitSystem } from '../../../core';
 import { METHOD_LABELS, METHOD_KINDS, type MethodKind } from '../../components/SeparationPicker';
 import { deleteAnalysis, listAnalyses } from '../../db';
 import { formatQuantity, formatTime } from '../../format';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../db/use-records';
 
 function methodName(kind: string): string {
   return (METHOD_KINDS as readonly string[]).includes(kind) ? METHOD_LABELS[kind as MethodKind] : kind;

@@ -20,7 +20,7 @@ import { formatQuantity, formatTime, parseDecimal } from '../../format';
 import { analyse, findPoints, polynomialInflection, seriesFromReadings, usesKeyPoints, type StormSeries } from './analysis';
 import { initialDraft, stormReducer, type TimeWindow } from './draft';
 import { SavedAnalyses } from './saved-analyses';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../db/use-records';
 
 const DAY_MS = 86_400_000;
 /** The default readings window: this many days up to the latest reading. */

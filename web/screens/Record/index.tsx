@@ -4,8 +4,8 @@
 // is kept as a draft on every change and restored when the app reopens.
 import { useEffect, useMemo, useReducer, useRef, useState } from 'preact/hooks';
 import {
-  checkReading, fromDisplay, hasDischarge, STAGE_DECIMALS, readLocalInput, displayUnit, READING_QUALITIES, READING_SOURCES, RecordValidationError,
-  toDisplay, toLocalInput, type ReadingQuality, type ReadingSource, type SiteRecord,
+  checkReading, fromDisplay, hasDischarge, MAX_ABS_STAGE_M, STAGE_DECIMALS, readLocalInput, displayUnit, READING_QUALITIES, READING_SOURCES, RecordValidationError,
+  toDisplay, toLocalInput, type ReadingQuality, type ReadingSource, type SiteRecord, type UnitSystem,
 } from '../../../core';
 import { discardDraft, getReading, getSite, listDrafts, listRatings, listSites, readingBefore, saveDraft, saveReading, StorageError } from '../../db';
 import type { ScreenProps } from '../../router';
@@ -32,6 +32,12 @@ function rememberedObserver(): string {
   } catch {
     return '';
   }
+}
+
+/** "−1,000 to 1,000 m" (or ft): the stage a reading may hold, in the site's units. */
+function stageLimitText(u: UnitSystem): string {
+  const v = Number(toDisplay('stage', MAX_ABS_STAGE_M, u).toPrecision(6)).toLocaleString('en');
+  return `−${v} to ${v} ${displayUnit('stage', u)}`;
 }
 
 /** Ticks every 30 s so a time that follows the clock stays current. */
@@ -207,7 +213,11 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   const stage = useMemo(() => {
     if (!form.stageText.trim()) return { empty: true as const };
     const v = parseDecimal(form.stageText);
-    return v === undefined ? { error: spaceInsideNumber(form.stageText) ?? `Type the stage as a number, like ${u === 'us' ? '2.41' : '0.734'}.` } : { stage_m: fromDisplay('stage', v, u) };
+    if (v === undefined) return { error: spaceInsideNumber(form.stageText) ?? `Type the stage as a number, like ${u === 'us' ? '2.41' : '0.734'}.` };
+    const stage_m = fromDisplay('stage', v, u);
+    // No gauge reads beyond the stored limit: refuse here, before an absurd discharge or jump is shown.
+    if (Math.abs(stage_m) > MAX_ABS_STAGE_M) return { error: `The stage must be a number from ${stageLimitText(u)}; check the number.` };
+    return { stage_m };
   }, [form.stageText, u]);
   const time = useMemo(() => {
     if (!form.timeText) return { time_ms: Math.floor(now / 1000) * 1000, followsClock: true };

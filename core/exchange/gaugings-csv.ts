@@ -1,7 +1,7 @@
 // Gaugings (discharge measurements) as a CSV table for office systems: RFC 4180, UTF-8 with a
 // byte-order mark, units in the header, ISO 8601 times with the site's offset, free text neutralised.
 import { displayUnit, toDisplay, type UnitSystem } from '../units';
-import { toIsoWithOffset } from '../time/index';
+import { isoWithOffsetFormatter } from './iso-times';
 import type { GaugingRecord } from '../records/index';
 import { csvNumber, csvTable, type CsvColumn } from './csv-write';
 
@@ -15,6 +15,7 @@ export interface SiteCsvOptions {
 /** The gaugings as a CSV document in the order given; mean stage and discharge in `units`. */
 export function gaugingsToCsv(gaugings: readonly GaugingRecord[], options: SiteCsvOptions): string {
   const { units, timeZone, siteCode } = options;
+  const iso = isoWithOffsetFormatter(timeZone);
   const h = displayUnit('stage', units);
   const q = displayUnit('discharge', units);
   const columns: CsvColumn[] = [
@@ -25,7 +26,7 @@ export function gaugingsToCsv(gaugings: readonly GaugingRecord[], options: SiteC
   ];
   const rows = gaugings.map((g) => [
     siteCode,
-    toIsoWithOffset(g.time_ms, timeZone),
+    iso(g.time_ms),
     toDisplay('stage', g.meanStage_m, units).toFixed(units === 'us' ? 3 : 4),
     csvNumber(toDisplay('discharge', g.discharge_m3s, units), 6),
     g.method,

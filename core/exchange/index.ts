@@ -6,3 +6,27 @@ export { ratingSegmentsToCsv, ratingTablesToCsv, RATING_TABLE_HEADROOM_M } from 
 export { stormToCsv, type SeparatedStorm } from './storm-csv';
 export { BUNDLE_FORMAT, BUNDLE_VERSION, BundleError, bundleChecksum, makeBundle, parseBundle, type Bundle, type BundleErrorReason, type BundleInput } from './bundle';
 export { sha256Hex, utf8Bytes } from './sha256';
+export { escapeXml, gmlId } from './xml-write';
+export { watermlTimeseries, WATERML_QUALITY, type TimeseriesDocumentInput } from './waterml-timeseries';
+export { watermlRatings, segmentEquation, type RatingsDocumentInput } from './waterml-ratings';
+export { ratingConversionPoints, chordGap, DEFAULT_CONVERSION_TOLERANCE, type ConversionPoint, type ConversionTolerance } from './rating-points';
+export { readCsvRecords, CsvSyntaxError, type CsvRecord } from './csv-read';
+export {
+  parseReadingsCsv, parseIsoWithOffset, CsvImportError, MAX_CSV_PROBLEMS, type ReadingCsvMapping, type CsvProblem, type CsvStageUnit,
+} from './readings-csv-import';
+export { guessReadingsMapping, type MappingGuess } from './readings-csv-mapping';
+export { isoWithOffsetFormatter } from './iso-times';
+export {
+  LOGGER_TIME_FORMATS, LOGGER_LEVEL_UNITS, STANDARD_GRAVITY_MPS2, FRESH_WATER_DENSITY_KGM3, metresPerLevelUnit, checkLoggerMapping,
+  type LoggerMapping, type LoggerClock, type LoggerTimeFormat, type LoggerLevelUnit,
+} from './logger-mapping';
+export { parseStamp, stampParser, zoneResolver, type ParsedStamp } from './logger-stamps';
+export {
+  loggerReader, type LoggerReader, type LoggerRows, type LoggerProblem, type LoggerDuplicate, type RepeatedHourLines, type BackwardStep,
+} from './logger-reader';
+export { tidyLoggerRows, type LoggerSeries } from './logger-tidy';
+export { driftTable, driftCorrections, loggerValueAt, type DriftCheck, type DriftTableRow } from './logger-drift';
+export {
+  LOGGER_DAY_MS, loggerDayId, splitLoggerDays, mergeLoggerDay, loggerDayStages, type CorrectedLogger, type LoggerDayContext, type LoggerDayMerge,
+} from './logger-days';
+export { loggerGaps, usualStep_ms, type LoggerGap } from './logger-gaps';

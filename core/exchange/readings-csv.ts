@@ -1,9 +1,9 @@
 // Stage readings with their discharge as a CSV table for office systems: RFC 4180, UTF-8 with a
 // byte-order mark, units in the header, ISO 8601 times with the site's offset, free text neutralised.
 import { displayUnit, toDisplay, type UnitSystem } from '../units';
-import { toIsoWithOffset } from '../time/index';
 import { hasDischarge } from '../rating/index';
 import type { ReadingWithDischarge } from '../readings/index';
+import { isoWithOffsetFormatter } from './iso-times';
 import { csvNumber, csvTable, type CsvColumn } from './csv-write';
 
 /** One reading row to export: the stored reading and its discharge (m³/s; NaN, none, without a rating), shift (m). */
@@ -19,6 +19,7 @@ export interface ReadingCsvOptions {
 /** The readings as a CSV document, oldest first as given; stage and discharge in `units`. */
 export function readingsToCsv(rows: readonly ReadingExportRow[], options: ReadingCsvOptions): string {
   const { units, timeZone, siteCode } = options;
+  const iso = isoWithOffsetFormatter(timeZone);
   const h = displayUnit('stage', units);
   const q = displayUnit('discharge', units);
   const columns: CsvColumn[] = [
@@ -34,7 +35,7 @@ export function readingsToCsv(rows: readonly ReadingExportRow[], options: Readin
     const x = r.reading;
     return [
       siteCode,
-      toIsoWithOffset(x.time_ms, timeZone),
+      iso(x.time_ms),
       toDisplay('stage', x.stage_m, units).toFixed(stageDecimals),
       toDisplay('stage', r.shift_m, units).toFixed(stageDecimals),
       !hasDischarge(r.discharge_m3s) ? '' : csvNumber(toDisplay('discharge', r.discharge_m3s, units), 6),

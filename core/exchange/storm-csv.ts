@@ -1,7 +1,7 @@
 // A storm's separated series as a CSV table: per time, the discharge, the baseflow under it and the
 // direct runoff (their difference), with the separation method named in a column.
 import { displayUnit, toDisplay } from '../units';
-import { toIsoWithOffset } from '../time/index';
+import { isoWithOffsetFormatter } from './iso-times';
 import type { Series } from '../hydrograph/index';
 import { csvNumber, csvTable, type CsvColumn } from './csv-write';
 import type { SiteCsvOptions } from './gaugings-csv';
@@ -16,6 +16,7 @@ export interface SeparatedStorm {
 /** The storm's series as a CSV document, one row per time: discharge, baseflow and direct runoff in `units`. */
 export function stormToCsv(storm: SeparatedStorm, options: SiteCsvOptions): string {
   const { units, timeZone, siteCode } = options;
+  const iso = isoWithOffsetFormatter(timeZone);
   const { series, baseflow_m3s, method } = storm;
   const n = series.time_ms.length;
   if (series.discharge_m3s.length !== n || baseflow_m3s.length !== n) {
@@ -30,7 +31,7 @@ export function stormToCsv(storm: SeparatedStorm, options: SiteCsvOptions): stri
   for (let i = 0; i < n; i++) {
     const total = toDisplay('discharge', series.discharge_m3s[i], units);
     const base = toDisplay('discharge', baseflow_m3s[i], units);
-    rows.push([siteCode, toIsoWithOffset(series.time_ms[i], timeZone), csvNumber(total, 6), csvNumber(base, 6), csvNumber(Math.max(0, total - base), 6), method]);
+    rows.push([siteCode, iso(series.time_ms[i]), csvNumber(total, 6), csvNumber(base, 6), csvNumber(Math.max(0, total - base), 6), method]);
   }
   return csvTable(columns, rows);
 }

@@ -20,6 +20,8 @@ export { constantShift, shiftFromCurve, type ShiftCurve } from './shift-curve';
 export { shiftAt, type DatedShift } from './shift-schedule';
 export { checksRating, gradeOf, GRADE_LIMITS_PCT, type MeasurementGrade } from './grade';
 export { validateRating } from './validate';
+export { fitSegments, type FitSegmentsOptions, type SegmentsFit } from './fit-segments';
+export { ratingFromTable, type TableRow } from './from-table';
 export {
   dischargeAtTime, dischargeThrough, hasDischarge, NO_DISCHARGE, ratingInForce, type DatedRating, type DischargeSeries, type StageDischarge,
 } from './in-force';

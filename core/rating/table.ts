@@ -37,8 +37,10 @@ export function ratingTable(rating: Rating, from_m: number, to_m: number, step_m
   }
   const table: RatingTableRow[] = [];
   for (let k = 0; k < rows; k++) {
-    // Multiplying (not accumulating) keeps each stage within one rounding of from + k·step.
-    const stage = k === rows - 1 ? to_m : from_m + k * step_m;
+    // Multiplying (not accumulating) keeps each stage within one rounding of from + k·step; rounding to
+    // a nanometre then removes that last bit (0.1 + 2·0.1 is 0.30000000000000004), so a row on the edge
+    // of the gauged range is not marked extrapolated by a rounding error.
+    const stage = k === rows - 1 ? to_m : Math.round((from_m + k * step_m) * 1e9) / 1e9;
     table.push({
       stage_m: stage,
       discharge_m3s: dischargeAt(rating, stage, shift_m),

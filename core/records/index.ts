@@ -9,6 +9,7 @@ export { validateReadingBody, MAX_ABS_STAGE_M } from './validate-reading';
 export { validateGaugingBody } from './validate-gauging';
 export { validateRatingBody } from './validate-rating';
 export { validateAnalysisBody } from './validate-analysis';
+export { validateLoggerDayBody, MAX_LOGGER_DAY_VALUES, MAX_ABS_CORRECTION_M } from './validate-logger-day';
 export { validateDraftBody } from './validate-draft';
 export { validateBody, validateRecord, validateSyncRecord, validateConflictBody, isSyncKind } from './validate-record';
 export { toSyncRecord, fromSyncRecord } from './sync-record';

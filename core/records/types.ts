@@ -80,6 +80,42 @@ export interface ReadingBody {
   /** Plausibility warnings shown when the reading was saved, one sentence each. */
   warnings: string[];
   gps?: GpsFix;
+  /**
+   * Present when this reading is a check beside the logger: the value the logger showed at the same
+   * time, m above gauge datum. The reading itself stays the gauge's value; logger − staff is the drift.
+   */
+  loggerCheck?: { logger_m: number };
+}
+
+/** A check used to correct a logger record: the gauge (staff) value and the logger's, m, at time_ms (UTC). */
+export interface LoggerDayCheck {
+  time_ms: number;
+  staff_m: number;
+  logger_m: number;
+  /** The stored check reading it came from, when there is one. */
+  readingId?: string;
+}
+
+/**
+ * One site and UTC day of a logger record, kept as one record of compact arrays (a logger's values are
+ * machine records nobody edits one at a time). The raw values and the corrections are both kept, with
+ * the checks the corrections came from, so a correction can be redone; stage = raw + correction.
+ */
+export interface LoggerDayBody {
+  siteId: string;
+  /** UTC day index: floor(time_ms / 86 400 000). */
+  day: number;
+  /** Times as whole ms after the start of the UTC day (0 ≤ t < 86 400 000), strictly ascending. */
+  offset_ms: number[];
+  /** Logger values as read from the file, converted to m above gauge datum. */
+  raw_m: number[];
+  /** Drift correction at each time, m (0 where none was applied). */
+  correction_m: number[];
+  /** The checks the corrections came from, oldest first (empty when none). */
+  checks: LoggerDayCheck[];
+  /** Name of the file the values came from. */
+  fileName: string;
+  note: string;
 }
 
 /** How a discharge measurement was made. */
@@ -176,12 +212,13 @@ export interface SyncBodies {
   gauging: GaugingBody;
   rating: RatingBody;
   analysis: AnalysisBody;
+  'logger-day': LoggerDayBody;
 }
 
 /** Kinds of records that sync with the office. */
 export type SyncKind = keyof SyncBodies;
 /** All kinds that sync, in a fixed order. */
-export const SYNC_KINDS: readonly SyncKind[] = ['site', 'reading', 'gauging', 'rating', 'analysis'];
+export const SYNC_KINDS: readonly SyncKind[] = ['site', 'reading', 'gauging', 'rating', 'analysis', 'logger-day'];
 
 /** The unit of exchange: one record as it travels in a bundle; body holds the fields plus updated_ms. */
 export type SyncRecord<K extends SyncKind = SyncKind> = {
@@ -207,6 +244,8 @@ export type GaugingRecord = RecordEnvelope & GaugingBody;
 export type RatingRecord = RecordEnvelope & RatingBody;
 /** A stored storm analysis. */
 export type AnalysisRecord = RecordEnvelope & AnalysisBody;
+/** A stored day of a logger record. */
+export type LoggerDayRecord = RecordEnvelope & LoggerDayBody;
 /** A stored draft (local only, never synced). */
 export type DraftRecord = RecordEnvelope & DraftBody;
 /** A stored conflict (local only, never synced). */
@@ -219,6 +258,7 @@ export interface StoredRecords {
   gauging: GaugingRecord;
   rating: RatingRecord;
   analysis: AnalysisRecord;
+  'logger-day': LoggerDayRecord;
   draft: DraftRecord;
   conflict: ConflictRecord;
 }

@@ -7,6 +7,7 @@ import { isRev } from './hlc';
 import { RecordValidationError } from './validation-error';
 import { validateAnalysisBody } from './validate-analysis';
 import { validateDraftBody } from './validate-draft';
+import { validateLoggerDayBody } from './validate-logger-day';
 import { validateGaugingBody } from './validate-gauging';
 import { validateRatingBody } from './validate-rating';
 import { validateReadingBody } from './validate-reading';
@@ -52,6 +53,8 @@ export function validateBody(kind: RecordKind, x: unknown): void {
       return validateRatingBody(x);
     case 'analysis':
       return validateAnalysisBody(x);
+    case 'logger-day':
+      return validateLoggerDayBody(x);
     case 'draft':
       return validateDraftBody(x);
     case 'conflict':

@@ -3,10 +3,12 @@
 import { checkCommand } from './commands/check';
 import { csvCommand } from './commands/csv';
 import { demoCommand } from './commands/demo';
+import { watermlCommand } from './commands/waterml';
 import { CliError, processIo, type CliIo, type Command } from './io';
+import { officeCommand } from '../receiver/command';
 
 /** Every subcommand, in the order `freshet --help` lists them. */
-export const COMMANDS: readonly Command[] = [demoCommand, checkCommand, csvCommand];
+export const COMMANDS: readonly Command[] = [demoCommand, checkCommand, watermlCommand, csvCommand, officeCommand];
 
 /** The top-level help: what the command is and its subcommands. */
 export function topHelp(): string {

@@ -1,6 +1,6 @@
 // A bundle's records gathered per site for the exports: the latest revision of each record (the higher
 // rev wins, as in the merge rule), tombstones dropped, and each reading's discharge through the rating
-// in force at its time with that rating's dated shifts.
+// in force at its time with that rating's dated shifts (core's withDischarge).
 import { compareRev, fromSyncRecord, withDischarge } from '../../core/index';
 import type { AnalysisRecord, GaugingRecord, RatingRecord, ReadingExportRow, ReadingRecord, SiteRecord, SyncRecord } from '../../core/index';
 

@@ -28,6 +28,9 @@ const SiteReadings = lazyScreen<ScreenProps>(() => import('../screens/SiteReadin
 const Record = lazyScreen<ScreenProps>(() => import('../screens/Record'));
 const Storm = lazyScreen<ScreenProps>(() => import('../screens/Storm'));
 const Data = lazyScreen<ScreenProps>(() => import('../screens/Data'));
+const Ratings = lazyScreen<ScreenProps>(() => import('../screens/Ratings'));
+const Gaugings = lazyScreen<ScreenProps>(() => import('../screens/Gaugings'));
+const LoggerImport = lazyScreen<ScreenProps>(() => import('../screens/LoggerImport'));
 
 /** Every page, literal patterns before the ones with a parameter in the same place. */
 export const ROUTES: readonly RouteEntry[] = [
@@ -35,12 +38,21 @@ export const ROUTES: readonly RouteEntry[] = [
   { pattern: 'sites/new', area: 'sites', Screen: SiteForm },
   { pattern: 'sites/:siteId', area: 'sites', Screen: SiteReadings },
   { pattern: 'sites/:siteId/edit', area: 'sites', Screen: SiteForm },
+  { pattern: 'sites/:siteId/ratings', area: 'sites', Screen: Ratings },
+  { pattern: 'sites/:siteId/ratings/new', area: 'sites', Screen: Ratings },
+  { pattern: 'sites/:siteId/ratings/fit', area: 'sites', Screen: Ratings },
+  { pattern: 'sites/:siteId/ratings/import', area: 'sites', Screen: Ratings },
+  { pattern: 'sites/:siteId/ratings/:ratingId', area: 'sites', Screen: Ratings },
+  { pattern: 'sites/:siteId/gaugings', area: 'sites', Screen: Gaugings },
+  { pattern: 'sites/:siteId/gaugings/new', area: 'sites', Screen: Gaugings },
   { pattern: 'record', area: 'record', Screen: Record },
   { pattern: 'record/:siteId', area: 'record', Screen: Record },
   { pattern: 'record/:siteId/:readingId', area: 'record', Screen: Record },
   { pattern: 'storm', area: 'storm', Screen: Storm },
   { pattern: 'storm/:siteId', area: 'storm', Screen: Storm },
   { pattern: 'data', area: 'data', Screen: Data },
+  { pattern: 'data/logger', area: 'data', Screen: LoggerImport },
+  { pattern: 'data/logger/:siteId', area: 'data', Screen: LoggerImport },
   { pattern: 'about', area: 'about', Screen: About },
 ];
 

@@ -4,7 +4,7 @@
 // hydrometry to core (withDischarge, dischargeThrough), so they agree row for row.
 import { dischargeThrough, withDischarge, type DischargeSeries, type ReadingWithDischarge } from '../../core/index';
 import { withDb } from './connection';
-import { checkWindow, chunkRange, joinChunks, type ReadingSeries } from './series-read';
+import { checkWindow, joinChunks, seriesChunksIn, type ReadingSeries } from './series-read';
 
 /** A reading series with, per reading, its discharge (m³/s; NaN with no rating in force), shift (m), extrapolation flag and rating. */
 export interface SeriesWithDischarge extends ReadingSeries, DischargeSeries {}
@@ -37,9 +37,9 @@ export async function readingsWithDischarge(siteId: string, from_ms: number, to_
 export async function seriesWithDischarge(siteId: string, from_ms: number, to_ms: number): Promise<SeriesWithDischarge> {
   checkWindow('seriesWithDischarge', from_ms, to_ms);
   const [chunks, ratings] = await withDb(async (db) => {
-    const tx = db.transaction(['series', 'ratings']);
+    const tx = db.transaction(['series', 'loggerDays', 'ratings']);
     return Promise.all([
-      tx.objectStore('series').getAll(chunkRange(siteId, from_ms, to_ms)),
+      seriesChunksIn(tx, siteId, from_ms, to_ms),
       tx.objectStore('ratings').index('by-site-from').getAll(ratingsUpTo(siteId, to_ms)),
     ]);
   });

@@ -18,8 +18,12 @@ export { readingsWithDischarge, seriesWithDischarge, type SeriesWithDischarge } 
 export { readingSeries, type ReadingSeries } from './series-read';
 export type { ReadingWithDischarge } from '../../core/readings/index';
 export { READING_SOURCE_CODES, readingSourceOfCode, type ReadingSourceCode } from '../../core/records/index';
+export {
+  importLoggerRecord, listLoggerDays, type LoggerImportInput, type LoggerImportResult, type LoggerImportDuplicate,
+  type LoggerImportProgress, type LoggerImportOptions,
+} from './logger-days';
 export { saveGauging, getGauging, deleteGauging, restoreGauging, listGaugings } from './gaugings';
-export { saveRating, getRating, deleteRating, restoreRating, listRatings, ratingInForceAt } from './ratings';
+export { saveRating, getRating, deleteRating, restoreRating, listRatings, ratingInForceAt, ratingsAndGaugings } from './ratings';
 export { saveAnalysis, getAnalysis, deleteAnalysis, restoreAnalysis, listAnalyses } from './analyses';
 export { saveDraft, getDraft, discardDraft, listDrafts } from './drafts';
 export { saveConflict, dismissConflict, listConflicts } from './conflicts';

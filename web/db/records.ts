@@ -20,6 +20,7 @@ export const KIND_OF_STORE = {
   gaugings: 'gauging',
   ratings: 'rating',
   analyses: 'analysis',
+  loggerDays: 'logger-day',
   drafts: 'draft',
   conflicts: 'conflict',
 } as const satisfies Record<RecordStore, RecordKind>;
@@ -164,7 +165,7 @@ export async function listAll<S extends RecordStore>(store: S, options: ReadOpti
 }
 
 /** Records of store S (tombstones included) whose rev sorts after `afterRev`, oldest first: what sync sends. */
-export async function changedSince<S extends 'sites' | 'readings' | 'gaugings' | 'ratings' | 'analyses'>(
+export async function changedSince<S extends 'sites' | 'readings' | 'gaugings' | 'ratings' | 'analyses' | 'loggerDays'>(
   store: S,
   afterRev: string | undefined,
 ): Promise<RecordOf<S>[]> {

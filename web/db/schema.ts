@@ -1,13 +1,13 @@
 // The whole IndexedDB schema as one type: a wrong store, index or value fails to compile.
 import type { DBSchema, IDBPTransaction, StoreNames } from 'idb';
 import type {
-  AnalysisRecord, ConflictRecord, DraftRecord, GaugingRecord, RatingRecord, ReadingRecord, SiteRecord,
+  AnalysisRecord, ConflictRecord, DraftRecord, GaugingRecord, LoggerDayRecord, RatingRecord, ReadingRecord, SiteRecord,
 } from '../../core/records/index';
 
 /** Name of the app's database. */
 export const DB_NAME = 'freshet';
 /** Current schema version: the highest step of the upgrade ladder in upgrade.ts. */
-export const DB_VERSION = 1;
+export const DB_VERSION = 3;
 
 /** Values kept in the meta store, by key: device id, last revision issued, sync cursors. */
 export interface MetaValues {
@@ -41,7 +41,7 @@ export interface SeriesChunk {
 /** Keys of the meta store. */
 export type MetaKey = keyof MetaValues & string;
 
-/** The Freshet database, version 1. */
+/** The Freshet database, version 3. */
 export interface FreshetDB extends DBSchema {
   sites: { key: string; value: SiteRecord; indexes: { 'by-code': string; 'by-rev': string } };
   readings: {
@@ -62,10 +62,12 @@ export interface FreshetDB extends DBSchema {
   meta: { key: string; value: MetaValues[MetaKey] };
   /** Derived from readings, local only, never synced (see SeriesChunk); key [siteId, day]. */
   series: { key: [string, number]; value: SeriesChunk };
+  /** Logger records, one record per site and UTC day (since version 3); they sync as kind 'logger-day'. */
+  loggerDays: { key: string; value: LoggerDayRecord; indexes: { 'by-site-day': [string, number]; 'by-rev': string } };
 }
 
 /** Stores that hold records with an envelope (all but meta). */
-export type RecordStore = 'sites' | 'readings' | 'gaugings' | 'ratings' | 'analyses' | 'drafts' | 'conflicts';
+export type RecordStore = 'sites' | 'readings' | 'gaugings' | 'ratings' | 'analyses' | 'loggerDays' | 'drafts' | 'conflicts';
 
 /** Stores every readings write holds: the readings, their series, and meta for the revision clock. */
 export type ReadingsStores = 'readings' | 'series' | 'meta';

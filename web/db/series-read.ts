@@ -3,6 +3,8 @@
 import type { SeriesChunk } from './schema';
 import { withDb } from './connection';
 import { dayOf } from './series-edit';
+import { withLoggerDays } from './logger-series';
+import type { LoggerDayRecord } from '../../core/records/index';
 
 /** Non-deleted readings of a window as parallel arrays: times (UTC ms, ascending), stages (m), sources (READING_SOURCE_CODES). */
 export interface ReadingSeries {
@@ -60,6 +62,28 @@ export function joinChunks(chunks: readonly SeriesChunk[], from_ms: number, to_m
  */
 export async function readingSeries(siteId: string, from_ms: number, to_ms: number): Promise<ReadingSeries> {
   checkWindow('readingSeries', from_ms, to_ms);
-  const chunks = await withDb((db) => db.getAll('series', chunkRange(siteId, from_ms, to_ms)));
+  const chunks = await withDb(async (db) => {
+    const tx = db.transaction(['series', 'loggerDays']);
+    return seriesChunksIn(tx, siteId, from_ms, to_ms);
+  });
   return joinChunks(chunks, from_ms, to_ms);
+}
+
+/** What a read transaction over the series and the logger days offers. */
+export interface SeriesReadTx {
+  objectStore(name: 'series'): { getAll(range: IDBKeyRange): Promise<SeriesChunk[]> };
+  objectStore(name: 'loggerDays'): { index(name: 'by-site-day'): { getAll(range: IDBKeyRange): Promise<LoggerDayRecord[]> } };
+}
+
+/**
+ * The day chunks of a site's window read in tx: the readings' series with the logger days merged in, so
+ * every reader of series (plots, storm analysis, exports) sees staff readings and logger records alike.
+ */
+export async function seriesChunksIn(tx: SeriesReadTx, siteId: string, from_ms: number, to_ms: number): Promise<SeriesChunk[]> {
+  const range = chunkRange(siteId, from_ms, to_ms);
+  const [chunks, days] = await Promise.all([
+    tx.objectStore('series').getAll(range),
+    tx.objectStore('loggerDays').index('by-site-day').getAll(range),
+  ]);
+  return withLoggerDays(chunks, days);
 }

@@ -36,4 +36,11 @@ export function upgradeFreshetDb(
     // Derived from readings (local only, never synced): one chunk of arrays per site and UTC day.
     db.createObjectStore('series', { keyPath: ['siteId', 'day'] });
   }
+  if (oldVersion < 3 && target >= 3) {
+    // Logger records as one record per site and UTC day (logger-days.ts). Not a unique index: the ids are
+    // derived from site and day, but a record synced from elsewhere must never make a merge fail.
+    const loggerDays = db.createObjectStore('loggerDays', { keyPath: 'id' });
+    loggerDays.createIndex('by-site-day', ['siteId', 'day']);
+    loggerDays.createIndex('by-rev', 'rev');
+  }
 }

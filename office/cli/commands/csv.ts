@@ -1,12 +1,14 @@
 // `freshet csv <bundle.json> --out <dir>`: the CSV tables of every site in a bundle, written all at once.
 import { gaugingsToCsv, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv } from '../../../core/index';
-import { expectPositionals, parseCommandArgs } from '../args';
+import { parseCommandArgs } from '../args';
 import { CliError, type Command } from '../io';
-import { readBundleFile } from '../read-bundle';
+import { DATABASE_SOURCE_HELP, DATABASE_SOURCE_OPTIONS, exportRecords } from '../../receiver/export-source';
 import { siteStems, sitesOf } from '../site-data';
+import { stormFiles } from '../storm-files';
 import { writeFilesAtomically, type OutputFile } from '../write-files';
 
 const HELP = `Usage: freshet csv <bundle.json> --out <dir>
+       freshet csv (--data <dir> | --database <url>) --site <code> --out <dir>
 
 Writes CSV tables (RFC 4180, UTF-8 with a byte-order mark, ISO 8601 times with the site's UTC offset,
 units in the header, in each site's display units) for every site in the bundle:
@@ -14,11 +16,14 @@ units in the header, in each site's display units) for every site in the bundle:
   <site>_gaugings.csv         gaugings: mean stage, discharge, method, grade
   <site>_rating_segments.csv  each rating's power-law segments, coefficients in SI (Q m³/s, h m)
   <site>_rating_tables.csv    each rating as a stage–discharge table (no shift), extrapolated rows marked
+  <site>_storm_<date>.csv     each saved storm analysis: discharge, baseflow and direct runoff per time
+                              (separated again from the bundle's readings with the analysis's method)
 Text that a spreadsheet could take for a formula is written with a leading apostrophe.
 The folder must be new or empty; nothing is written unless every file is.
 
 Options:
   --out DIR    the folder to write (required)
+${DATABASE_SOURCE_HELP}
   -h, --help   show this help
 `;
 
@@ -28,15 +33,14 @@ export const csvCommand: Command = {
   summary: 'write the CSV tables of every site in a bundle into a folder',
   help: HELP,
   async run(args, io) {
-    const parsed = parseCommandArgs('csv', args, { out: { type: 'string' } });
-    const [path] = expectPositionals('csv', parsed, ['bundle.json']);
+    const parsed = parseCommandArgs('csv', args, { out: { type: 'string' }, ...DATABASE_SOURCE_OPTIONS });
     const out = parsed.values.out;
     if (typeof out !== 'string' || out === '') throw new CliError('freshet csv: --out <dir> is required (try freshet csv --help)', 2);
-    const bundle = await readBundleFile('csv', path, io.cwd);
-    const sites = sitesOf(bundle.records);
-    if (sites.length === 0) throw new CliError(`freshet csv: ${path} holds no site, so there is nothing to export`);
+    const sites = sitesOf(await exportRecords('csv', parsed, io));
+    if (sites.length === 0) throw new CliError(`freshet csv: ${parsed.positionals[0]} holds no site, so there is nothing to export`);
     const stems = siteStems(sites.map((s) => s.site));
     const files: OutputFile[] = [];
+    const skipped: string[] = [];
     sites.forEach((s, i) => {
       const o = { siteCode: s.site.code, timeZone: s.site.timeZone, units: s.site.displayUnits };
       const stem = stems[i];
@@ -44,8 +48,12 @@ export const csvCommand: Command = {
       files.push({ name: `${stem}_gaugings.csv`, text: gaugingsToCsv(s.gaugings, o) });
       files.push({ name: `${stem}_rating_segments.csv`, text: ratingSegmentsToCsv(s.ratings, o) });
       files.push({ name: `${stem}_rating_tables.csv`, text: ratingTablesToCsv(s.ratings, o) });
+      const storms = stormFiles(s, stem);
+      files.push(...storms.files);
+      skipped.push(...storms.skipped);
     });
     const dir = await writeFilesAtomically('csv', out, files, io.cwd);
+    for (const why of skipped) io.stderr(`freshet csv: not written: ${why}\n`);
     io.stdout(`Wrote ${files.length} CSV files for ${sites.length} site${sites.length === 1 ? '' : 's'} to ${dir}\n`);
     return 0;
   },

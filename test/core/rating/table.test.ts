@@ -48,3 +48,12 @@ describe('ratingTable', () => {
     expect(() => ratingTable(rating, 0, 1000, 0.001)).toThrow(new RegExp(`at most ${RATING_TABLE_MAX_ROWS}.*larger step_m`));
   });
 });
+
+describe('ratingTable rows on the edge of the gauged range', () => {
+  // exact: 0.1 + 2·0.1 in binary is 0.30000000000000004; the row must still be the gauged stage 0.3 and not extrapolated
+  it('does not mark a row at the top of the gauged range as extrapolated through rounding', () => {
+    const rows = ratingTable({ segments: [{ fromStage_m: 0.1, offset_m: 0.1, coefficient: 5, exponent: 2 }], gaugedRange_m: [0.2, 0.3] }, 0.1, 0.4, 0.1);
+    expect(rows.map((r) => r.stage_m)).toEqual([0.1, 0.2, 0.3, 0.4]);
+    expect(rows.map((r) => r.extrapolated)).toEqual([true, false, false, true]);
+  });
+});

@@ -90,12 +90,13 @@ export function createPlot(host: HTMLElement, first: PlotProps, width_px: number
             return timeTickLabels(splits.map((s) => s * 1000), incr * 1000, zone);
           },
         }
-      : { ...axis, label: props.xAxis.label, values: (_u, splits, _i, _s, incr) => splits.map((v) => (props.xAxis.kind === 'number' && props.xAxis.log ? String(Number(v.toPrecision(3))) : numberTickLabel(v, incr))) };
+      : { ...axis, label: props.xAxis.label, values: (_u, splits, _i, _s, incr) => splits.map((v) => (v == null ? '' : props.xAxis.kind === 'number' && props.xAxis.log ? String(Number(v.toPrecision(3))) : numberTickLabel(v, incr))) };
   const yAxis: uPlot.Axis = {
     ...axis,
     label: props.yLabel,
     size: 52,
-    values: (_u, splits, _i, _s, incr) => splits.map((v) => (props.logY ? String(Number(v.toPrecision(3))) : numberTickLabel(v, incr))),
+    // uPlot leaves null in the splits of a log axis where it drops a crowded tick: no label there.
+    values: (_u, splits, _i, _s, incr) => splits.map((v) => (v == null ? '' : props.logY ? String(Number(v.toPrecision(3))) : numberTickLabel(v, incr))),
   };
   const timeZone = props.xAxis.kind === 'time' ? props.xAxis.timeZone : undefined;
   const opts: uPlot.Options = {

@@ -10,6 +10,8 @@ export interface ReadingForm {
   observer: string;
   note: string;
   gps?: GpsFix;
+  /** The logger's value typed beside a check reading (display units); absent when the reading is not a check. */
+  loggerCheckText?: string;
   /** Set when editing a stored reading. */
   readingId?: string;
 }
@@ -20,6 +22,7 @@ export type FormAction =
   | { type: 'source'; value: ReadingSource }
   | { type: 'quality'; value: ReadingQuality }
   | { type: 'gps'; value: GpsFix | undefined }
+  | { type: 'loggerCheck'; value: string | undefined }
   | { type: 'replace'; form: ReadingForm }
   | { type: 'saved' };
 
@@ -29,8 +32,11 @@ export function blankForm(observer: string): ReadingForm {
 }
 
 /** The form of a stored reading being edited (stage and time shown as typed values). */
-export function formOfReading(r: ReadingRecord, stageText: string, timeText: string): ReadingForm {
-  return { stageText, timeText, source: r.source, quality: r.quality, observer: r.observer, note: r.note, gps: r.gps, readingId: r.id };
+export function formOfReading(r: ReadingRecord, stageText: string, timeText: string, loggerCheckText?: string): ReadingForm {
+  return {
+    stageText, timeText, source: r.source, quality: r.quality, observer: r.observer, note: r.note, gps: r.gps, readingId: r.id,
+    ...(loggerCheckText !== undefined && { loggerCheckText }),
+  };
 }
 
 /** The reducer behind the reading form. */
@@ -44,6 +50,10 @@ export function formReducer(form: ReadingForm, action: FormAction): ReadingForm 
       return { ...form, quality: action.value };
     case 'gps':
       return { ...form, gps: action.value };
+    case 'loggerCheck': {
+      const { loggerCheckText: _old, ...rest } = form;
+      return action.value === undefined ? rest : { ...rest, loggerCheckText: action.value };
+    }
     case 'replace':
       return action.form;
     case 'saved':
@@ -60,6 +70,7 @@ export function toDraftFields(form: ReadingForm): { [key: string]: JsonValue } {
   };
   if (form.gps) fields.gps = { ...form.gps };
   if (form.readingId) fields.readingId = form.readingId;
+  if (form.loggerCheckText !== undefined) fields.loggerCheckText = form.loggerCheckText;
   return fields;
 }
 
@@ -78,10 +89,11 @@ export function fromDraftFields(fields: { [key: string]: JsonValue }, observer: 
     note: text('note', ''),
     ...(gpsOk && { gps: { lat: gps.lat, lon: gps.lon, accuracy_m: gps.accuracy_m, time_ms: gps.time_ms } }),
     ...(typeof fields.readingId === 'string' && { readingId: fields.readingId }),
+    ...(typeof fields.loggerCheckText === 'string' && { loggerCheckText: fields.loggerCheckText }),
   };
 }
 
 /** Whether the form holds anything worth keeping as a draft. */
 export function hasContent(form: ReadingForm): boolean {
-  return form.stageText.trim() !== '' || form.note.trim() !== '' || form.timeText !== '' || !!form.gps;
+  return form.stageText.trim() !== '' || form.note.trim() !== '' || form.timeText !== '' || !!form.gps || !!form.loggerCheckText?.trim();
 }

@@ -14,6 +14,7 @@ import { useRecords } from '../../db/use-records';
 import { Cautions } from '../../components/Cautions';
 import { TimeChoice } from '../../components/TimeChoice';
 import { locationProblem, plainError } from '../../plain-words';
+import { LoggerCheck, loggerCheckValue } from '../../components/LoggerCheck';
 import { describedBy, Field } from '../../components/Field';
 import { formatQuantity, formatTime, parseDecimal, spaceInsideNumber } from '../../format';
 import { href, navigate } from '../../router';
@@ -153,11 +154,12 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       } else if (readingId) {
         const r = await getReading(readingId);
         if (!live) return;
+        const shown = (m: number) => toDisplay('stage', m, u).toFixed(STAGE_DECIMALS[u]);
         if (r) {
           const timeText = toLocalInput(r.time_ms, site.timeZone);
           // A stored time in the repeated hour is already decided: keep its instant, do not ask again.
           setTimeChoice({ text: timeText, time_ms: r.time_ms });
-          dispatch({ type: 'replace', form: formOfReading(r, toDisplay('stage', r.stage_m, u).toFixed(STAGE_DECIMALS[u]), timeText) });
+          dispatch({ type: 'replace', form: formOfReading(r, shown(r.stage_m), timeText, r.loggerCheck && shown(r.loggerCheck.logger_m)) });
         }
         else setError({ text: 'That reading is not on this phone any more.' });
       }
@@ -261,6 +263,15 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       setError({ field: 'time', text: ('error' in time && time.error) || ('ask' in time ? 'Choose which of the two times below was meant.' : 'The time could not be read yet; try again.') });
       return;
     }
+    const loggerCheck = loggerCheckValue(form.loggerCheckText, u);
+    if (form.loggerCheckText !== undefined && !(loggerCheck && 'logger_m' in loggerCheck)) {
+      setError({ field: 'logger-value', text: (loggerCheck && 'error' in loggerCheck && loggerCheck.error) || 'Type the value the logger shows, or untick the check.' });
+      return;
+    }
+    if (loggerCheck && form.source === 'logger') {
+      setError({ field: 'logger-value', text: 'A check compares the logger with a gauge: choose the gauge you read in “Read from”.' });
+      return;
+    }
     setSaving(true);
     setError(undefined);
     try {
@@ -270,6 +281,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
         siteId: site.id, time_ms: t, stage_m: stage.stage_m!, source: form.source, quality: form.quality,
         observer: form.observer.trim(), note: form.note.trim(), warnings: check.warnings.map((w) => w.text),
         ...(form.gps && { gps: form.gps }),
+        ...(loggerCheck && 'logger_m' in loggerCheck && { loggerCheck: { logger_m: loggerCheck.logger_m } }),
       });
       try {
         localStorage.setItem(OBSERVER_KEY, record.observer);
@@ -400,6 +412,8 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
           </select>
         </Field>
       </div>
+      <LoggerCheck value={form.loggerCheckText} stage_m={'stage_m' in stage ? stage.stage_m : undefined} units={u}
+        error={error?.field === 'logger-value' ? error.text : undefined} onChange={(value) => dispatch({ type: 'loggerCheck', value })} />
       <Field id="observer" label="Observer">
         <input id="observer" autoComplete="name" value={form.observer} onInput={(e) => dispatch({ type: 'set', field: 'observer', value: e.currentTarget.value })} />
       </Field>

@@ -118,8 +118,10 @@ export default function SiteReadings({ params }: ScreenProps) {
         <a class="button" href={href('sites', site.id, 'edit')}>Edit site</a>
       </div>
       <p class={ratingNote ? 'callout' : 'callout warn'}>
-        {ratingNote ?? 'No rating yet: readings are kept as stage only until a rating is added.'}
-        {` · ${gaugingCount} gauging${gaugingCount === 1 ? '' : 's'} on this phone`}
+        {ratingNote ?? 'No rating yet: readings are kept as stage only until a rating is added.'}{' '}
+        <a href={href('sites', site.id, 'ratings')}>{ratingNote ? 'Ratings and shifts' : 'Add a rating'}</a>
+        {' · '}
+        <a href={href('sites', site.id, 'gaugings')}>{`${gaugingCount} gauging${gaugingCount === 1 ? '' : 's'} on this phone`}</a>
       </p>
       <SmallPlot site={site} last_ms={readings[0]?.reading.time_ms} />
       {message && <p class="callout bad" role="alert">{message}</p>}
@@ -153,6 +155,7 @@ export default function SiteReadings({ params }: ScreenProps) {
                       {!hasDischarge(r.discharge_m3s) ? 'no rating' : formatQuantity('discharge', r.discharge_m3s, u)}
                       {r.extrapolated && <> <span class="tag">extrapolated</span></>}
                       {r.reading.warnings.length > 0 && <> <span class="tag">{r.reading.warnings.length} warning{r.reading.warnings.length > 1 ? 's' : ''}</span></>}
+                      {r.reading.loggerCheck && <> <span class="tag" data-testid="check-tag">check: logger − gauge {formatQuantity('stage', r.reading.loggerCheck.logger_m - r.reading.stage_m, u)}</span></>}
                     </span>
                   </span>
                   <span>

@@ -11,7 +11,9 @@ export default defineConfig({
     emptyOutDir: true,
     target: 'es2022',
     rollupOptions: {
-      input: { index: resolve(import.meta.dirname, 'index.html'), db: resolve(import.meta.dirname, 'db.html') },
+      input: {
+        index: resolve(import.meta.dirname, 'index.html'), db: resolve(import.meta.dirname, 'db.html'), logger: resolve(import.meta.dirname, 'logger.html'),
+      },
     },
   },
 });

@@ -1,0 +1,101 @@
+// One small database interface over the two engines the receiver runs on: PGlite (PostgreSQL compiled to
+// WebAssembly, in a folder) and a PostgreSQL server through `pg`. Everything above this file writes the
+// same SQL for both; the only differences handled here are connection handling and the result types.
+import { PGlite } from '@electric-sql/pglite';
+import pg from 'pg';
+
+/** One query: positional parameters ($1, $2, …) and rows as plain objects. */
+export interface Queryable {
+  /** Runs one statement; bigint columns should be cast to text in the SQL (the engines return them differently). */
+  query<T = Record<string, unknown>>(sql: string, params?: readonly unknown[]): Promise<T[]>;
+}
+
+/** A database the receiver can use: queries, transactions (all or nothing), several statements, close. */
+export interface Database extends Queryable {
+  /** Which engine: 'pglite' (a folder) or 'postgres' (a server). */
+  readonly engine: 'pglite' | 'postgres';
+  /** Runs fn in one transaction: committed when it resolves, rolled back when it throws. */
+  transaction<T>(fn: (tx: Queryable) => Promise<T>): Promise<T>;
+  /** Runs a script of several statements (migrations), with no parameters. */
+  exec(sql: string): Promise<void>;
+  /** Closes the connection(s); for PGlite, flushes the folder. */
+  close(): Promise<void>;
+}
+
+/** Opens (and on first use creates) a PGlite database in folder `dir`; creating one takes ~10–30 s. */
+export async function openPglite(dir: string): Promise<Database> {
+  const db = await PGlite.create(dir);
+  // PGlite runs PostgreSQL in this thread. Queued statements resume one another through promise
+  // callbacks, which run before the event loop reads sockets again, so a queue of pushes could keep the
+  // HTTP server from reading for many seconds (long enough for its keep-alive timer to drop connections
+  // whose next request had already arrived). Yielding to the event loop before each statement lets the
+  // server read and answer between statements.
+  const wrap = (q: { query: PGlite['query'] }): Queryable => ({
+    async query<T>(sql: string, params: readonly unknown[] = []) {
+      await yieldToEventLoop();
+      const r = await q.query<T>(sql, [...params]);
+      return r.rows;
+    },
+  });
+  return {
+    engine: 'pglite',
+    ...wrap(db),
+    // PGlite is one connection: its transaction() queues every other query and transaction behind this one.
+    transaction: async (fn) => {
+      await yieldToEventLoop();
+      return db.transaction((tx) => fn(wrap(tx)));
+    },
+    async exec(sql) {
+      await db.exec(sql);
+    },
+    close: () => db.close(),
+  };
+}
+
+function yieldToEventLoop(): Promise<void> {
+  return new Promise((resolve) => setImmediate(resolve));
+}
+
+/** Connects to a PostgreSQL server at `url` (postgres://user@host:port/db) with a small pool. */
+export async function openPostgres(url: string, poolSize = 10): Promise<Database> {
+  const pool = new pg.Pool({ connectionString: url, max: poolSize });
+  // Fail early with the server's own message when the URL is wrong, rather than at the first request.
+  const probe = await pool.connect();
+  probe.release();
+  // A pool's idle client can report an error (server restart); log it rather than crash the process.
+  pool.on('error', (err) => console.error(`database connection error: ${err.message}`));
+  const wrap = (c: { query: pg.Pool['query'] }): Queryable => ({
+    async query<T>(sql: string, params: readonly unknown[] = []) {
+      const r = await c.query(sql, [...params]);
+      return r.rows as T[];
+    },
+  });
+  return {
+    engine: 'postgres',
+    ...wrap(pool),
+    async transaction(fn) {
+      const client = await pool.connect();
+      let broken = false;
+      try {
+        await client.query('begin');
+        const out = await fn(wrap(client));
+        await client.query('commit');
+        return out;
+      } catch (err) {
+        try {
+          await client.query('rollback');
+        } catch {
+          // The connection itself failed: it must not go back into the pool.
+          broken = true;
+        }
+        throw err;
+      } finally {
+        client.release(broken);
+      }
+    },
+    async exec(sql) {
+      await pool.query(sql);
+    },
+    close: () => pool.end(),
+  };
+}

@@ -1,0 +1,109 @@
+// The receiver's schema as numbered migrations, the same SQL for PGlite and a PostgreSQL server. A released
+// step is never edited: changes are new steps. Each step runs in its own transaction with its number.
+import type { Database } from './db';
+
+/** Advisory lock key that serialises migrations when several processes start on one server ("frsh-mig"). */
+const MIGRATION_LOCK = 0x66727368;
+
+/** The migration steps, in order; index + 1 is the step's number. */
+export const MIGRATIONS: readonly string[] = [
+  `
+  create table office_devices (
+    device_no serial primary key,
+    name text not null unique,
+    -- SHA-256 (hex) of the bearer token; the token itself is shown once and never stored.
+    token_hash text not null unique,
+    created_at timestamptz not null default now(),
+    revoked_at timestamptz,
+    last_push_at timestamptz,
+    last_bundle_id uuid,
+    -- The device id the phone writes into its bundles, as last seen.
+    app_device_id text
+  );
+  -- The server's own numbering of received bundles: the pull cursor. See store.ts for why it is safe.
+  create sequence office_bundle_seq;
+  create table office_bundles (
+    seq bigint primary key,
+    id uuid not null unique,
+    device_no integer not null references office_devices (device_no),
+    bundle_device text not null,
+    created text not null,
+    checksum text not null,
+    record_count integer not null,
+    -- The bundle exactly as received (re-serialised from its parsed JSON, key order kept), so a pull
+    -- hands other phones the same records with a checksum that still holds.
+    document text not null,
+    received_at timestamptz not null default now()
+  );
+  create table record_versions (
+    kind text not null,
+    id uuid not null,
+    rev text not null,
+    deleted boolean not null,
+    body jsonb not null,
+    device text not null,
+    bundle_id uuid not null references office_bundles (id),
+    received_at timestamptz not null,
+    seq bigint not null,
+    primary key (kind, id, rev)
+  );
+  create index record_versions_seq on record_versions (seq);
+  -- Versions are history: an update or delete is always a mistake, so the database refuses it.
+  create function record_versions_append_only() returns trigger language plpgsql as $$
+  begin
+    raise exception 'record_versions is append-only';
+  end $$;
+  create trigger record_versions_no_change before update or delete on record_versions
+    for each row execute function record_versions_append_only();
+  -- The version of each record that wins by core's merge rules (chosen in the receiver, not in SQL).
+  create table current_records (
+    kind text not null,
+    id uuid not null,
+    rev text not null,
+    deleted boolean not null,
+    body jsonb not null,
+    seq bigint not null,
+    primary key (kind, id)
+  );
+  create index current_records_site on current_records ((body ->> 'siteId'), kind);
+  `,
+];
+
+/** Brings the database's schema up to the latest step; returns the step numbers it applied. */
+export async function migrate(db: Database): Promise<number[]> {
+  await db.exec(`create table if not exists office_migrations (
+    version integer primary key, applied_at timestamptz not null default now())`);
+  const applied: number[] = [];
+  for (let i = 0; i < MIGRATIONS.length; i++) {
+    const version = i + 1;
+    const done = await db.transaction(async (tx) => {
+      await tx.query('select pg_advisory_xact_lock($1)', [MIGRATION_LOCK]);
+      const had = await tx.query('select 1 from office_migrations where version = $1', [version]);
+      if (had.length > 0) return false;
+      for (const statement of splitStatements(MIGRATIONS[i])) await tx.query(statement);
+      await tx.query('insert into office_migrations (version) values ($1)', [version]);
+      return true;
+    });
+    if (done) applied.push(version);
+  }
+  return applied;
+}
+
+// A migration is run statement by statement inside the transaction (one protocol call each), split at
+// semicolons that end a line outside a dollar-quoted function body.
+function splitStatements(script: string): string[] {
+  const out: string[] = [];
+  let current = '';
+  let inDollar = false;
+  for (const line of script.split('\n')) {
+    if (/^\s*--/.test(line)) continue;
+    current += line + '\n';
+    if ((line.match(/\$\$/g) ?? []).length % 2 === 1) inDollar = !inDollar;
+    if (!inDollar && /;\s*$/.test(line)) {
+      out.push(current.trim().replace(/;$/, ''));
+      current = '';
+    }
+  }
+  if (current.trim() !== '') out.push(current.trim());
+  return out;
+}

@@ -1,0 +1,92 @@
+// Opening the office database from command-line options: PGlite in the data folder (held with a lock file,
+// since one folder must never be open in two processes at once), or a PostgreSQL server by URL. Either
+// way the schema is brought up to date before it is used.
+import { closeSync, mkdirSync, openSync, readFileSync, rmSync, writeSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { openPglite, openPostgres, type Database } from './db';
+import { migrate } from './migrations';
+
+/** Where the office keeps its records: a folder for PGlite, or a PostgreSQL server's URL. */
+export interface StoreLocation {
+  data?: string;
+  database?: string;
+}
+
+/** A plain-language problem with the options or the folder (shown as one line, exit status 1). */
+export class OfficeSetupError extends Error {
+  override name = 'OfficeSetupError';
+}
+
+/** Opens and migrates the database; the returned close() also releases the folder. */
+export async function openOfficeDatabase(where: StoreLocation): Promise<Database> {
+  if (where.database !== undefined) {
+    if (!/^postgres(ql)?:\/\//.test(where.database)) {
+      throw new OfficeSetupError(`--database needs a PostgreSQL URL like postgres://user@host:5432/freshet; got ${JSON.stringify(where.database)}`);
+    }
+    let db: Database;
+    try {
+      db = await openPostgres(where.database);
+    } catch (err) {
+      throw new OfficeSetupError(`Could not connect to the PostgreSQL server: ${err instanceof Error ? err.message : String(err)}`);
+    }
+    await migrate(db);
+    return db;
+  }
+  if (where.data === undefined || where.data === '') {
+    throw new OfficeSetupError('Say where the office keeps its records: --data <folder> (embedded database) or --database <postgres URL>');
+  }
+  const dir = resolve(where.data);
+  mkdirSync(dir, { recursive: true });
+  const release = lockFolder(dir);
+  try {
+    const db = await openPglite(join(dir, 'pglite'));
+    await migrate(db);
+    return {
+      ...db,
+      async close() {
+        try {
+          await db.close();
+        } finally {
+          release();
+        }
+      },
+    };
+  } catch (err) {
+    release();
+    throw err;
+  }
+}
+
+// A lock file holding the owner's process id. A lock left by a process that no longer runs (killed) is
+// taken over; one held by a live process is refused with a sentence saying what to do.
+function lockFolder(dir: string): () => void {
+  const file = join(dir, 'in-use.lock');
+  for (let attempt = 0; attempt < 2; attempt++) {
+    try {
+      const fd = openSync(file, 'wx', 0o600);
+      writeSync(fd, String(process.pid));
+      closeSync(fd);
+      return () => rmSync(file, { force: true });
+    } catch (err) {
+      if ((err as NodeJS.ErrnoException).code !== 'EEXIST') throw err;
+      const pid = Number(readFileSync(file, 'utf8').trim());
+      if (Number.isInteger(pid) && pid > 0 && isAlive(pid)) {
+        throw new OfficeSetupError(
+          `The office folder ${dir} is in use by process ${pid} (a running receiver?). Stop it first, ` +
+            'or keep the records on a PostgreSQL server (--database) to run commands while the receiver runs.',
+        );
+      }
+      rmSync(file, { force: true });
+    }
+  }
+  throw new OfficeSetupError(`Could not take the lock on the office folder ${dir}; try again.`);
+}
+
+function isAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (err) {
+    return (err as NodeJS.ErrnoException).code === 'EPERM';
+  }
+}

@@ -1,0 +1,82 @@
+// The rating table at a step of the user's choice, extrapolated rows marked; shared or saved as CSV.
+import { useMemo, useState } from 'preact/hooks';
+import { fromDisplay, ratingTable, toDisplay, type RatingRecord, type SiteRecord } from '../../../core';
+import { Field } from '../../components/Field';
+import { formatQuantity, parseDecimal } from '../../format';
+import { ratingTableCsv } from './table-csv';
+
+/** The table of one rating, from its zero-flow stage (or gauged low) to above its gauged top. */
+export function RatingTableView({ site, rating }: { site: SiteRecord; rating: RatingRecord }) {
+  const u = site.displayUnits;
+  const su = u === 'us' ? 'ft' : 'm';
+  const first = rating.segments[0];
+  const last = rating.segments[rating.segments.length - 1];
+  const lowDefault = rating.gaugedRange_m ? Math.min(rating.gaugedRange_m[0], Math.max(first.offset_m, rating.gaugedRange_m[0] - 0.2)) : first.offset_m;
+  const highDefault = rating.gaugedRange_m ? rating.gaugedRange_m[1] + 0.2 * (rating.gaugedRange_m[1] - rating.gaugedRange_m[0]) : Math.max(last.fromStage_m, first.offset_m) + 1;
+  const fmt = (m: number) => toDisplay('stage', m, u).toFixed(u === 'us' ? 2 : 2);
+  const [stepText, setStepText] = useState(u === 'us' ? '0.05' : '0.01');
+  const [fromText, setFromText] = useState(fmt(lowDefault));
+  const [toText, setToText] = useState(fmt(highDefault));
+  const [message, setMessage] = useState<string>();
+  const table = useMemo((): { rows: ReturnType<typeof ratingTable> } | { error: string } => {
+    const step = parseDecimal(stepText);
+    const from = parseDecimal(fromText);
+    const to = parseDecimal(toText);
+    if (step === undefined || !(step > 0)) return { error: `The step must be a number above 0 in ${su}, like 0.01.` };
+    if (from === undefined || to === undefined) return { error: `The table needs a first and last stage as numbers in ${su}.` };
+    if (!(to >= from)) return { error: 'The last stage must not be below the first.' };
+    if ((to - from) / step > 2000) return { error: 'That would be more than 2,000 rows; use a larger step or a shorter range.' };
+    return { rows: ratingTable(rating, fromDisplay('stage', from, u), fromDisplay('stage', to, u), fromDisplay('stage', step, u)) };
+  }, [stepText, fromText, toText, rating, u, su]);
+  const csvName = `${site.code.replace(/[^\w.-]+/g, '_')}-rating-table.csv`;
+
+  async function share() {
+    if (!('rows' in table)) return;
+    const file = new File([ratingTableCsv(table.rows, u)], csvName, { type: 'text/csv' });
+    try {
+      if (navigator.canShare?.({ files: [file] })) {
+        await navigator.share({ files: [file], title: `${site.name} rating table` });
+        return;
+      }
+    } catch (err) {
+      if ((err as Error).name === 'AbortError') return;
+    }
+    const url = URL.createObjectURL(file);
+    const a = document.createElement('a');
+    a.href = url;
+    a.download = csvName;
+    a.click();
+    setTimeout(() => URL.revokeObjectURL(url), 10_000);
+    setMessage(`Saved as ${csvName}.`);
+  }
+
+  return (
+    <section aria-labelledby="table-heading">
+      <h3 id="table-heading">Rating table</h3>
+      <div class="row two">
+        <Field id="tableFrom" label={`From (${su})`}><input id="tableFrom" inputMode="decimal" value={fromText} onInput={(e) => setFromText(e.currentTarget.value)} /></Field>
+        <Field id="tableTo" label={`To (${su})`}><input id="tableTo" inputMode="decimal" value={toText} onInput={(e) => setToText(e.currentTarget.value)} /></Field>
+      </div>
+      <Field id="tableStep" label={`Step (${su})`}><input id="tableStep" inputMode="decimal" value={stepText} onInput={(e) => setStepText(e.currentTarget.value)} /></Field>
+      {'error' in table ? <p class="callout bad" role="alert">{table.error}</p> : (
+        <>
+          <button type="button" class="wide" onClick={() => void share()}>Share or save as CSV</button>
+          {message && <p class="callout ok" role="status">{message}</p>}
+          <div class="table-scroll card" tabIndex={0} aria-label="Rating table rows">
+            <table data-testid="rating-table">
+              <thead><tr><th scope="col">Stage</th><th scope="col">Discharge</th></tr></thead>
+              <tbody>
+                {table.rows.map((r) => (
+                  <tr key={r.stage_m} data-extrapolated={r.extrapolated ? 'yes' : undefined}>
+                    <td>{formatQuantity('stage', r.stage_m, u)}</td>
+                    <td>{formatQuantity('discharge', r.discharge_m3s, u)}{r.extrapolated && <span class="tag extrapolated-row">extrapolated</span>}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        </>
+      )}
+    </section>
+  );
+}

@@ -3,6 +3,7 @@ import { resolve } from 'node:path';
 import { defineConfig } from 'vite';
 import preact from '@preact/preset-vite';
 import { VitePWA } from 'vite-plugin-pwa';
+import { contentSecurityPolicy } from './scripts/csp';
 
 const pkg = JSON.parse(readFileSync(resolve(import.meta.dirname, 'package.json'), 'utf8')) as { version: string };
 // FRESHET_VERSION lets the update-flow test build two versions of the same code.
@@ -18,9 +19,18 @@ export default defineConfig({
   publicDir: resolve(import.meta.dirname, 'public'),
   define: { __APP_VERSION__: JSON.stringify(version) },
   build: { outDir, emptyOutDir: true, target: 'es2022', sourcemap: false },
-  preview: { host: '127.0.0.1', port: 4173, strictPort: true },
+  // The preview server sends the policy as a header too, with frame-ancestors (a meta tag cannot).
+  preview: { host: '127.0.0.1', port: 4173, strictPort: true, headers: { 'Content-Security-Policy': contentSecurityPolicy({ frameAncestors: "'none'" }) } },
   plugins: [
     preact(),
+    {
+      // The built index.html carries the policy as its first <meta>, so any host serves it; the dev
+      // server gets none (its hot reload needs inline scripts and a websocket).
+      name: 'freshet-csp',
+      apply: 'build',
+      transformIndexHtml: (html: string) =>
+        html.replace('<meta charset="utf-8" />', `<meta charset="utf-8" />\n    <meta http-equiv="Content-Security-Policy" content="${contentSecurityPolicy()}" />`),
+    },
     VitePWA({
       strategies: 'injectManifest',
       srcDir: '../sw',

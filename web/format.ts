@@ -48,10 +48,30 @@ export function formatTime(time_ms: number, timeZone: string): string {
   return toLocalInput(time_ms, timeZone).replace('T', ' ');
 }
 
-/** Parses a number typed on a phone keypad: accepts a comma or a point as the decimal mark. */
+const quoted = (t: string): string => `"${t.length > 24 ? `${t.slice(0, 20)}…` : t}"`;
+
+/** A plain sentence when a typed number has a space inside it ("1 2"), else undefined. */
+export function spaceInsideNumber(text: string): string | undefined {
+  const t = text.trim();
+  // A space inside a number is refused, never joined: "1 2" might be 12, 1.2 or two readings.
+  return /\d\s+[\d.,]|[.,]\s+\d/.test(t) ? `${quoted(t)} has a space inside the number. Type it without spaces, like 12 or 1.2.` : undefined;
+}
+
+/** Why a typed number cannot be read (a plain sentence), or undefined when it reads as a number. */
+export function decimalProblem(text: string): string | undefined {
+  const t = text.trim();
+  if (readDecimal(t) !== undefined) return undefined;
+  return spaceInsideNumber(t) ?? `${quoted(t)} is not a number. Type digits with a point or a comma for the decimals, like 12.5 or 12,5.`;
+}
+
+/** Parses a number typed on a phone keypad: a comma or a point as the decimal mark; no spaces inside. */
 export function parseDecimal(text: string): number | undefined {
-  const t = text.trim().replace(/\s/g, '').replace(',', '.');
-  if (!/^[-+]?(\d+\.?\d*|\.\d+)$/.test(t)) return undefined;
-  const v = Number(t);
+  return readDecimal(text.trim());
+}
+
+function readDecimal(t: string): number | undefined {
+  const s = t.replace(',', '.');
+  if (!/^[-+−]?(\d+\.?\d*|\.\d+)$/.test(s)) return undefined;
+  const v = Number(s.replace('−', '-'));
   return Number.isFinite(v) ? v : undefined;
 }

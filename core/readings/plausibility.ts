@@ -43,6 +43,11 @@ function durationText(ms: number): string {
   return h < 48 ? `${h.toFixed(1)} h` : `${(h / 24).toFixed(1)} days`;
 }
 
+/** "12 min earlier", or "just before" when less than a minute apart (never "0 min earlier"). */
+function sinceText(ms: number): string {
+  return Math.round(ms / 60_000) < 1 ? 'just before' : `${durationText(ms)} earlier`;
+}
+
 /** Checks a stage reading and computes its discharge. Throws RangeError for a non-finite stage or time. */
 export function checkReading(input: ReadingCheckInput): ReadingCheck {
   const { stage_m, time_ms, now_ms, previous, jumpLimit_m, ratings, units } = input;
@@ -71,7 +76,7 @@ export function checkReading(input: ReadingCheckInput): ReadingCheck {
     const d = stage_m - previous.stage_m;
     warnings.push({
       code: 'jump',
-      text: `The stage ${d > 0 ? 'rose' : 'fell'} ${stageText(Math.abs(d), units)} since the previous reading ${durationText(Math.abs(time_ms - previous.time_ms))} earlier, more than this site's limit of ${stageText(jumpLimit_m, units)}. Check the gauge, and note why if it is right.`,
+      text: `The stage ${d > 0 ? 'rose' : 'fell'} ${stageText(Math.abs(d), units)} since the previous reading ${sinceText(Math.abs(time_ms - previous.time_ms))}, more than this site's limit of ${stageText(jumpLimit_m, units)}. Check the gauge, and note why if it is right.`,
     });
   }
   if (time_ms > now_ms + FUTURE_TOLERANCE_MS) {

@@ -4,7 +4,7 @@ export { RecordValidationError, describeValue } from './validation-error';
 export { MAX_TIME_MS, MAX_TEXT_LENGTH, isUuid } from './checks';
 export { formatRev, parseRev, isRev, nextRev, compareRev, maxRev, REV_MAX_WALL_MS, REV_MAX_COUNTER, type RevParts } from './hlc';
 export { validateEnvelope, validateSeen, MAX_SEEN } from './envelope';
-export { validateSiteBody, isTimeZone } from './validate-site';
+export { validateSiteBody, isTimeZone, MAX_AREA_KM2, MAX_JUMP_LIMIT_M, MIN_DATUM_ELEVATION_M, MAX_DATUM_ELEVATION_M } from './validate-site';
 export { validateReadingBody, MAX_ABS_STAGE_M } from './validate-reading';
 export { validateGaugingBody } from './validate-gauging';
 export { validateRatingBody } from './validate-rating';

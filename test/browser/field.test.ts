@@ -164,7 +164,7 @@ describe('recording a reading', () => {
     await page.locator('#site-name').fill('Tarn Knott outflow');
     await page.locator('#site-jumpLimit').fill('abc');
     await page.getByRole('button', { name: 'Save site' }).click();
-    await page.getByText('The jump limit must be a number, like 12.5; got "abc".').waitFor();
+    await page.getByText('The jump limit: "abc" is not a number. Type digits with a point or a comma for the decimals, like 12.5 or 12,5.').waitFor();
     await page.locator('#site-jumpLimit').fill('0.25');
     await page.locator('#site-area').fill('3.2');
     await shot('site-form');

@@ -35,6 +35,10 @@ describe('checkReading', () => {
     expect(codes({ ...base, time_ms: NOW + 3_600_000, stage_m: 0.8, ratings: inForce() })).toEqual(['future']);
     const jump = checkReading({ ...base, stage_m: 1.0, previous: { stage_m: 0.4, time_ms: base.time_ms - 3_600_000 }, ratings: inForce() }).warnings[0].text;
     expect(jump).toMatch(/rose 0\.600 m since the previous reading 60 min earlier/);
+    // Two readings in the same minute: "just before", never "0 min earlier" (issue 10 item 11).
+    const same = checkReading({ ...base, stage_m: 1.0, previous: { stage_m: 0.4, time_ms: base.time_ms - 20_000 }, ratings: inForce() }).warnings[0].text;
+    expect(same).toMatch(/rose 0\.600 m since the previous reading just before, more than/);
+    expect(same).not.toMatch(/0 min/);
     const us = checkReading({ ...base, units: 'us', stage_m: 1.5, ratings: inForce() }).warnings[0].text;
     expect(us).toMatch(/0\.98 ft to 3\.94 ft/); // 0.3 m and 1.2 m in international feet (NIST SP 811)
   });

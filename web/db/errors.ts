@@ -36,7 +36,8 @@ const MESSAGES: Record<StorageFailure, string> = {
   stale: 'This reading was changed or deleted in another tab or on another device after you opened it, so your edit was not saved. Open the reading again to see it as it is now.',
   moved: 'A saved reading cannot be moved to another site. Record a new reading at the other site and delete this one instead.',
   unavailable: 'This browser does not let Freshet store data (private browsing may be on).',
-  unknown: 'Saving failed for an unexpected reason and nothing was written. Please try again.',
+  // Also reached by reads, so it says nothing about saving: plainError gives reads their own sentence.
+  unknown: 'Freshet’s data store failed for an unexpected reason and nothing was changed. Please try again.',
 };
 
 const REASON_BY_NAME: Partial<Record<string, StorageFailure>> = {

@@ -4,8 +4,9 @@
 import { useEffect, useState } from 'preact/hooks';
 import type { RecordKind } from '../../core';
 import { onRecordsChanged } from './events';
+import { plainError } from '../plain-words';
 
-/** The state of a read: loading, the value, or an error in words. */
+/** The state of a read: loading, the value, or an error in plain words (never a save message or an internal name). */
 export type Loaded<T> = { state: 'loading' } | { state: 'ready'; value: T } | { state: 'failed'; message: string };
 
 /** Runs `read` now, when `deps` change, and after any change to records of `kinds`. */
@@ -18,7 +19,7 @@ export function useRecords<T>(read: () => Promise<T>, kinds: RecordKind[], deps:
       const ticket = ++latest;
       read().then(
         (value) => live && ticket === latest && setLoaded({ state: 'ready', value }),
-        (err: unknown) => live && ticket === latest && setLoaded({ state: 'failed', message: err instanceof Error ? err.message : String(err) }),
+        (err: unknown) => live && ticket === latest && setLoaded({ state: 'failed', message: plainError(err, { doing: 'read' }) }),
       );
     };
     // The last answer stays on screen until the new one arrives, so live figures do not flicker.

@@ -3,6 +3,7 @@ import { useMemo, useState } from 'preact/hooks';
 import { listSites } from '../../db';
 import { useRecords } from '../../db/use-records';
 import { href } from '../../router';
+import { locationProblem } from '../../plain-words';
 
 /** Great-circle distance in km between two points (haversine, mean Earth radius 6371.0088 km). */
 function distance_km(a: { lat: number; lon: number }, b: { lat: number; lon: number }): number {
@@ -46,7 +47,7 @@ export function ChooseSite() {
                     setHere({ lat: p.coords.latitude, lon: p.coords.longitude });
                     setLocating(undefined);
                   },
-                  (err) => setLocating(`No location (${err.message}); the sites stay in code order.`),
+                  (err) => setLocating(`${locationProblem(err)} The sites stay in code order.`),
                   { enableHighAccuracy: false, timeout: 20_000, maximumAge: 300_000 },
                 );
               }}

@@ -1,9 +1,9 @@
 // The reading form's state and its typed actions: the screen owns this draft through useReducer.
 import {
-  fromDisplay, fromLocalInput, isReadingQuality, isReadingSource, type GpsFix, type JsonValue, type ReadingQuality, type ReadingRecord,
+  displayUnit, fromDisplay, isReadingQuality, MAX_ABS_STAGE_M, readLocalInput, toDisplay, type WallTimeAnswer, isReadingSource, type GpsFix, type JsonValue, type ReadingQuality, type ReadingRecord,
   type ReadingSource, type UnitSystem,
 } from '../../../core';
-import { parseDecimal } from '../../format';
+import { parseDecimal, spaceInsideNumber } from '../../format';
 
 /** What the technician has typed so far. `timeText` is empty while the time follows the clock. */
 export interface ReadingForm {
@@ -65,22 +65,51 @@ export function stageOf(form: ReadingForm, units: UnitSystem): StageValue {
   if (form.editing && form.stageText === form.editing.stageText) return { stage_m: form.editing.stage_m };
   if (!form.stageText.trim()) return { empty: true };
   const v = parseDecimal(form.stageText);
-  return v === undefined ? { error: `Type the stage as a number, like ${units === 'us' ? '2.41' : '0.734'}.` } : { stage_m: fromDisplay('stage', v, units) };
+  if (v === undefined) return { error: spaceInsideNumber(form.stageText) ?? `Type the stage as a number, like ${units === 'us' ? '2.41' : '0.734'}.` };
+  const stage_m = fromDisplay('stage', v, units);
+  // No gauge reads beyond the stored limit: refuse here, before an absurd discharge or jump is shown.
+  if (Math.abs(stage_m) > MAX_ABS_STAGE_M) return { error: `The stage must be a number from ${stageLimitText(units)}; check the number.` };
+  return { stage_m };
 }
 
-/** What the time field means: a time in UTC ms (following the clock when empty), or why not. */
-export type TimeValue = { time_ms: number; followsClock: boolean } | { error: string };
+/** "−1,000 to 1,000 m" (or ft): the stage a reading may hold, in the site's units. */
+export function stageLimitText(u: UnitSystem): string {
+  const v = Number(toDisplay('stage', MAX_ABS_STAGE_M, u).toPrecision(6)).toLocaleString('en');
+  return `−${v} to ${v} ${displayUnit('stage', u)}`;
+}
+
+/**
+ * What the time field means: a time in UTC ms (following the clock when empty); for a wall time in a
+ * skipped or repeated hour, the two instants it may mean (`ask`) and the one the user picked, if any; or why not.
+ */
+export type TimeValue =
+  | { time_ms: number; followsClock: boolean; ask?: TwoInstants }
+  | { ask: TwoInstants; followsClock: false }
+  | { error: string };
+
+/** A wall time that names two instants: a repeated hour or a skipped one (UTC ms, earlier first). */
+export type TwoInstants = Exclude<WallTimeAnswer, { kind: 'one' }>;
+
+/** The instant the user picked for a wall time that names two (the text it was picked for, UTC ms). */
+export interface TimeChoiceMade {
+  text: string;
+  time_ms: number;
+}
 
 /**
  * The time (UTC ms) the form means. While an edit's time text is as first shown, the stored time exactly
  * (the text drops seconds, and a wall time in a repeated hour names two instants); an empty text
- * follows the clock now_ms (to the whole second); otherwise the typed wall time in the site's zone.
+ * follows the clock now_ms (to the whole second); otherwise the typed wall time in the site's zone, where
+ * a skipped or repeated hour is asked about, never shifted: `choice` is the user's answer for that text.
  */
-export function timeOf(form: ReadingForm, timeZone: string, now_ms: number): TimeValue {
+export function timeOf(form: ReadingForm, timeZone: string, now_ms: number, choice?: TimeChoiceMade): TimeValue {
   if (form.editing && form.timeText === form.editing.timeText) return { time_ms: form.editing.time_ms, followsClock: false };
   if (!form.timeText) return { time_ms: Math.floor(now_ms / 1000) * 1000, followsClock: true };
   try {
-    return { time_ms: fromLocalInput(form.timeText, timeZone), followsClock: false };
+    const answer = readLocalInput(form.timeText, timeZone);
+    if (answer.kind === 'one') return { time_ms: answer.time_ms, followsClock: false };
+    const picked = choice?.text === form.timeText && answer.candidates_ms.includes(choice.time_ms) ? choice.time_ms : undefined;
+    return picked === undefined ? { ask: answer, followsClock: false } : { time_ms: picked, ask: answer, followsClock: false };
   } catch (err) {
     return { error: err instanceof Error ? err.message : String(err) };
   }

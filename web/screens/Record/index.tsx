@@ -13,6 +13,8 @@ import {
 import { useRecords } from '../../db/use-records';
 import { onBeforeUpdate } from '../../app/updates';
 import { Cautions } from '../../components/Cautions';
+import { TimeChoice } from '../../components/TimeChoice';
+import { locationProblem, plainError } from '../../plain-words';
 import { LoggerCheck, loggerCheckValue } from '../../components/LoggerCheck';
 import { describedBy, Field } from '../../components/Field';
 import { formatQuantity, formatTime } from '../../format';
@@ -58,6 +60,8 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   const [error, setError] = useState<{ field?: string; text: string }>();
   const [futureOk, setFutureOk] = useState<number>();
   const [gpsState, setGpsState] = useState<string>();
+  /** Which instant the user picked for a time the clocks skipped or repeated (kept while the text is the same). */
+  const [timeChoice, setTimeChoice] = useState<{ text: string; time_ms: number }>();
   const draftId = useRef<string | undefined>(undefined);
   const formRef = useRef(form);
   formRef.current = form;
@@ -126,7 +130,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   const pump = (): void => {
     if (writing.current || savingRef.current || formRef.current === written.current) return;
     writing.current = writeDraft(formRef.current)
-      .catch((err: unknown) => setError({ text: `The draft could not be kept: ${err instanceof Error ? err.message : String(err)}` }))
+      .catch((err: unknown) => setError({ text: `The draft could not be kept: ${plainError(err, { units: u, timeZone: site.timeZone })}` }))
       .finally(() => {
         writing.current = undefined;
         pump();
@@ -156,7 +160,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   }, [saved]);
 
   const stage = useMemo(() => stageOf(form, u), [form.stageText, form.editing, u]);
-  const time = useMemo(() => timeOf(form, site.timeZone, now), [form.timeText, form.editing, now, site.timeZone]);
+  const time = useMemo(() => timeOf(form, site.timeZone, now, timeChoice), [form.timeText, form.editing, now, site.timeZone, timeChoice]);
   const t = 'time_ms' in time ? time.time_ms : undefined;
   const context = useRecords(
     async () => {
@@ -186,7 +190,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       return;
     }
     if (t === undefined || !check) {
-      setError({ field: 'time', text: ('error' in time && time.error) || 'The time could not be read yet; try again.' });
+      setError({ field: 'time', text: ('error' in time && time.error) || ('ask' in time ? 'Choose which of the two times below was meant.' : 'The time could not be read yet; try again.') });
       return;
     }
     const loggerCheck = loggerCheckValue(form.loggerCheckText, u);
@@ -237,8 +241,9 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
         stageInput.current?.focus({ preventScroll: true });
       }
     } catch (err) {
-      if (err instanceof RecordValidationError) setError({ field: err.field.startsWith('stage') ? 'stage' : err.field.startsWith('time') ? 'time' : undefined, text: `Not saved: ${err.message}` });
-      else setError({ text: err instanceof StorageError ? err.message : `Not saved: ${String(err)}` });
+      const text = plainError(err, { doing: 'save', units: u, timeZone: site.timeZone });
+      if (err instanceof RecordValidationError) setError({ field: err.field.startsWith('stage') ? 'stage' : err.field.startsWith('time') ? 'time' : undefined, text: `Not saved: ${text}` });
+      else setError({ text: err instanceof StorageError ? text : `Not saved: ${text}` });
     } finally {
       savingRef.current = false;
       setSaving(false);
@@ -265,7 +270,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
         dispatch({ type: 'gps', value: { lat: p.coords.latitude, lon: p.coords.longitude, accuracy_m: p.coords.accuracy, time_ms: Math.round(p.timestamp) } });
         setGpsState(undefined);
       },
-      (err) => setGpsState(`No location: ${err.message}. The reading can be saved without it.`),
+      (err) => setGpsState(`${locationProblem(err)} The reading can be saved without it.`),
       { enableHighAccuracy: true, timeout: 30_000, maximumAge: 60_000 },
     );
   }
@@ -336,6 +341,19 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
           />
           {!('followsClock' in time && time.followsClock) && <button type="button" style="flex:0 0 auto" onClick={() => dispatch({ type: 'set', field: 'timeText', value: '' })}>Now</button>}
         </div>
+        {'ask' in time && time.ask && (
+          <TimeChoice
+            id="time-choice"
+            typed={form.timeText}
+            answer={time.ask}
+            timeZone={site.timeZone}
+            chosen_ms={'time_ms' in time ? time.time_ms : undefined}
+            onChoose={(time_ms) => {
+              setTimeChoice({ text: form.timeText, time_ms });
+              if (error?.field === 'time') setError(undefined);
+            }}
+          />
+        )}
       </Field>
       <div class="row two">
         <Field id="source" label="Read from">

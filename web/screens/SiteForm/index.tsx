@@ -1,9 +1,13 @@
 // Create or edit a site: every site field, with units chosen per site; delete with confirmation.
 import { useEffect, useMemo, useState } from 'preact/hooks';
-import { fromDisplay, isTimeZone, RecordValidationError, toDisplay, displayUnit, type SiteRecord, type UnitSystem } from '../../../core';
+import {
+  fromDisplay, isTimeZone, MAX_AREA_KM2, MAX_DATUM_ELEVATION_M, MAX_JUMP_LIMIT_M, MIN_DATUM_ELEVATION_M, RecordValidationError, toDisplay, displayUnit,
+  type SiteRecord, type UnitSystem,
+} from '../../../core';
 import { deleteSite, getSite, saveSite, StorageError } from '../../db';
 import { describedBy, Field } from '../../components/Field';
-import { parseDecimal, significant } from '../../format';
+import { decimalProblem, parseDecimal } from '../../format';
+import { locationProblem, plainError } from '../../plain-words';
 import { href, navigate, type ScreenProps } from '../../router';
 
 interface Form {
@@ -25,9 +29,17 @@ function emptyForm(): Form {
   return { code: '', name: '', area: '', datumDescription: '', datumElevation: '', lat: '', lon: '', timeZone: deviceZone(), units: 'metric', jumpLimit: '0.3' };
 }
 
+/** A number as a person types it: up to 6 significant figures, no trailing zeros ("12.4", not "12.4000"). */
+function typedText(v: number): string {
+  return String(Number(v.toPrecision(6)));
+}
+
+/** A number with thousands separators for a range in a sentence ("10,000,000"). */
+const rangeText = (v: number): string => Number(v.toPrecision(6)).toLocaleString('en', { maximumFractionDigits: 4 }).replace(/^-/, '−');
+
 function formOf(s: SiteRecord): Form {
   const u = s.displayUnits;
-  const show = (q: 'area' | 'stage', v: number | undefined) => (v === undefined ? '' : significant(toDisplay(q, v, u), 6));
+  const show = (q: 'area' | 'stage', v: number | undefined) => (v === undefined ? '' : typedText(toDisplay(q, v, u)));
   return {
     code: s.code, name: s.name, area: show('area', s.area_km2), datumDescription: s.datum?.description ?? '',
     datumElevation: show('stage', s.datum?.elevation_m), lat: s.location ? String(s.location.lat) : '',
@@ -46,14 +58,22 @@ function toSite(f: Form): { site?: Omit<SiteRecord, 'id' | 'rev' | 'updated_ms'>
       return undefined;
     }
     const v = parseDecimal(text);
-    if (v === undefined) errors[key] = `${what} must be a number, like 12.5; got "${text}".`;
+    if (v === undefined) errors[key] = `${what}: ${decimalProblem(text)}`;
     return v;
   };
   if (!f.code.trim()) errors.code = 'A site code is needed, like "PB-03".';
   if (!f.name.trim()) errors.name = 'A site name is needed.';
+  const u = f.units;
   const area = num('area', f.area, false, 'The catchment area');
-  if (area !== undefined && area <= 0) errors.area = 'The catchment area must be above 0.';
+  const maxArea = toDisplay('area', MAX_AREA_KM2, u);
+  if (area !== undefined && (area <= 0 || area > maxArea)) {
+    errors.area = `The catchment area must be above 0 and at most ${rangeText(maxArea)} ${displayUnit('area', u)} (the largest river basins are about 7 million km²).`;
+  }
   const elevation = num('datumElevation', f.datumElevation, false, 'The datum elevation');
+  const [lowDatum, highDatum] = [MIN_DATUM_ELEVATION_M, MAX_DATUM_ELEVATION_M].map((v) => toDisplay('stage', v, u));
+  if (elevation !== undefined && (elevation < lowDatum || elevation > highDatum)) {
+    errors.datumElevation = `The datum elevation must be from ${rangeText(lowDatum)} to ${rangeText(highDatum)} ${displayUnit('stage', u)}.`;
+  }
   const lat = num('lat', f.lat, false, 'The latitude');
   const lon = num('lon', f.lon, false, 'The longitude');
   if ((lat === undefined) !== (lon === undefined) && !errors.lat && !errors.lon) errors.lat = 'Give both latitude and longitude, or neither.';
@@ -61,9 +81,11 @@ function toSite(f: Form): { site?: Omit<SiteRecord, 'id' | 'rev' | 'updated_ms'>
   if (lon !== undefined && (lon < -180 || lon > 180)) errors.lon = 'The longitude must be between −180 and 180 degrees.';
   if (!isTimeZone(f.timeZone)) errors.timeZone = `"${f.timeZone}" is not a time zone name; choose one from the list.`;
   const jump = num('jumpLimit', f.jumpLimit, true, 'The jump limit');
-  if (jump !== undefined && jump <= 0) errors.jumpLimit = 'The jump limit must be above 0.';
+  const maxJump = toDisplay('stage', MAX_JUMP_LIMIT_M, u);
+  if (jump !== undefined && (jump <= 0 || jump > maxJump)) {
+    errors.jumpLimit = `The jump limit must be above 0 and at most ${rangeText(maxJump)} ${displayUnit('stage', u)}; ${u === 'us' ? '1 ft' : '0.3 m'} is usual.`;
+  }
   if (Object.keys(errors).length) return { errors };
-  const u = f.units;
   return {
     errors,
     site: {
@@ -116,7 +138,7 @@ export default function SiteForm({ params }: ScreenProps) {
       // Keep what was typed meaning the same length or area in the new units.
       const conv = (q: 'area' | 'stage', text: string) => {
         const v = parseDecimal(text);
-        return v === undefined ? text : significant(toDisplay(q, fromDisplay(q, v, f.units), u), 6);
+        return v === undefined ? text : typedText(toDisplay(q, fromDisplay(q, v, f.units), u));
       };
       return { ...f, units: u, area: conv('area', f.area), datumElevation: conv('stage', f.datumElevation), jumpLimit: conv('stage', f.jumpLimit) };
     });
@@ -135,9 +157,9 @@ export default function SiteForm({ params }: ScreenProps) {
       navigate(href('sites', saved.id), true);
     } catch (err) {
       if (err instanceof RecordValidationError) {
-        setErrors({ [fieldOf(err)]: err.message });
+        setErrors({ [fieldOf(err)]: plainError(err, { doing: 'save', units: form.units }) });
         setStatus('Nothing was saved: please correct the field marked below.');
-      } else setStatus(err instanceof StorageError ? err.message : `Nothing was saved: ${String(err)}`);
+      } else setStatus(err instanceof StorageError ? plainError(err, { doing: 'save' }) : `Nothing was saved: ${plainError(err, { doing: 'save' })}`);
     } finally {
       setSaving(false);
     }
@@ -189,7 +211,7 @@ export default function SiteForm({ params }: ScreenProps) {
           onClick={() =>
             navigator.geolocation.getCurrentPosition(
               (p) => setForm((f) => ({ ...f, lat: p.coords.latitude.toFixed(6), lon: p.coords.longitude.toFixed(6) })),
-              (err) => setStatus(`The location could not be read: ${err.message}`),
+              (err) => setStatus(locationProblem(err)),
               { enableHighAccuracy: true, timeout: 20_000 },
             )
           }
@@ -218,7 +240,7 @@ export default function SiteForm({ params }: ScreenProps) {
                       await deleteSite(siteId);
                       navigate(href('sites'), true);
                     } catch (err) {
-                      setStatus(err instanceof Error ? err.message : String(err));
+                      setStatus(plainError(err, { doing: 'save' }));
                     }
                   }}
                 >

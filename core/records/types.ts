@@ -2,7 +2,8 @@
 // epoch milliseconds; every type here is JSON-able (no Dates, Maps or class instances).
 import type { DatedShift, MeasurementGrade, RatingSegment } from '../rating/index';
 import type { UnitSystem } from '../units';
-import type { EventPoints, EventSummary } from '../hydrograph/index';
+import type { EventPoints } from '../hydrograph/series';
+import type { EventSummary } from '../hydrograph/summary';
 
 /** Fields every stored record carries: id (UUID), rev (hybrid-logical-clock string), updated_ms, tombstone. */
 export interface RecordEnvelope {

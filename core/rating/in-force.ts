@@ -134,6 +134,8 @@ export function dischargeThrough(ratings: readonly DatedRating[], time_ms: Array
     }
     const shift = rating.shifts.length > 0 ? shiftIn(rating.shifts, t, stage) : 0;
     const q = evaluate(rating, stage + shift);
+    // As dischargeAt: a stage so far above the rating that Q overflows is refused, never given as Infinity.
+    if (!(q < Infinity)) throw new RangeError(`Stage ${i} (${stage} m) gives a discharge too large to represent; check the stage and its units`);
     const range = rating.gaugedRange_m;
     out.shift_m[i] = shift;
     out.discharge_m3s[i] = q;

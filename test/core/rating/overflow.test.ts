@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { dischargeAt, type Rating } from '../../../core/rating/index';
+import { dischargeAt, dischargeThrough, type Rating } from '../../../core/rating/index';
 
 describe('dischargeAt refuses a stage whose discharge overflows (issue 12, #8)', () => {
   const one: Rating = { segments: [{ fromStage_m: 0, coefficient: 12, offset_m: 0.2, exponent: 1.6 }] };
@@ -20,5 +20,11 @@ describe('dischargeAt refuses a stage whose discharge overflows (issue 12, #8)',
   }
   it('the one-segment value just below the overflow is exact: Q = C·(h − e)^b', () => {
     expect(dischargeAt(one, 1.2)).toBeCloseTo(12, 12); // exact: 12·1^1.6
+  });
+  it('dischargeThrough, the discharge of a stage at a time, refuses it too', () => {
+    const dated = { ...one, id: 'r1', validFrom_ms: 0, shifts: [] };
+    expect(() => dischargeThrough([dated], [1000], [1e200])).toThrow(/too large to represent/);
+    // exact: 12·(1.2 − 0.2)^1.6 = 12
+    expect(dischargeThrough([dated], [1000], [1.2]).discharge_m3s[0]).toBeCloseTo(12, 12);
   });
 });

@@ -1,9 +1,9 @@
 // Gaugings: discharge measurements.
 import type { GaugingRecord } from '../../core/records/index';
-import { getIn, listRange, restoreIn, saveIn, tombstoneIn, type ReadOptions, type SaveInput } from './records';
+import { getIn, listRange, restoreIn, saveIn, tombstoneIn, type ReadOptions, type SaveInput, type SaveOptions } from './records';
 
-/** Validates and saves a gauging (new id when absent); resolves with the stored record once it is durable. */
-export const saveGauging = (gauging: SaveInput<GaugingRecord>): Promise<GaugingRecord> => saveIn('gaugings', gauging);
+/** Validates and saves a gauging (new id when absent), removing `draftId`'s draft in the same transaction; resolves once durable. */
+export const saveGauging = (gauging: SaveInput<GaugingRecord>, options?: SaveOptions): Promise<GaugingRecord> => saveIn('gaugings', gauging, options);
 /** The gauging with this id, or undefined (tombstones only with includeDeleted). */
 export const getGauging = (id: string, options?: ReadOptions): Promise<GaugingRecord | undefined> => getIn('gaugings', id, options);
 /** Deletes a gauging by tombstone; returns the tombstone (undo with restoreGauging). */

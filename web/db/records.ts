@@ -78,16 +78,25 @@ export function withSeen<T extends object>(record: T, rev: string, before: { rev
   return seen ? { ...record, seen } : record;
 }
 
-/** Validates and saves one record in store S: new id when absent, new rev, updated_ms now; resolves when durable. */
-export async function saveIn<S extends PlainStore>(store: S, input: SaveInput<RecordOf<S>>): Promise<RecordOf<S>> {
+/** Options of a save: the draft of the form the record came from, deleted in the same transaction. */
+export interface SaveOptions {
+  draftId?: string;
+}
+
+/**
+ * Validates and saves one record in store S: new id when absent, new rev, updated_ms now; resolves when
+ * durable. `draftId`'s draft is removed in the same transaction, so a crash never offers it again.
+ */
+export async function saveIn<S extends PlainStore>(store: S, input: SaveInput<RecordOf<S>>, options: SaveOptions = {}): Promise<RecordOf<S>> {
   const kind = KIND_OF_STORE[store];
   const { id: given, body } = splitInput(kind, input);
   const id = given ?? crypto.randomUUID();
   const at = now_ms();
   const saved = await withDb(async (db) => {
-    const tx = db.transaction([store, 'meta'], 'readwrite', DURABLE);
+    const tx = db.transaction(options.draftId !== undefined ? [store, 'meta', 'drafts'] : [store, 'meta'], 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const s = tx.objectStore(store);
+      if (options.draftId !== undefined) quietly(tx.objectStore('drafts').delete(options.draftId));
       // The earlier version: its revision and `seen` list carry over (sync tells edits from concurrent
       // changes by them).
       const before = (await s.get(id)) as RecordOf<S> | undefined;
@@ -98,7 +107,7 @@ export async function saveIn<S extends PlainStore>(store: S, input: SaveInput<Re
       return record;
     });
   });
-  afterWrite([kind], [id]);
+  afterWrite(options.draftId !== undefined ? [kind, 'draft'] : [kind], [id]);
   return saved;
 }
 

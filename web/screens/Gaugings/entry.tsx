@@ -1,13 +1,14 @@
 // Entering a gauging: a summary, or vertical by vertical (mid-section, ISO 748) with running totals,
 // the largest subsection share, the count of verticals and the wading caution. The form is kept as a
 // draft on every change and restored when the app reopens; saving shows the deviation from the rating.
-import { useEffect, useMemo, useReducer, useRef, useState } from 'preact/hooks';
+import { useEffect, useMemo, useReducer, useState } from 'preact/hooks';
 import {
   GAUGING_GRADES, GAUGING_METHODS, MAX_SUBSECTION_SHARE, MIN_VERTICALS, RecordValidationError, toLocalInput,
   type GaugingMethod, type MeasurementGrade, type SiteRecord,
 } from '../../../core';
-import { discardDraft, listDrafts, ratingsAndGaugings, saveDraft, saveGauging, StorageError } from '../../db';
-import { onBeforeUpdate } from '../../app/updates';
+import { ratingsAndGaugings, saveGauging, StorageError } from '../../db';
+import { restorableDrafts, useKeptDraft } from '../../app/use-kept-draft';
+import { plainError } from '../../plain-words';
 import { Cautions } from '../../components/Cautions';
 import { describedBy, Field } from '../../components/Field';
 import { formatQuantity, formatTime } from '../../format';
@@ -17,9 +18,8 @@ import type { FieldError } from '../Ratings/rating-form';
 import { formatArea_m2 } from '../Ratings/units';
 import { gaugingCheck } from './check';
 import { Verticals } from './verticals';
-import { blankGaugingForm, fromDraftFields, gaugingReducer, hasContent, parseGaugingForm, runningTotals, toDraftFields, type GaugingForm } from './form';
+import { blankGaugingForm, fromDraftFields, gaugingReducer, hasContent, parseGaugingForm, runningTotals, toDraftFields } from './form';
 
-const DRAFT_DELAY_MS = 300;
 const METHOD_LABELS: Record<GaugingMethod, string> = {
   'velocity-area': 'Current meter (velocity–area)', 'acoustic-profiler': 'Acoustic profiler', volumetric: 'Volumetric', dilution: 'Dilution', float: 'Floats', other: 'Other',
 };
@@ -35,21 +35,20 @@ export function GaugingEntry({ site }: { site: SiteRecord }) {
   const [errors, setErrors] = useState<FieldError[]>([]);
   const [saved, setSaved] = useState<string>();
   const [failure, setFailure] = useState<string>();
-  const draftId = useRef<string | undefined>(undefined);
-  const pending = useRef<ReturnType<typeof setTimeout> | undefined>(undefined);
-  const formRef = useRef(form);
-  formRef.current = form;
-  const written = useRef<GaugingForm>(form);
+  const draft = useKeptDraft(form, ready, {
+    form: 'gauging', siteId: site.id, hasContent, toFields: toDraftFields,
+    onError: (err) => setFailure(`The draft could not be kept: ${plainError(err, { units: u, timeZone: site.timeZone })}`),
+  });
 
   useEffect(() => {
     let live = true;
-    void listDrafts('gauging', site.id).then((drafts) => {
+    void restorableDrafts('gauging', site.id).then((drafts) => {
       if (!live) return;
       const d = drafts[0];
       if (d) {
-        draftId.current = d.id;
+        draft.id.current = d.id;
         const { form: f, dropped } = fromDraftFields(d.fields, '');
-        written.current = f;
+        draft.markWritten(f);
         dispatch({ type: 'replace', form: f });
         setRestored(`Restored the unsaved gauging you started (last change ${formatTime(d.updated_ms, site.timeZone)}, ${f.verticals.length} verticals)${dropped ? `; ${dropped} unreadable vertical${dropped > 1 ? 's were' : ' was'} left out` : ''}.`);
       }
@@ -59,44 +58,6 @@ export function GaugingEntry({ site }: { site: SiteRecord }) {
       live = false;
     };
   }, [site.id]);
-
-  const writeDraft = async (f: GaugingForm): Promise<void> => {
-    written.current = f;
-    if (!hasContent(f)) {
-      if (draftId.current) {
-        const id = draftId.current;
-        draftId.current = undefined;
-        await discardDraft(id);
-      }
-      return;
-    }
-    const d = await saveDraft({ ...(draftId.current && { id: draftId.current }), form: 'gauging', siteId: site.id, fields: toDraftFields(f) });
-    draftId.current = d.id;
-  };
-  const flushDraft = async (): Promise<void> => {
-    clearTimeout(pending.current);
-    pending.current = undefined;
-    if (formRef.current === written.current) return;
-    await writeDraft(formRef.current);
-  };
-  useEffect(() => {
-    if (!ready) return;
-    clearTimeout(pending.current);
-    pending.current = setTimeout(() => {
-      pending.current = undefined;
-      void writeDraft(formRef.current).catch((err: unknown) => setFailure(`The draft could not be kept: ${String(err)}`));
-    }, DRAFT_DELAY_MS);
-  }, [form, ready]);
-  useEffect(() => {
-    const stop = onBeforeUpdate(flushDraft);
-    const onHide = () => document.visibilityState === 'hidden' && void flushDraft();
-    document.addEventListener('visibilitychange', onHide);
-    return () => {
-      stop();
-      document.removeEventListener('visibilitychange', onHide);
-      void flushDraft();
-    };
-  }, []);
 
   const totals = useMemo(() => runningTotals(form.verticals), [form.verticals]);
 
@@ -112,14 +73,16 @@ export function GaugingEntry({ site }: { site: SiteRecord }) {
     }
     setErrors([]);
     try {
-      await flushDraft();
-      const g = await saveGauging(parsed.body);
-      if (draftId.current) {
-        const id = draftId.current;
-        draftId.current = undefined;
-        await discardDraft(id);
+      // The draft stays until the gauging itself is stored, and goes in the same transaction.
+      await draft.flush();
+      draft.pause(true);
+      let g;
+      try {
+        g = await saveGauging(parsed.body, { draftId: draft.id.current });
+        draft.id.current = undefined;
+      } finally {
+        draft.pause(false);
       }
-      clearTimeout(pending.current);
       const { ratings } = await ratingsAndGaugings(site.id);
       const c = gaugingCheck(g, ratings);
       setSaved(
@@ -128,8 +91,9 @@ export function GaugingEntry({ site }: { site: SiteRecord }) {
             : 'No rating in force at its time to compare with.'),
       );
       setRestored(undefined);
-      written.current = blankGaugingForm(form.observer);
-      dispatch({ type: 'replace', form: written.current });
+      const next = blankGaugingForm(form.observer);
+      draft.markWritten(next);
+      dispatch({ type: 'replace', form: next });
     } catch (err) {
       setFailure(err instanceof RecordValidationError || err instanceof StorageError ? `Not saved: ${err.message}` : `Not saved: ${String(err)}`);
     }

@@ -8,10 +8,9 @@ import {
   toDisplay, toLocalInput, type ReadingQuality, type ReadingSource, type SiteRecord,
 } from '../../../core';
 import {
-  deleteReading, getReading, getSite, listDrafts, listRatings, readingBefore, saveDraft, saveReading, StorageError, discardDraft,
+  deleteReading, getReading, getSite, listRatings, readingBefore, saveReading, StorageError,
 } from '../../db';
 import { useRecords } from '../../db/use-records';
-import { onBeforeUpdate } from '../../app/updates';
 import { Cautions } from '../../components/Cautions';
 import { TimeChoice } from '../../components/TimeChoice';
 import { locationProblem, plainError } from '../../plain-words';
@@ -20,8 +19,8 @@ import { describedBy, Field } from '../../components/Field';
 import { formatQuantity, formatTime } from '../../format';
 import { href, navigate, type ScreenProps } from '../../router';
 import { ChooseSite } from './choose-site';
-import { isOtherTabOpen, tabId } from './draft-owner';
-import { blankForm, formOfReading, formReducer, fromDraftFields, hasContent, stageOf, timeOf, toDraftFields, type ReadingForm } from './form';
+import { restorableDrafts, useKeptDraft } from '../../app/use-kept-draft';
+import { blankForm, formOfReading, formReducer, fromDraftFields, hasContent, stageOf, timeOf, toDraftFields } from './form';
 import './style.css';
 
 const OBSERVER_KEY = 'freshet.observer';
@@ -62,13 +61,10 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   const [gpsState, setGpsState] = useState<string>();
   /** Which instant the user picked for a time the clocks skipped or repeated (kept while the text is the same). */
   const [timeChoice, setTimeChoice] = useState<{ text: string; time_ms: number }>();
-  const draftId = useRef<string | undefined>(undefined);
-  const formRef = useRef(form);
-  formRef.current = form;
-  /** The form as last written to the draft (or restored from it): nothing to write while they match. */
-  const written = useRef<ReadingForm>(form);
-  const writing = useRef<Promise<void> | undefined>(undefined);
-  const savingRef = useRef(false);
+  const draft = useKeptDraft(form, ready, {
+    form: 'reading', siteId: site.id, hasContent, toFields: toDraftFields,
+    onError: (err) => setError({ text: `The draft could not be kept: ${plainError(err, { units: u, timeZone: site.timeZone })}` }),
+  });
   const stageInput = useRef<HTMLInputElement>(null);
   const noteInput = useRef<HTMLTextAreaElement>(null);
   const now = useClock();
@@ -77,28 +73,21 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   useEffect(() => {
     let live = true;
     void (async () => {
-      const drafts = (await listDrafts('reading', site.id)).filter((d) => (d.fields.readingId ?? undefined) === readingId);
-      let draft;
-      for (const d of drafts) {
-        const owner = d.fields.tab;
-        if (typeof owner === 'string' && (await isOtherTabOpen(owner))) continue;
-        draft = d;
-        break;
-      }
+      const [kept] = (await restorableDrafts('reading', site.id)).filter((d) => (d.fields.readingId ?? undefined) === readingId);
       if (!live) return;
-      if (draft) {
-        draftId.current = draft.id;
-        const restored = fromDraftFields(draft.fields, rememberedObserver());
-        written.current = restored;
+      if (kept) {
+        draft.id.current = kept.id;
+        const restored = fromDraftFields(kept.fields, rememberedObserver());
+        draft.markWritten(restored);
         dispatch({ type: 'replace', form: restored });
-        setRestoredAt(draft.updated_ms);
+        setRestoredAt(kept.updated_ms);
       } else if (readingId) {
         const r = await getReading(readingId);
         if (!live) return;
         if (r) {
           const shown = (m: number) => toDisplay('stage', m, u).toFixed(STAGE_DECIMALS[u]);
           const loaded = formOfReading(r, shown(r.stage_m), toLocalInput(r.time_ms, site.timeZone), r.loggerCheck && shown(r.loggerCheck.logger_m));
-          written.current = loaded;
+          draft.markWritten(loaded);
           dispatch({ type: 'replace', form: loaded });
         } else setError({ text: 'That reading is not on this phone any more.' });
       }
@@ -112,47 +101,6 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
     if (ready) stageInput.current?.focus({ preventScroll: true });
   }, [ready]);
 
-  const writeDraft = async (f: ReadingForm): Promise<void> => {
-    written.current = f;
-    if (!hasContent(f)) {
-      if (draftId.current) {
-        const id = draftId.current;
-        draftId.current = undefined;
-        await discardDraft(id);
-      }
-      return;
-    }
-    const fields = { ...toDraftFields(f), tab: tabId() };
-    const d = await saveDraft({ ...(draftId.current && { id: draftId.current }), form: 'reading', siteId: site.id, fields });
-    draftId.current = d.id;
-  };
-  /** Writes the form to the draft at once; changes made while a write is under way go in the next one. */
-  const pump = (): void => {
-    if (writing.current || savingRef.current || formRef.current === written.current) return;
-    writing.current = writeDraft(formRef.current)
-      .catch((err: unknown) => setError({ text: `The draft could not be kept: ${plainError(err, { units: u, timeZone: site.timeZone })}` }))
-      .finally(() => {
-        writing.current = undefined;
-        pump();
-      });
-  };
-  const flushDraft = async (): Promise<void> => {
-    pump();
-    while (writing.current) await writing.current;
-  };
-  useEffect(() => {
-    if (ready) pump();
-  }, [form, ready]);
-  useEffect(() => {
-    const stopUpdate = onBeforeUpdate(flushDraft);
-    const onHide = () => document.visibilityState === 'hidden' && void flushDraft();
-    document.addEventListener('visibilitychange', onHide);
-    return () => {
-      stopUpdate();
-      document.removeEventListener('visibilitychange', onHide);
-      void flushDraft();
-    };
-  }, []);
   useEffect(() => {
     if (!saved?.id) return;
     const t = setTimeout(() => setSaved((s) => (s ? { text: s.text } : s)), UNDO_MS);
@@ -210,8 +158,8 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
     setSaving(true);
     setError(undefined);
     try {
-      await flushDraft(); // the draft stays until the reading itself is stored, in the same transaction
-      savingRef.current = true;
+      await draft.flush(); // the draft stays until the reading itself is stored, in the same transaction
+      draft.pause(true);
       const record = await saveReading(
         {
           ...(form.editing && { id: form.editing.id }),
@@ -220,9 +168,9 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
           ...(form.gps && { gps: form.gps }),
           ...(loggerCheck && 'logger_m' in loggerCheck && { loggerCheck: { logger_m: loggerCheck.logger_m } }),
         },
-        { draftId: draftId.current, expectedRev: form.editing?.rev },
+        { draftId: draft.id.current, expectedRev: form.editing?.rev },
       );
-      draftId.current = undefined;
+      draft.id.current = undefined;
       try {
         localStorage.setItem(OBSERVER_KEY, record.observer);
       } catch {
@@ -235,7 +183,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       if (form.editing) navigate(href('sites', site.id), true);
       else {
         const next = formReducer(form, { type: 'saved' });
-        written.current = next;
+        draft.markWritten(next);
         dispatch({ type: 'replace', form: next });
         setSaved({ text, id: record.id });
         stageInput.current?.focus({ preventScroll: true });
@@ -245,7 +193,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       if (err instanceof RecordValidationError) setError({ field: err.field.startsWith('stage') ? 'stage' : err.field.startsWith('time') ? 'time' : undefined, text: `Not saved: ${text}` });
       else setError({ text: err instanceof StorageError ? text : `Not saved: ${text}` });
     } finally {
-      savingRef.current = false;
+      draft.pause(false);
       setSaving(false);
     }
   }

@@ -71,9 +71,17 @@ export interface Browser {
   close(): Promise<void>;
 }
 
-/** Launches Chromium headless with a fresh profile; viewport defaults to a 360×640 phone. */
-export async function launchBrowser(options: { width?: number; height?: number; touch?: boolean } = {}): Promise<Browser> {
-  const profile = mkdtempSync(join(tmpdir(), 'freshet-profile-'));
+/** A fresh, empty browser profile folder (for a test that restarts the browser on the same profile). */
+export function freshProfile(): string {
+  return mkdtempSync(join(tmpdir(), 'freshet-profile-'));
+}
+
+/**
+ * Launches Chromium headless with a fresh profile (or `profile`, kept on close, for a test that kills
+ * and restarts the browser on it); viewport defaults to a 360×640 phone.
+ */
+export async function launchBrowser(options: { width?: number; height?: number; touch?: boolean; profile?: string } = {}): Promise<Browser> {
+  const profile = options.profile ?? freshProfile();
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: chromiumPath(),
     headless: true,
@@ -89,7 +97,7 @@ export async function launchBrowser(options: { width?: number; height?: number; 
     context,
     close: async () => {
       await context.close();
-      rmSync(profile, { recursive: true, force: true });
+      if (!options.profile) rmSync(profile, { recursive: true, force: true });
     },
   };
 }

@@ -11,6 +11,7 @@ import { run } from '../../office/cli/index';
 import { tokenHash } from '../../office/receiver/devices';
 import { openOfficeDatabase } from '../../office/receiver/open';
 import { killWhileStoring } from '../support/office/crash';
+import { validateWaterml } from '../support/waterml-kit';
 import { bundleOf, push, readingRecords, siteRecord } from '../support/office/phones';
 import { POSTGRES_URL, throwawayDatabase } from '../support/office/postgres';
 
@@ -146,6 +147,21 @@ describe('freshet office (command)', () => {
     const missing = await freshet(['csv', '--data', dir, '--site', 'XX-99', '--out', join(dir, 'export2')]);
     expect(missing.code).toBe(1);
     expect(missing.err).toMatch(/no site with code "XX-99"/);
+  }, 60_000);
+
+  it('exports a site as WaterML 2.0 from the office database, valid by the OGC schemas (offline kit)', async () => {
+    const out = join(dir, 'export-waterml');
+    const r = await freshet(['waterml', '--data', dir, '--site', 'TB-02', '--out', out]);
+    expect(r.err).toBe('');
+    expect(r.code).toBe(0);
+    const files = readdirSync(out).filter((f) => f.endsWith('.xml')).map((f) => join(out, f));
+    expect(files.some((f) => f.endsWith('_timeseries.xml'))).toBe(true);
+    const xml = readFileSync(files.find((f) => f.endsWith('_timeseries.xml'))!, 'utf8');
+    // every reading received (the same 112 as the CSV above), each time once
+    expect(new Set(xml.match(/<wml2:time>[^<]+<\/wml2:time>/g)).size).toBe(112);
+    const v = validateWaterml(files);
+    expect(v.output).not.toMatch(/INVALID|ERROR|NOTE/);
+    expect(v.status, v.output).toBe(0);
   }, 60_000);
 
   it('imports bundle files brought from phones: stored once, a damaged file changes nothing', async () => {

@@ -100,9 +100,10 @@ export function useKeptDraft<F>(form: F, ready: boolean, spec: DraftSpec<F>): Ke
       written.current = f;
     },
     flush,
+    // No write on resume: the form in hand may still be the one just saved (the next render brings the
+    // cleared form), and writing it would offer a saved record again as a draft.
     pause: (on) => {
       paused.current = on;
-      if (!on) pump();
     },
   };
 }

@@ -1,13 +1,14 @@
-import { continuousCoefficient, ratingContinuity } from './continuity';
+import { ratingContinuity } from './continuity';
 import { dischargeAt } from './evaluate';
 import { fitRating, type RatingFit } from './fit';
+import { fitJoined } from './joined-fit';
 import type { GaugingPoint, Rating } from './types';
 import { requireFinite } from './validate';
 
 /**
  * Options of fitSegments: breakpoint_m (m) splits the gaugings into a lower segment (stage below it)
- * and an upper one (at or above it); offset_m (m) fixes the lower segment's offset; join makes the
- * upper segment meet the lower one at the breakpoint by recomputing its coefficient.
+ * and an upper one (at or above it); offset_m (m) fixes the lower segment's offset; join fits both
+ * segments together under continuity at the breakpoint (DOMAIN.md §2).
  */
 export interface FitSegmentsOptions {
   breakpoint_m?: number;
@@ -22,7 +23,7 @@ export interface SegmentsFit {
   standardError_pct: number;
   /** 100·(Q_meas − Q_rating)/Q_rating per gauging, in input order. */
   deviations_pct: number[];
-  /** The fit of each segment on its own gaugings, lowest first. */
+  /** Each segment fitted apart on its own gaugings, lowest first (with join, for comparison only). */
   parts: RatingFit[];
   /** Plain sentences: each part's warnings (named by segment when two) and the continuity check. */
   warnings: string[];
@@ -32,8 +33,10 @@ export interface SegmentsFit {
 
 /**
  * Fits a rating of one segment (no breakpoint) or two (split at breakpoint_m) to gaugings in log space,
- * each segment by fitRating. The upper segment's offset is always searched; with join its coefficient
- * is then set by continuity at the breakpoint (one parameter fewer). Throws a RangeError naming the
+ * each segment by fitRating. The upper segment's offset is always searched. With join the two segments
+ * are fitted together: the log-space sum of squares over all gaugings is minimised with the upper
+ * coefficient tied to the lower segment by continuity at the breakpoint and the offsets and exponents
+ * free (one parameter fewer), never a rescale of a segment fitted apart. Throws a RangeError naming the
  * problem (too few gaugings on a side, an upper offset not below the breakpoint, bad numbers).
  */
 export function fitSegments(points: readonly GaugingPoint[], options: FitSegmentsOptions = {}): SegmentsFit {
@@ -62,16 +65,26 @@ export function fitSegments(points: readonly GaugingPoint[], options: FitSegment
   };
   const low = side('lower', () => fitRating(lower, offset_m === undefined ? {} : { offset_m }));
   const high = side('upper', () => fitRating(upper));
-  if (!(high.segment.offset_m < breakpoint_m)) {
+  if (!join && !(high.segment.offset_m < breakpoint_m)) {
     throw new RangeError(
       `fitSegments needs the upper segment's offset below the breakpoint ${breakpoint_m} m; the upper gaugings give ${high.segment.offset_m.toFixed(3)} m, so move the breakpoint up to the lowest upper gauging or fit one segment`,
     );
   }
-  const upperSegment = { ...high.segment, fromStage_m: breakpoint_m };
-  if (join) upperSegment.coefficient = continuousCoefficient(low.segment, upperSegment.offset_m, upperSegment.exponent, breakpoint_m);
+  let lowerSegment = low.segment;
+  let upperSegment = { ...high.segment, fromStage_m: breakpoint_m };
+  if (join) {
+    const joined = fitJoined(lower, upper, breakpoint_m, { lowerOffset_m: low.segment.offset_m, upperOffset_m: high.segment.offset_m }, offset_m);
+    if (!(joined.lower.exponent > 0) || !(joined.upper.exponent > 0)) {
+      throw new RangeError(
+        `fitSegments needs gaugings whose discharge rises with stage on both sides of the breakpoint ${breakpoint_m} m; the joined fit gives exponents ${joined.lower.exponent.toPrecision(3)} and ${joined.upper.exponent.toPrecision(3)}`,
+      );
+    }
+    lowerSegment = joined.lower;
+    upperSegment = joined.upper;
+  }
   const lo = Math.min(low.gaugedRange_m[0], high.gaugedRange_m[0]);
   const hi = Math.max(low.gaugedRange_m[1], high.gaugedRange_m[1]);
-  const rating: Rating = { segments: [low.segment, upperSegment], gaugedRange_m: [lo, hi] };
+  const rating: Rating = { segments: [lowerSegment, upperSegment], gaugedRange_m: [lo, hi] };
   let sse = 0;
   const deviations_pct = points.map((p) => {
     const rated = dischargeAt(rating, p.stage_m);

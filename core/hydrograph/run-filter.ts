@@ -4,12 +4,15 @@ import type { FilterSpec } from './filter-spec';
 import { positive, SEPARATE_FN } from './method-checks';
 import { interpolateOnto, medianInterval_ms, resampleRegular } from './resample';
 import type { PreparedSeries, Series } from './series';
-import { splitAtLongGaps, type Piece } from './split';
+import { bridgingLimit_ms } from './bridging-limit';
+import { splitAtLongGaps, type FilterRestart } from './split';
 
 /** Baseflow (m³/s) with plain sentences about what was done to the record. */
 export interface FilterRun {
   baseflow: Float64Array;
   notes: string[];
+  /** Gaps longer than the bridging limit after which the filter started afresh (UTC ms); empty when none. */
+  restarts: FilterRestart[];
 }
 
 /**
@@ -24,20 +27,23 @@ export function filterQuick(series: Series, spec: FilterSpec): FilterRun | null 
   const step = t[1] - t[0];
   if (!(step > 0 && step < Infinity)) return null;
   const baseflow = spec.runChecked(t, q, step);
-  return baseflow === null ? null : { baseflow, notes: [spec.note(step)] };
+  return baseflow === null ? null : { baseflow, notes: [spec.note(step)], restarts: [] };
 }
 
-/** Runs a recursive filter on a regular grid, piece by piece between long gaps, and maps it back. */
+/**
+ * Runs a recursive filter on a regular grid, across gaps up to the bridging limit (maxBridge_ms when given,
+ * else DOMAIN.md §4's limit for the record's usual step) and piece by piece between longer ones.
+ */
 export function recursiveFilter(prepared: PreparedSeries, maxBridge_ms: number | undefined, spec: FilterSpec): FilterRun {
   const { time_ms: t, discharge_m3s: q } = prepared;
   const notes: string[] = [];
   const grid = regularGrid(prepared, spec.name, notes);
   notes.push(spec.note(grid.step_ms));
-  const maxBridge = positive(maxBridge_ms ?? 5 * grid.step_ms, 'maxBridge_ms');
-  const pieces: Piece[] = splitAtLongGaps(prepared, grid.time_ms, maxBridge, spec.name, notes);
+  const maxBridge = maxBridge_ms === undefined ? bridgingLimit_ms(grid.step_ms) : positive(maxBridge_ms, 'maxBridge_ms');
+  const { pieces, restarts } = splitAtLongGaps(prepared, grid.time_ms, maxBridge, spec.name, notes);
   if (pieces.length === 1 && grid.time_ms === t) {
     // The filters keep 0 ≤ b ≤ Q themselves: on a regular record in one piece their output is the answer.
-    return { baseflow: spec.run(q, grid.step_ms), notes };
+    return { baseflow: spec.run(q, grid.step_ms), notes, restarts };
   }
   const gridB = new Float64Array(grid.time_ms.length);
   let previousEnd = -1;
@@ -52,7 +58,7 @@ export function recursiveFilter(prepared: PreparedSeries, maxBridge_ms: number |
     }
     previousEnd = piece.last;
   }
-  return { baseflow: backToReadings(t, q, grid.time_ms, gridB), notes };
+  return { baseflow: backToReadings(t, q, grid.time_ms, gridB), notes, restarts };
 }
 
 /** The record itself when regular, else resampled linearly at its median interval (saying so in notes). */

@@ -12,6 +12,8 @@ import { defaultSmoothedMinima, type SeparationMethod } from './methods';
 import { positive, SEPARATE_FN as FN } from './method-checks';
 import { medianInterval_ms } from './resample';
 import { backToReadings, filterQuick, recursiveFilter, regularGrid } from './run-filter';
+import { dailyOnlyReason } from './daily-only';
+import type { FilterRestart } from './split';
 import {
   checkArea,
   checkEventPoints,
@@ -33,7 +35,10 @@ export type { SeparationMethod };
 export interface SeparationContext {
   points?: EventPoints;
   area_km2?: number;
-  /** Longest gap (ms) a recursive filter runs across; longer gaps split the record. Default 5 × median step. */
+  /**
+   * Longest gap (ms) a recursive filter runs across; longer gaps split the record and the filter restarts.
+   * Default: the bridging limit of DOMAIN.md §4 for the record's usual step (bridgingLimit_ms).
+   */
   maxBridge_ms?: number;
   /**
    * 'light': separate a lightly smoothed copy (a centred mean of up to 5 readings, 30 minutes either side at most),
@@ -52,6 +57,10 @@ export interface SeparationResult {
    * summarizeEvent takes them as extra trapezoid nodes.
    */
   baseflowAtPoints?: BaseflowNodes;
+  /** Recursive filters: the gaps longer than the bridging limit after which the filter restarted (UTC ms). */
+  restarts?: FilterRestart[];
+  /** Set when the method's constant is published for daily data and this record is not daily: the reason. */
+  dailyOnly?: string;
 }
 
 const DAILY_TOLERANCE = 1e-6;
@@ -77,7 +86,7 @@ export function separateBaseflowDetailed(
       // filterQuick only runs on a series given as Float64Arrays.
       const note = filterNoiseNote(series.discharge_m3s as Float64Array, spec.name);
       if (note !== null) quick.notes.push(note);
-      return quick;
+      return withDailyOnly(quick, method.kind, series.time_ms[1] - series.time_ms[0]);
     }
   }
   const prepared = prepareSeries(series, FN);
@@ -96,7 +105,8 @@ export function separateBaseflowDetailed(
       const run = recursiveFilter(prepared, context?.maxBridge_ms, spec);
       const note = filterNoiseNote(prepared.discharge_m3s, spec.name, missingMask(prepared));
       if (note !== null) run.notes.push(note);
-      return run;
+      const t = prepared.time_ms;
+      return withDailyOnly(run, method.kind, prepared.regular ? t[1] - t[0] : medianInterval_ms(t));
     }
     case 'smoothed-minima': {
       const block = positive(method.block_days ?? defaultSmoothedMinima.block_days, 'smoothed-minima block_days');
@@ -124,6 +134,15 @@ export function separateBaseflowDetailed(
       throw new RangeError(`${FN} needs a known method kind; got ${JSON.stringify((unknown as { kind?: unknown })?.kind)}`);
     }
   }
+}
+
+/** A filter's result with the daily-only reason (and its note) when its constant does not suit the step. */
+function withDailyOnly(run: SeparationResult, kind: string, step_ms: number): SeparationResult {
+  const reason = dailyOnlyReason(kind, step_ms);
+  if (reason === null) return run;
+  run.notes.push(reason);
+  run.dailyOnly = reason;
+  return run;
 }
 
 function eventMethod(

@@ -15,11 +15,12 @@ describe('gaps (NaN discharge)', () => {
     const r = separateBaseflowDetailed(hourly(q), { kind: 'eckhardt', bfiMax: 0.5, recession: 0.9 });
     // exact: steady 8 m³/s starts and stays at the fixed point BFImax·Q = 4, across the bridged gap too
     for (const v of r.baseflow) expect(v).toBeCloseTo(4, 12);
-    expect(r.notes.join(' ')).toMatch(/bridged by a straight line and filtered across/);
+    // DOMAIN.md §4: the note says where the gap is and that the filter ran across it
+    expect(r.notes.join(' ')).toMatch(/A 3 h gap \(2 missing\) from 2024-\d\d-\d\d 19:00 UTC to .* 22:00 UTC was bridged by a straight line in discharge and Eckhardt ran across it \(gaps up to 6 h are bridged\)/);
   });
 
   it('a long gap splits the record: the filter restarts after it and says so', () => {
-    // 10 h of 6 m³/s, a 20 h gap, then 20 h of 12 m³/s; the default limit is 5 steps (5 h)
+    // 10 h of 6 m³/s, a 20 h gap, then 20 h of 12 m³/s; the bridging limit of hourly data is 6 h (DOMAIN.md §4)
     const q = [...Array(10).fill(6), ...Array(19).fill(NaN), ...Array(20).fill(12)];
     const r = separateBaseflowDetailed(hourly(q), { kind: 'chapman-maxwell', recession: 0.9 });
     // exact: each piece starts at its steady state Q/2, so after the restart b = 6 at once
@@ -27,7 +28,8 @@ describe('gaps (NaN discharge)', () => {
     expect(r.baseflow[9]).toBeCloseTo(3, 12);
     // across the gap the baseflow is the straight line between the pieces' ends
     expect(r.baseflow[19]).toBeCloseTo(3 + (3 * 10) / 20, 12);
-    expect(r.notes.join(' ')).toMatch(/restarted after it/);
+    expect(r.notes.join(' ')).toMatch(/A 20 h gap \(19 missing\) from .* is longer than the 6 h this record can be bridged over, so Chapman–Maxwell was restarted after it/);
+    expect(r.restarts).toEqual([{ from_ms: T0 + 9 * H, to_ms: T0 + 29 * H }]);
     // a larger limit bridges the same gap instead
     const bridged = separateBaseflowDetailed(hourly(q), { kind: 'chapman-maxwell', recession: 0.9 }, { maxBridge_ms: 30 * H });
     expect(bridged.baseflow[29]).toBeLessThan(6);
@@ -56,10 +58,14 @@ describe('resampling irregular readings for the filters', () => {
     expect(r.baseflow.length).toBe(hours.length);
   });
 
-  it('does not resample regular data (the only note is the per-day α applied at the hourly step)', () => {
+  it('does not resample regular data (the notes are the per-day α at the hourly step and that it is daily-only)', () => {
     // α is per day since the constants became per day: 0.925^(1/24) = 0.996757… per hour
     const r = separateBaseflowDetailed(hourly([3, 4, 9, 7, 5, 4, 3.5, 3.2]), { kind: 'lyne-hollick' });
-    expect(r.notes).toEqual(['Lyne–Hollick α 0.925 per day applied as 0.996757 per 1-h step.']);
+    expect(r.notes).toEqual([
+      'Lyne–Hollick α 0.925 per day applied as 0.996757 per 1-h step.',
+      "Lyne–Hollick's α is set for daily flows and has no established conversion to a 1-h step; on this record its baseflow is indicative only.",
+    ]);
+    expect(r.dailyOnly).toMatch(/daily flows/);
   });
 
   it('resampled baseflow is capped at the readings', () => {

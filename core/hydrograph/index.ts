@@ -41,3 +41,7 @@ export { bridgingLimit_ms, BRIDGING_LIMIT_MAX_MS, BRIDGING_LIMIT_MIN_MS, BRIDGIN
 export { dailyOnlyReason } from './daily-only';
 export type { FilterRestart } from './split';
 export type { PhiIndexResult } from './phi-index';
+export {
+  runoffRange, extrapolatedShare, roundDown, roundUp, DEFAULT_RATING_SE_PCT, EXTRAPOLATION_BAND_FACTOR,
+} from './runoff-range';
+export type { MethodVolume, RunoffRange, RunoffRangeInput } from './runoff-range';

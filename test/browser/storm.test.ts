@@ -147,11 +147,16 @@ describe('storm screen on the demo site, offline', () => {
     expect(numberIn((await page.getByTestId('runoff-depth').textContent())!)).toBe(Number(s.runoffDepth_mm!.toFixed(1)));
     // The demo peak (7.2 m³/s true) is above the gauged range (to 1.42 m): marked beside the peak and the volume.
     await expect(page.getByTestId('extrapolated-mark').count()).resolves.toBe(2);
-    // The range sentence: "about V (low–high)"; the demo rating has no fit, so the stated 10 % applies.
+    // The range sentence: "about V (low–high)"; the demo rating has no fit, so the stated 10 % applies, said
+    // beside the range with the band, the methods and the widening for the extrapolated peak (DOMAIN.md §5).
     const range = (await page.getByTestId('volume-range').textContent())!;
     expect(range).toMatch(/^about [\d,]+ m³ \([\d,]+–[\d,]+\)$/);
+    const holds = (await page.getByTestId('range-holds').textContent())!;
+    expect(holds).toMatch(/rating ±1 standard error \(about 68 %\), 10 % assumed: the rating has no fit statistics/);
+    expect(holds).toMatch(/widened for discharges beyond the gauged range/);
     await page.getByTestId('method-spread-card').locator('summary').click();
-    await expect(page.getByTestId('range-sentence').textContent()).resolves.toContain('taken as 10 %');
+    await expect(page.getByTestId('range-sentence').textContent()).resolves.toContain('a standard error of 10 % is assumed');
+    await expect(page.getByTestId('range-sentence').textContent()).resolves.toMatch(/Lyne–Hollick filter is left out: Lyne–Hollick's α is set for daily flows/);
   });
 
   it('lists every method side by side with the volumes the core computes', async () => {

@@ -22,7 +22,8 @@ import { draftFromAnalysis, initialDraft, stormReducer } from '../../web/screens
 import { KEY_ORDER, movePoint, nearestIndex, stepPoint } from '../../web/screens/Storm/key-point-order';
 import { defaultMethodChoice, methodFor, minimaWindow_days } from '../../web/screens/Storm/method-choice';
 import { everyMethod, methodSpread } from '../../web/screens/Storm/method-table';
-import { DEFAULT_RATING_SE_PCT, roundAbout, runoffRange } from '../../web/screens/Storm/runoff-range';
+import { DEFAULT_RATING_SE_PCT, roundAbout, stormRange } from '../../web/screens/Storm/runoff-range';
+import { analyse } from '../../web/screens/Storm/analysis';
 import { findStorms, STORM_PEAK_RATIO } from '../../web/screens/Storm/storms';
 
 const DAY = 86_400_000;
@@ -98,17 +99,32 @@ describe('moving a key point', () => {
 });
 
 describe('the runoff range', () => {
-  it('scales the volume by 1 ± se and spans the methods', () => {
-    const r = runoffRange(300_000, [280_000, 320_000, 300_000], 10);
-    expect(r.rating.low_m3).toBeCloseTo(300_000 / 1.1, 6);
-    expect(r.rating.high_m3).toBeCloseTo(330_000, 6);
-    expect(r.methods).toEqual({ low_m3: 280_000, high_m3: 320_000 });
-    expect(r.low_m3).toBeCloseTo(280_000 / 1.1, 6);
-    expect(r.high_m3).toBeCloseTo(352_000, 6);
-    expect(() => runoffRange(1, [], -1)).toThrow(RangeError);
+  // The screen feeds the core's rule (tested against the log-normal band in test/core/hydrograph/runoff-range.test.ts)
+  // with this storm: every method, the extrapolated share, the key points moved two readings either way.
+  it('builds the range from every method on the storm, leaving out the unsuited ones with their reason', () => {
+    const made = methodFor(defaultMethodChoice, area_km2);
+    if (!('method' in made)) throw new Error(made.problem);
+    const r = analyse(series, found, made.method, area_km2, undefined);
+    if (!r.ok) throw new Error(r.message);
+    const rows = everyMethod(series, found, area_km2, defaultMethodChoice);
+    const range = stormRange(series, found, r.value, rows, 5, area_km2);
+    const v = r.value.summary.directVolume_m3;
+    // the band sits in log space: exp(±0.05) around the lowest and highest volumes, ends rounded outward
+    expect(range.rating.highFactor).toBeGreaterThanOrEqual(Math.exp(0.05));
+    expect(range.low_m3).toBeLessThanOrEqual(range.exact.low_m3);
+    expect(range.high_m3).toBeGreaterThanOrEqual(range.exact.high_m3);
+    expect(range.exact.low_m3).toBeLessThanOrEqual(v * Math.exp(-0.05) + 1e-6);
+    // Lyne–Hollick is daily-only on the demo's sub-daily record: out of the spread, with its reason
+    const lh = rows.find((row) => row.kind === 'lyne-hollick');
+    expect(lh?.leftOut).toMatch(/set for daily flows/);
+    expect(range.methods.leftOut.map((l) => l.name)).toContain('Lyne–Hollick filter');
+    expect(range.keyPoints).toBeDefined();
+    expect(range.sentences.join(' ')).toMatch(/The spread of the methods/);
+    const none = stormRange(series, found, r.value, rows, undefined, area_km2);
+    expect(none.rating.isDefault).toBe(true);
+    expect(none.sentences.join(' ')).toMatch(new RegExp(`standard error of ${DEFAULT_RATING_SE_PCT} % is assumed`));
     expect(roundAbout(335_423)).toBe(340_000);
     expect(roundAbout(0.01234)).toBe(0.012);
-    expect(DEFAULT_RATING_SE_PCT).toBe(10);
   });
   it('rests on every method being linear in the discharges: Q × f gives a direct volume × f (checked with the core)', () => {
     const f = 1.1;
@@ -155,9 +171,10 @@ describe('every method side by side', () => {
       } else expect(r.volume_m3, r.kind).toBe(expected);
     }
   });
-  it('states the spread from the lowest to the highest', () => {
+  it('states the spread from the lowest to the highest of the methods suited to the record', () => {
     const spread = methodSpread(rows)!;
-    const vols = rows.flatMap((r) => (r.volume_m3 === undefined ? [] : [r.volume_m3]));
+    const vols = rows.flatMap((r) => (r.volume_m3 === undefined || r.leftOut !== undefined ? [] : [r.volume_m3]));
+    expect(rows.some((r) => r.leftOut !== undefined && r.volume_m3 !== undefined)).toBe(true);
     expect(spread.low_m3).toBe(Math.min(...vols));
     expect(spread.high_m3).toBe(Math.max(...vols));
     expect(spread.count).toBe(vols.length);

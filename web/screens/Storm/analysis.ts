@@ -93,6 +93,8 @@ export interface StormResult {
   baseflow_m3s: Float64Array;
   summary: EventSummary;
   notes: string[];
+  /** Why this method's volume stays out of the range's spread on this storm (daily-only, restarted in it). */
+  leftOut?: string;
 }
 
 // Baseflow of the methods that do not use the key points depends only on the series and the method, so a
@@ -108,7 +110,7 @@ export function baseflowOf(series: StormSeries, points: EventPoints, method: Sep
   let hit = cache.get(key);
   if (!hit) {
     const r = separateBaseflowDetailed(series, method, { area_km2 });
-    hit = { baseflow: r.baseflow, notes: r.notes };
+    hit = { baseflow: r.baseflow, notes: r.notes, ...(r.restarts && { restarts: r.restarts }), ...(r.dailyOnly && { dailyOnly: r.dailyOnly }) };
     cache.set(key, hit);
   }
   return hit;
@@ -134,6 +136,8 @@ export function analyse(
       ...(nodes ? { baseflowAtPoints: nodes } : {}),
     });
     const notes = [...new Set([...separated.notes, ...summary.notes])];
-    return { method, baseflow_m3s: separated.baseflow, summary, notes };
+    const restartedInside = (separated.restarts ?? []).some((g) => g.to_ms > points.riseStart_ms && g.from_ms < points.runoffEnd_ms);
+    const leftOut = separated.dailyOnly ?? (restartedInside ? 'it restarted after a gap too long to bridge inside the storm, so its baseflow there does not follow the flow before the gap.' : undefined);
+    return { method, baseflow_m3s: separated.baseflow, summary, notes, ...(leftOut && { leftOut }) };
   });
 }

@@ -6,29 +6,31 @@ import type { MethodOutcome, MethodSpread } from './method-table';
 import { rangeText } from './results-strip';
 import type { RunoffRange } from './runoff-range';
 
-/** Props: every method's outcome, their spread, the chosen method, units, and the range with its standard error. */
+/** Props: every method's outcome, their spread, the chosen method, units, and the range with what it holds. */
 export interface MethodSpreadProps {
   rows: MethodOutcome[];
   spread?: MethodSpread;
   chosen: MethodKind;
   units: UnitSystem;
   range?: RunoffRange;
-  se?: { pct: number; isDefault: boolean };
 }
 
 /** One tap opens the table of every method, the sentence with its spread and where the range comes from. */
-export function MethodSpreadTable({ rows, spread, chosen, units, range, se }: MethodSpreadProps) {
+export function MethodSpreadTable({ rows, spread, chosen, units, range }: MethodSpreadProps) {
   return (
     <details class="card method-spread" data-testid="method-spread-card">
       <summary>
         Every method{spread ? `: ${formatQuantity('volume', spread.low_m3, units)} to ${formatQuantity('volume', spread.high_m3, units)}` : ''}
       </summary>
-      {range && se && (
-        <p data-testid="range-sentence">
-          Direct runoff {rangeText(range, units)}. The range joins the spread of the methods below with the rating's{' '}
-          {se.isDefault ? `standard error, taken as ${se.pct} % because the rating has no fit statistics` : `standard error of ${se.pct} %`}{' '}
-          (every discharge {se.pct} % lower or higher).
-        </p>
+      {range && (
+        <div data-testid="range-sentence">
+          <p>Direct runoff {rangeText(range, units)}. The range holds:</p>
+          <ul>
+            {range.sentences.map((s) => (
+              <li key={s}>{s}</li>
+            ))}
+          </ul>
+        </div>
       )}
       {spread && (
         <p data-testid="method-spread">
@@ -52,7 +54,10 @@ export function MethodSpreadTable({ rows, spread, chosen, units, range, se }: Me
                 <td colSpan={2} class="problem">{r.problem}</td>
               ) : (
                 <>
-                  <td data-testid="spread-volume">{formatQuantity('volume', r.volume_m3, units)}</td>
+                  <td data-testid="spread-volume">
+                    {formatQuantity('volume', r.volume_m3, units)}
+                    {r.leftOut && <span class="left-out"> (not in the range: {r.leftOut})</span>}
+                  </td>
                   <td>{r.depth_mm === undefined ? '—' : formatQuantity('depth', r.depth_mm, units)}</td>
                 </>
               )}

@@ -11,6 +11,8 @@ export interface MethodOutcome {
   volume_m3?: number;
   depth_mm?: number;
   problem?: string;
+  /** Why the volume stays out of the range's spread (it is still shown in the table). */
+  leftOut?: string;
 }
 
 /** The lowest and highest direct runoff volumes among the methods that worked (m³), with their methods. */
@@ -40,15 +42,16 @@ export function everyMethod(
     if (!r.ok) return { kind, problem: r.message };
     const out: MethodOutcome = { kind, volume_m3: r.value.summary.directVolume_m3 };
     if (r.value.summary.runoffDepth_mm !== undefined) out.depth_mm = r.value.summary.runoffDepth_mm;
+    if (r.value.leftOut !== undefined) out.leftOut = r.value.leftOut;
     return out;
   });
 }
 
-/** The spread of the methods that gave a volume; undefined when none did. */
+/** The spread of the methods suited to the record that gave a volume; undefined when none did. */
 export function methodSpread(rows: readonly MethodOutcome[]): MethodSpread | undefined {
   let spread: MethodSpread | undefined;
   for (const r of rows) {
-    if (r.volume_m3 === undefined) continue;
+    if (r.volume_m3 === undefined || r.leftOut !== undefined) continue;
     if (!spread) spread = { low_m3: r.volume_m3, high_m3: r.volume_m3, lowKind: r.kind, highKind: r.kind, count: 0 };
     if (r.volume_m3 < spread.low_m3) Object.assign(spread, { low_m3: r.volume_m3, lowKind: r.kind });
     if (r.volume_m3 > spread.high_m3) Object.assign(spread, { high_m3: r.volume_m3, highKind: r.kind });

@@ -1,6 +1,6 @@
 // The figures that stay in view under the plot: direct runoff volume with its range, depth, peak,
 // baseflow index and runoff coefficient, and the rainfall to type. Extrapolated figures are marked.
-import { displayUnit, type EventSummary, type UnitSystem } from '../../../core';
+import { displayUnit, fromDisplay, roundDown, roundUp, toDisplay, type EventSummary, type UnitSystem } from '../../../core';
 import { formatQuantity, significant } from '../../format';
 import { roundAbout, type RunoffRange } from './runoff-range';
 
@@ -26,12 +26,26 @@ function Mark({ on, short }: { on: boolean; short?: boolean }) {
   );
 }
 
-/** "about 340,000 m³ (250,000–400,000)": every figure to two significant figures. */
+/** "about 340,000 m³ (250,000–400,000)": the volume to two significant figures, the ends as the core rounded them (outward). */
 export function rangeText(range: RunoffRange, units: UnitSystem): string {
   const unit = displayUnit('volume', units);
-  const v = (x: number) => formatQuantity('volume', roundAbout(x), units);
+  const v = (x: number) => formatQuantity('volume', x, units);
   const bare = (x: number) => v(x).replace(` ${unit}`, '');
-  return `about ${v(range.volume_m3)} (${bare(range.low_m3)}–${bare(range.high_m3)})`;
+  // In other units the ends are converted, then rounded outward again so the conversion cannot narrow them.
+  const low = units === 'metric' ? range.low_m3 : fromDisplay('volume', roundDown(toDisplay('volume', range.low_m3, units)), units);
+  const high = units === 'metric' ? range.high_m3 : fromDisplay('volume', roundUp(toDisplay('volume', range.high_m3, units)), units);
+  return `about ${v(roundAbout(range.volume_m3))} (${bare(low)}–${bare(high)})`;
+}
+
+/** What the range holds, in a few plain words for beside it: the band, the methods, the widening, the default. */
+export function rangeHolds(range: RunoffRange): string {
+  const parts = [`rating ±${range.rating.band} standard error${range.rating.band === 1 ? ' (about 68 %)' : 's (about 95 %)'}`];
+  if (range.rating.isDefault) parts[0] += `, ${range.rating.standardError_pct} % assumed: the rating has no fit statistics`;
+  parts.push(`${range.methods.used.length} method${range.methods.used.length === 1 ? '' : 's'}`);
+  if (range.methods.leftOut.length > 0) parts.push(`${range.methods.leftOut.length} left out`);
+  if (range.keyPoints) parts.push('key points moved');
+  if (range.rating.extrapolatedShare > 0) parts.push('widened for discharges beyond the gauged range');
+  return `Range holds: ${parts.join('; ')}.`;
 }
 
 /** The strip of figures. */
@@ -48,6 +62,11 @@ export function ResultsStrip(p: ResultsStripProps) {
       {p.range && (
         <p class="strip-range" data-testid="volume-range">
           {rangeText(p.range, p.units)}
+        </p>
+      )}
+      {p.range && (
+        <p class="strip-range-holds" data-testid="range-holds">
+          {rangeHolds(p.range)}
         </p>
       )}
       <dl class="strip-cells">

@@ -1,45 +1,60 @@
-// The range around a direct runoff volume: the rating's standard error carried through the discharges to
-// the volume, and the spread of the separation methods, as plain arithmetic for the screen and its tests.
+// The storm screen's side of the runoff range: the core's rule (core/hydrograph/runoff-range.ts) fed with
+// this storm's methods, the rating's standard error, the extrapolated share and the key points.
+import { extrapolatedShare, runoffRange, type EventPoints, type RunoffRange } from '../../../core';
+import { METHOD_LABELS } from '../../components/SeparationPicker';
+import { analyse, type StormResult, type StormSeries } from './analysis';
+import type { MethodOutcome } from './method-table';
 
-/**
- * Standard error (percent, in log space) used for a rating that has none: 10 %, a common working figure
- * for a rating checked by a handful of gaugings (common practice, not a published constant).
- */
-export const DEFAULT_RATING_SE_PCT = 10;
+export { DEFAULT_RATING_SE_PCT, type RunoffRange } from '../../../core';
 
-/** The low and high ends of a volume range, m³, with the parts they come from. */
-export interface RunoffRange {
-  /** The volume of the chosen method, m³. */
-  volume_m3: number;
-  /** The chosen method's volume with every discharge one standard error lower and higher, m³. */
-  rating: { low_m3: number; high_m3: number };
-  /** Lowest and highest volume among the methods that worked, m³. */
-  methods: { low_m3: number; high_m3: number };
-  /** The whole range: the lowest method one standard error low to the highest one standard error high, m³. */
-  low_m3: number;
-  high_m3: number;
+/** Readings the rise start and the end of runoff are moved either way for the range (our rule: a point picked on a plot is good to about two readings). */
+export const KEY_POINT_TOLERANCE_READINGS = 2;
+
+/** The range of the chosen method's volume on this storm, or undefined without a result. */
+export function stormRange(
+  series: StormSeries,
+  points: EventPoints,
+  result: StormResult,
+  rows: readonly MethodOutcome[],
+  standardError_pct: number | undefined,
+  area_km2: number | undefined,
+): RunoffRange {
+  const methods = rows.map((r) => ({
+    name: METHOD_LABELS[r.kind],
+    ...(r.volume_m3 !== undefined && { volume_m3: r.volume_m3 }),
+    ...(r.leftOut !== undefined ? { leftOut: r.leftOut } : r.problem !== undefined ? { leftOut: r.problem } : {}),
+  }));
+  const share = extrapolatedShare(series.time_ms, series.discharge_m3s, result.baseflow_m3s, series.extrapolated, points.riseStart_ms, points.runoffEnd_ms);
+  return runoffRange({
+    volume_m3: result.summary.directVolume_m3,
+    methods,
+    ...(standardError_pct !== undefined && { standardError_pct }),
+    extrapolatedShare: share,
+    keyPointVolumes_m3: keyPointVolumes(series, points, result, area_km2),
+  });
 }
 
-/**
- * The range of a direct runoff volume (m³) given the volumes of every method (m³) and the rating's
- * standard error (percent, log space). A rating error moves every discharge of the storm by the same
- * factor f = 1 + se/100 (one rating, one bias: the case that matters for a volume); every separation
- * method here is linear in the discharges (scaling Q by f scales baseflow by f), so the direct volume
- * moves by the same factor: V/f to V·f.
- */
-export function runoffRange(volume_m3: number, methodVolumes_m3: readonly number[], se_pct: number): RunoffRange {
-  if (!(se_pct >= 0) || !Number.isFinite(se_pct)) throw new RangeError(`The rating's standard error must be 0 % or more; got ${se_pct}`);
-  const f = 1 + se_pct / 100;
-  const all = [volume_m3, ...methodVolumes_m3.filter((v) => Number.isFinite(v))];
-  const lowM = Math.min(...all);
-  const highM = Math.max(...all);
-  return {
-    volume_m3,
-    rating: { low_m3: volume_m3 / f, high_m3: volume_m3 * f },
-    methods: { low_m3: lowM, high_m3: highM },
-    low_m3: lowM / f,
-    high_m3: highM * f,
+/** The chosen method's volume (m³) with the rise start and the end of runoff each moved by the tolerance. */
+function keyPointVolumes(series: StormSeries, points: EventPoints, result: StormResult, area_km2: number | undefined): number[] {
+  const t = series.time_ms;
+  const at = (ms: number) => {
+    let i = 0;
+    while (i + 1 < t.length && t[i + 1] <= ms) i++;
+    return i;
   };
+  const a = at(points.riseStart_ms);
+  const c = at(points.runoffEnd_ms);
+  const p = at(points.peak_ms);
+  const volumes: number[] = [];
+  for (const [da, dc] of [[-1, 0], [1, 0], [0, -1], [0, 1]] as const) {
+    const ia = Math.min(Math.max(0, a + da * KEY_POINT_TOLERANCE_READINGS), p);
+    const ic = Math.max(Math.min(t.length - 1, c + dc * KEY_POINT_TOLERANCE_READINGS), at(points.inflection_ms));
+    if (ia === a && ic === c) continue;
+    const moved = { ...points, riseStart_ms: t[ia], runoffEnd_ms: t[ic] };
+    const r = analyse(series, moved, result.method, area_km2, undefined);
+    if (r.ok) volumes.push(r.value.summary.directVolume_m3);
+  }
+  return volumes;
 }
 
 /** A figure rounded to `digits` significant figures, for "about" sentences (0 stays 0). */

@@ -15,7 +15,7 @@ import { methodFor, minimaWindow_days, usesKeyPoints, usesMinima } from './metho
 import { MethodSpreadTable } from './method-spread';
 import { everyMethod, methodSpread } from './method-table';
 import { ResultsStrip } from './results-strip';
-import { DEFAULT_RATING_SE_PCT, runoffRange } from './runoff-range';
+import { stormRange } from './runoff-range';
 import { SavedAnalyses } from './saved-analyses';
 import { StormActions } from './storm-actions';
 import { StormList } from './storm-list';
@@ -124,18 +124,18 @@ export function SiteStorm({ site }: { site: SiteRecord }) {
   const all = useMemo(() => (series && points ? everyMethod(series, points, area, draft.method) : undefined), [series, points, area, draft.method]);
   const spread = useMemo(() => (all ? methodSpread(all) : undefined), [all]);
 
-  // The rating behind the peak reading gives the standard error; a rating without fit statistics gets the stated default.
-  const se = useMemo(() => {
+  // The rating behind the peak reading gives the standard error; a rating without fit statistics has none (the range states its default).
+  const se = useMemo((): { pct?: number } | undefined => {
     const window = rows.state === 'ready' ? rows.value : undefined;
     if (!window || !series || !points || ratings.state !== 'ready') return undefined;
     const at = nearestIndex(window.time_ms, points.peak_ms);
     const id = window.ratingIds[window.ratingIndex[at]];
     const pct = ratings.value.find((r) => r.id === id)?.fit?.standardError_pct;
-    return pct === undefined ? { pct: DEFAULT_RATING_SE_PCT, isDefault: true } : { pct: Number(pct.toPrecision(2)), isDefault: false };
+    return pct === undefined ? {} : { pct };
   }, [rows, series, points, ratings]);
   const range = useMemo(
-    () => (result?.ok && all && se ? runoffRange(result.value.summary.directVolume_m3, all.flatMap((r) => (r.volume_m3 === undefined ? [] : [r.volume_m3])), se.pct) : undefined),
-    [result, all, se],
+    () => (series && points && result?.ok && all && se ? stormRange(series, points, result.value, all, se.pct, area) : undefined),
+    [series, points, result, all, se, area],
   );
   const flags = useMemo(() => {
     if (!series || !points) return { peak: false, volume: false };
@@ -311,7 +311,7 @@ export function SiteStorm({ site }: { site: SiteRecord }) {
         </div>
       )}
 
-      {all && points && <MethodSpreadTable rows={all} spread={spread} chosen={draft.method.kind} units={units} range={range} se={se} />}
+      {all && points && <MethodSpreadTable rows={all} spread={spread} chosen={draft.method.kind} units={units} range={range} />}
 
       {series && points && (
         <details class="card storm-method" open={!usesKeyPoints(draft.method.kind)}>
@@ -353,7 +353,6 @@ export function SiteStorm({ site }: { site: SiteRecord }) {
           series={series}
           rainfall_mm={rainfall_mm}
           rangeLine={range}
-          se={se}
           plot={() => api.current}
         />
       )}

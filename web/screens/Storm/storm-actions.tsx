@@ -29,7 +29,6 @@ export interface StormActionsProps {
   series: StormSeries;
   rainfall_mm?: number;
   rangeLine?: RunoffRange;
-  se?: { pct: number; isDefault: boolean };
   plot: () => PlotApi | undefined;
 }
 

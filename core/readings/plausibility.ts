@@ -31,7 +31,15 @@ export interface ReadingCheckInput {
 /** Discharge (m³/s, NaN when no rating is in force), shift (m), extrapolated flag and rating of the reading, and the warnings. */
 export interface ReadingCheck extends StageDischarge {
   warnings: ReadingWarning[];
+  /**
+   * Set when the stage is far outside what the site has seen (DOMAIN.md §1): a question to ask before saving,
+   * as for a time far ahead; a reading is never saved on this warning alone.
+   */
+  slip?: string;
 }
+
+/** A stage above this many times the highest gauged stage is taken for a typing slip until confirmed. */
+export const SLIP_FACTOR = 2;
 
 /** A time more than this far ahead of the device clock is flagged as in the future (ms). */
 export const FUTURE_TOLERANCE_MS = 5 * 60_000;
@@ -82,5 +90,10 @@ export function checkReading(input: ReadingCheckInput): ReadingCheck {
   if (time_ms > now_ms + FUTURE_TOLERANCE_MS) {
     warnings.push({ code: 'future', text: `The time is ${durationText(time_ms - now_ms)} ahead of this phone's clock.` });
   }
-  return { ...q, warnings };
+  const hi = rating?.gaugedRange_m?.[1];
+  const slip =
+    hi !== undefined && hi > 0 && stage_m > SLIP_FACTOR * hi
+      ? `A stage of ${stageText(stage_m, units)} is more than ${SLIP_FACTOR} times the highest gauged stage (${stageText(hi, units)}). Is it a typing slip? Check the number before saving.`
+      : undefined;
+  return { ...q, warnings, ...(slip && { slip }) };
 }

@@ -48,3 +48,18 @@ describe('checkReading', () => {
     expect(() => checkReading({ ...base, stage_m: 1, jumpLimit_m: 0 })).toThrow(/jump limit/);
   });
 });
+
+describe('a stage far outside what the site has seen (DOMAIN.md §1: ask before saving)', () => {
+  const gaugedTo14: Rating = { segments: [{ fromStage_m: 0.1, coefficient: 4, offset_m: 0.1, exponent: 1.8 }], gaugedRange_m: [0.2, 1.4] };
+  const ratings = [{ ...gaugedTo14, id: 'r2', validFrom_ms: NOW - 365 * 86_400_000, shifts: [] }];
+  // Issue 20's slip: 45 m at a site gauged to 1.4 m; the rule's line is twice the highest gauged stage (2.8 m).
+  it('asks about 45 m at a site gauged to 1.4 m', () => {
+    const r = checkReading({ ...base, stage_m: 45, ratings });
+    expect(r.slip).toBe('A stage of 45.000 m is more than 2 times the highest gauged stage (1.400 m). Is it a typing slip? Check the number before saving.');
+  });
+  it('does not ask inside twice the gauged range, nor without a rating', () => {
+    expect(checkReading({ ...base, stage_m: 2.8, ratings }).slip).toBeUndefined();
+    expect(checkReading({ ...base, stage_m: 2.81, ratings }).slip).toBeDefined();
+    expect(checkReading({ ...base, stage_m: 45, ratings: [] }).slip).toBeUndefined();
+  });
+});

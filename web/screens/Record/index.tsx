@@ -4,21 +4,23 @@
 // first keystroke; the draft is removed in the same transaction that stores the reading.
 import { useEffect, useMemo, useReducer, useRef, useState } from 'preact/hooks';
 import {
-  checkReading, displayUnit, hasDischarge, MS_PER_DAY, READING_QUALITIES, READING_SOURCES, RecordValidationError, STAGE_DECIMALS,
-  toDisplay, toLocalInput, type ReadingQuality, type ReadingSource, type SiteRecord,
+  checkReading, hasDischarge, MS_PER_DAY, RecordValidationError, STAGE_DECIMALS, toDisplay, toLocalInput, type SiteRecord,
 } from '../../../core';
 import {
   deleteReading, getReading, getSite, listRatings, readingBefore, saveReading, StorageError,
 } from '../../db';
 import { useRecords } from '../../db/use-records';
 import { Cautions } from '../../components/Cautions';
-import { TimeChoice } from '../../components/TimeChoice';
-import { locationProblem, plainError } from '../../plain-words';
+import { plainError } from '../../plain-words';
 import { LoggerCheck, loggerCheckValue } from '../../components/LoggerCheck';
-import { describedBy, Field } from '../../components/Field';
 import { formatQuantity, formatTime } from '../../format';
 import { href, navigate, type ScreenProps } from '../../router';
 import { ChooseSite } from './choose-site';
+import { StageField } from './stage-field';
+import { LocationField } from './location-field';
+import { SaveBar, type BarMessage } from './save-bar';
+import { useClock } from './use-clock';
+import { nextOnEnter, ObserverNote, SourceQuality, TimeField } from './fields';
 import { restorableDrafts, useKeptDraft } from '../../app/use-kept-draft';
 import { blankForm, formOfReading, formReducer, fromDraftFields, hasContent, stageOf, timeOf, toDraftFields } from './form';
 import './style.css';
@@ -27,25 +29,12 @@ const OBSERVER_KEY = 'freshet.observer';
 /** How long "Saved" offers its undo, ms. */
 const UNDO_MS = 8_000;
 
-const SOURCE_LABELS: Record<ReadingSource, string> = { staff: 'Staff gauge', 'wire-weight': 'Wire-weight gauge', 'crest-stage': 'Crest-stage gauge', logger: 'Logger display' };
-const QUALITY_LABELS: Record<ReadingQuality, string> = { good: 'Good', fair: 'Fair', poor: 'Poor', estimated: 'Estimated' };
-
 function rememberedObserver(): string {
   try {
     return localStorage.getItem(OBSERVER_KEY) ?? '';
   } catch {
     return '';
   }
-}
-
-/** Ticks every 30 s so a time that follows the clock stays current. */
-function useClock(): number {
-  const [now, setNow] = useState(Date.now());
-  useEffect(() => {
-    const t = setInterval(() => setNow(Date.now()), 30_000);
-    return () => clearInterval(t);
-  }, []);
-  return now;
 }
 
 /** The reading form for one site; with readingId it edits that reading. */
@@ -58,7 +47,8 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   const [saved, setSaved] = useState<{ text: string; id?: string }>();
   const [error, setError] = useState<{ field?: string; text: string }>();
   const [futureOk, setFutureOk] = useState<number>();
-  const [gpsState, setGpsState] = useState<string>();
+  /** The stage (m) the user said is right after the slip question. */
+  const [slipOk, setSlipOk] = useState<number>();
   /** Which instant the user picked for a time the clocks skipped or repeated (kept while the text is the same). */
   const [timeChoice, setTimeChoice] = useState<{ text: string; time_ms: number }>();
   const draft = useKeptDraft(form, ready, {
@@ -67,7 +57,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   });
   const stageInput = useRef<HTMLInputElement>(null);
   const noteInput = useRef<HTMLTextAreaElement>(null);
-  const now = useClock();
+  const { now, tick } = useClock();
 
   // Open: restore this form's draft (of this tab, or of a tab that is gone), or load the reading edited.
   useEffect(() => {
@@ -113,7 +103,9 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
   const context = useRecords(
     async () => {
       if (t === undefined) return undefined;
-      const [ratings, previous] = await Promise.all([listRatings(site.id), readingBefore(site.id, t, readingId)]);
+      // Following the clock, "previous" is the latest reading up to this moment, so one saved seconds ago counts.
+      const before = 'followsClock' in time && time.followsClock ? Date.now() + 1 : t;
+      const [ratings, previous] = await Promise.all([listRatings(site.id), readingBefore(site.id, before, readingId)]);
       return { ratings, previous };
     },
     ['rating', 'reading'],
@@ -155,16 +147,35 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       setError({ field: 'future', text: `The time ${formatTime(t, site.timeZone)} is more than a day ahead of this phone's clock. Check the date.` });
       return;
     }
+    // A stage far outside what the site has seen is a slip until the user says otherwise (DOMAIN.md §1).
+    if (check.slip && slipOk !== stage.stage_m) {
+      setError({ field: 'slip', text: check.slip });
+      return;
+    }
     setSaving(true);
     setError(undefined);
     try {
+      // A reading following the clock is stamped with the instant of Save (DOMAIN.md §1), and checked again
+      // there, so readings saved within one minute keep their order and "previous" is the one just before.
+      const instant = Date.now();
+      const followsClock = 'followsClock' in time && time.followsClock;
+      const at = followsClock ? instant : t;
+      const checked = followsClock && context.state === 'ready' && context.value
+        ? await (async () => {
+          const previous = await readingBefore(site.id, at, readingId);
+          return checkReading({
+            stage_m: stage.stage_m, time_ms: at, now_ms: instant, jumpLimit_m: site.jumpLimit_m, units: u, ratings: context.value!.ratings,
+            previous: previous && { stage_m: previous.stage_m, time_ms: previous.time_ms },
+          });
+        })()
+        : check;
       await draft.flush(); // the draft stays until the reading itself is stored, in the same transaction
       draft.pause(true);
       const record = await saveReading(
         {
           ...(form.editing && { id: form.editing.id }),
-          siteId: site.id, time_ms: t, stage_m: stage.stage_m, source: form.source, quality: form.quality,
-          observer: form.observer.trim(), note: form.note.trim(), warnings: check.warnings.map((w) => w.text),
+          siteId: site.id, time_ms: at, stage_m: stage.stage_m, source: form.source, quality: form.quality,
+          observer: form.observer.trim(), note: form.note.trim(), warnings: checked.warnings.map((w) => w.text),
           ...(form.gps && { gps: form.gps }),
           ...(loggerCheck && 'logger_m' in loggerCheck && { loggerCheck: { logger_m: loggerCheck.logger_m } }),
         },
@@ -176,10 +187,12 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       } catch {
         // No local storage: the observer is simply not remembered.
       }
-      const q = !hasDischarge(check.discharge_m3s) ? 'no discharge (no rating)' : formatQuantity('discharge', check.discharge_m3s, u) + (check.extrapolated ? ', extrapolated' : '');
+      const q = !hasDischarge(checked.discharge_m3s) ? 'no discharge (no rating)' : formatQuantity('discharge', checked.discharge_m3s, u) + (checked.extrapolated ? ', extrapolated' : '');
       const text = `Saved: ${formatQuantity('stage', record.stage_m, u)} at ${formatTime(record.time_ms, site.timeZone)}, ${q}.`;
       setRestoredAt(undefined);
       setFutureOk(undefined);
+      setSlipOk(undefined);
+      tick();
       if (form.editing) navigate(href('sites', site.id), true);
       else {
         const next = formReducer(form, { type: 'saved' });
@@ -207,35 +220,21 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
     }
   }
 
-  function addLocation() {
-    if (!('geolocation' in navigator)) {
-      setGpsState('This phone gives no location to the browser.');
-      return;
-    }
-    setGpsState('Finding your location…');
-    navigator.geolocation.getCurrentPosition(
-      (p) => {
-        dispatch({ type: 'gps', value: { lat: p.coords.latitude, lon: p.coords.longitude, accuracy_m: p.coords.accuracy, time_ms: Math.round(p.timestamp) } });
-        setGpsState(undefined);
-      },
-      (err) => setGpsState(`${locationProblem(err)} The reading can be saved without it.`),
-      { enableHighAccuracy: true, timeout: 30_000, maximumAge: 60_000 },
-    );
-  }
-
-  /** The enter key moves to the next field; it never saves (Save is its own button in the bar). */
-  function nextOnEnter(e: KeyboardEvent) {
-    if (e.key !== 'Enter' || e.target instanceof HTMLTextAreaElement || e.target instanceof HTMLButtonElement) return;
-    e.preventDefault();
-    const fields = [...(e.currentTarget as HTMLFormElement).querySelectorAll<HTMLElement>('input, select, textarea')];
-    fields[fields.indexOf(e.target as HTMLElement) + 1]?.focus();
-  }
-
   if (!ready) return <p aria-busy="true">Opening the form…</p>;
   const stageError = 'error' in stage ? stage.error : error?.field === 'stage' ? error.text : undefined;
   const timeError = 'error' in time ? time.error : error?.field === 'time' ? error.text : undefined;
-  const unit = displayUnit('stage', u);
-  const discharge = !check ? 'Discharge: type the stage' : !hasDischarge(check.discharge_m3s) ? 'No discharge' : formatQuantity('discharge', check.discharge_m3s, u);
+  const barMessage: BarMessage | undefined =
+    !error || error.field === 'stage' || error.field === 'time' || error.field === 'logger-value'
+      ? undefined
+      : error.field === 'future' && t !== undefined
+        ? { text: error.text, answer: { label: 'Keep this time', onAnswer: () => setFutureOk(t) } }
+        : error.field === 'slip' && 'stage_m' in stage
+          ? { text: error.text, answer: { label: 'Keep this stage', onAnswer: () => { setSlipOk(stage.stage_m); setError(undefined); } } }
+          : { text: error.text };
+  /** A field's error goes as soon as the field is edited; the check runs again on Save. */
+  const clearFor = (...fields: string[]) => {
+    if (error?.field !== undefined && fields.includes(error.field)) setError(undefined);
+  };
   return (
     <form class="record" onSubmit={onSave} onKeyDown={nextOnEnter} noValidate>
       <h2 id="screen-title" tabIndex={-1}>{form.editing ? 'Edit reading' : 'New reading'}</h2>
@@ -246,119 +245,34 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
           <button type="button" onClick={() => { dispatch({ type: 'replace', form: blankForm(form.observer) }); setRestoredAt(undefined); setError(undefined); }}>Start over</button>
         </p>
       )}
-      <Field id="stage" label={`Stage (${unit})`} error={stageError}>
-        <input
-          id="stage"
-          ref={stageInput}
-          class="big"
-          type="text"
-          inputMode="decimal"
-          autoComplete="off"
-          enterKeyHint="next"
-          placeholder={u === 'us' ? '0.00' : '0.000'}
-          value={form.stageText}
-          aria-invalid={stageError ? true : undefined}
-          aria-describedby={describedBy('stage', false, !!stageError)}
-          onInput={(e) => dispatch({ type: 'set', field: 'stageText', value: e.currentTarget.value })}
-        />
-      </Field>
-      {check && (
-        <section class="live card" aria-label="Discharge details">
-          {hasDischarge(check.discharge_m3s) && check.warnings.every((w) => w.code !== 'extrapolated' && w.code !== 'below-zero-flow') && (
-            <p class="callout ok">Within the gauged range of the rating.</p>
-          )}
-          {check.shift_m !== 0 && <p class="muted">Includes a shift of {formatQuantity('stage', check.shift_m, u)}.</p>}
-          {check.warnings.map((w) => (
-            <p key={w.code} class="callout warn" data-warning={w.code}>
-              {w.text}
-              {w.code === 'jump' && <> <button type="button" onClick={() => noteInput.current?.focus()}>Add a note</button></>}
-            </p>
-          ))}
-          {check.warnings.length > 0 && <p class="hint">Warnings do not stop saving; they are stored with the reading.</p>}
-        </section>
-      )}
-      <Field id="time" label={`Time (${site.timeZone})`} hint={'followsClock' in time && time.followsClock ? 'now: follows the clock until you change it' : undefined} error={timeError}>
-        <div class="row">
-          <input
-            id="time"
-            type="datetime-local"
-            value={form.timeText || toLocalInput(now, site.timeZone)}
-            aria-invalid={timeError ? true : undefined}
-            aria-describedby={describedBy('time', 'followsClock' in time && time.followsClock, !!timeError)}
-            onInput={(e) => dispatch({ type: 'set', field: 'timeText', value: e.currentTarget.value })}
-          />
-          {!('followsClock' in time && time.followsClock) && <button type="button" style="flex:0 0 auto" onClick={() => dispatch({ type: 'set', field: 'timeText', value: '' })}>Now</button>}
-        </div>
-        {'ask' in time && time.ask && (
-          <TimeChoice
-            id="time-choice"
-            typed={form.timeText}
-            answer={time.ask}
-            timeZone={site.timeZone}
-            chosen_ms={'time_ms' in time ? time.time_ms : undefined}
-            onChoose={(time_ms) => {
-              setTimeChoice({ text: form.timeText, time_ms });
-              if (error?.field === 'time') setError(undefined);
-            }}
-          />
-        )}
-      </Field>
-      <div class="row two">
-        <Field id="source" label="Read from">
-          <select id="source" value={form.source} onChange={(e) => dispatch({ type: 'source', value: e.currentTarget.value as ReadingSource })}>
-            {READING_SOURCES.map((s) => <option key={s} value={s}>{SOURCE_LABELS[s]}</option>)}
-          </select>
-        </Field>
-        <Field id="quality" label="Quality">
-          <select id="quality" value={form.quality} onChange={(e) => dispatch({ type: 'quality', value: e.currentTarget.value as ReadingQuality })}>
-            {READING_QUALITIES.map((q) => <option key={q} value={q}>{QUALITY_LABELS[q]}</option>)}
-          </select>
-        </Field>
-      </div>
+      <StageField inputRef={stageInput} text={form.stageText} units={u} error={stageError} check={check}
+        onText={(text) => {
+          clearFor('stage', 'slip');
+          dispatch({ type: 'set', field: 'stageText', value: text });
+        }}
+        onAddNote={() => noteInput.current?.focus()} />
+      <TimeField time={time} timeText={form.timeText} timeZone={site.timeZone} now={now} error={timeError}
+        onText={(text) => {
+          clearFor('time', 'future');
+          dispatch({ type: 'set', field: 'timeText', value: text });
+        }}
+        onChoose={(time_ms) => {
+          setTimeChoice({ text: form.timeText, time_ms });
+          clearFor('time');
+        }} />
+      <SourceQuality source={form.source} quality={form.quality}
+        onSource={(value) => dispatch({ type: 'source', value })} onQuality={(value) => dispatch({ type: 'quality', value })} />
       <LoggerCheck value={form.loggerCheckText} stage_m={'stage_m' in stage ? stage.stage_m : undefined} units={u}
-        error={error?.field === 'logger-value' ? error.text : undefined} onChange={(value) => dispatch({ type: 'loggerCheck', value })} />
-      <Field id="observer" label="Observer">
-        <input id="observer" autoComplete="name" enterKeyHint="next" value={form.observer} onInput={(e) => dispatch({ type: 'set', field: 'observer', value: e.currentTarget.value })} />
-      </Field>
-      <div class={jump ? 'note-wanted' : undefined}>
-        <Field id="note" label="Note" hint={jump ? 'say why the stage jumped, if it is right' : 'conditions: debris on the control, weed, ice, high water…'}>
-          <textarea id="note" ref={noteInput} value={form.note} aria-describedby="note-hint" onInput={(e) => dispatch({ type: 'set', field: 'note', value: e.currentTarget.value })} />
-        </Field>
-      </div>
-      {form.gps ? (
-        <p class="callout" data-testid="gps">
-          Location {form.gps.lat.toFixed(5)}, {form.gps.lon.toFixed(5)} (± {Math.round(form.gps.accuracy_m)} m){' '}
-          <button type="button" onClick={() => dispatch({ type: 'gps', value: undefined })}>Remove location</button>
-        </p>
-      ) : (
-        <button type="button" class="wide" onClick={addLocation}>Add location</button>
-      )}
-      {gpsState && <p class="muted" role="status">{gpsState}</p>}
+        error={error?.field === 'logger-value' ? error.text : undefined} onChange={(value) => {
+          clearFor('logger-value');
+          dispatch({ type: 'loggerCheck', value });
+        }} />
+      <ObserverNote observer={form.observer} note={form.note} jump={jump} noteRef={noteInput}
+        onObserver={(value) => dispatch({ type: 'set', field: 'observer', value })} onNote={(value) => dispatch({ type: 'set', field: 'note', value })} />
+      <LocationField value={form.gps} onChange={(value) => dispatch({ type: 'gps', value })} />
       <p><a href={href('sites', site.id)}>Readings of this site</a></p>
       <Cautions compact />
-      <div class="savebar" data-testid="savebar">
-        <div aria-live="polite">
-          {saved && (
-            <p class="callout ok" role="status" data-testid="saved">
-              {saved.text}
-              {saved.id && <> <button type="button" onClick={() => void undoSave(saved.id!)}>Undo</button></>}
-            </p>
-          )}
-          {error && error.field !== 'stage' && error.field !== 'time' && error.field !== 'logger-value' && (
-            <p class="callout bad" role="alert">
-              {error.text}
-              {error.field === 'future' && t !== undefined && <> <button type="button" onClick={() => setFutureOk(t)}>Keep this time</button></>}
-            </p>
-          )}
-        </div>
-        <div class="row">
-          <p class="figure" aria-live="polite" aria-label="Discharge">
-            <span data-testid="discharge">{discharge}</span>
-            {check?.extrapolated && <> <span class="tag">extrapolated</span></>}
-          </p>
-          <button type="submit" class="primary save" disabled={saving}>{saving ? 'Saving…' : form.editing ? 'Save changes' : 'Save reading'}</button>
-        </div>
-      </div>
+      <SaveBar saved={saved} onUndo={(id) => void undoSave(id)} message={barMessage} check={check} units={u} saving={saving} editing={!!form.editing} />
     </form>
   );
 }

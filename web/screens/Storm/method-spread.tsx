@@ -49,15 +49,15 @@ export function MethodSpreadTable({ rows, spread, chosen, units, range }: Method
         <tbody>
           {rows.map((r) => (
             <tr key={r.kind} data-method={r.kind} class={r.kind === chosen ? 'chosen' : undefined}>
-              <th scope="row">{METHOD_LABELS[r.kind]}{r.kind === chosen ? ' (chosen)' : ''}</th>
+              <th scope="row">
+                {METHOD_LABELS[r.kind]}{r.kind === chosen ? ' (chosen)' : ''}
+                {r.leftOut && r.volume_m3 !== undefined && <span class="left-out" data-testid="left-out"> Not in the range: {r.leftOut}</span>}
+              </th>
               {r.volume_m3 === undefined ? (
                 <td colSpan={2} class="problem">{r.problem}</td>
               ) : (
                 <>
-                  <td data-testid="spread-volume">
-                    {formatQuantity('volume', r.volume_m3, units)}
-                    {r.leftOut && <span class="left-out"> (not in the range: {r.leftOut})</span>}
-                  </td>
+                  <td data-testid="spread-volume">{formatQuantity('volume', r.volume_m3, units)}</td>
                   <td>{r.depth_mm === undefined ? '—' : formatQuantity('depth', r.depth_mm, units)}</td>
                 </>
               )}

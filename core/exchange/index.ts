@@ -2,7 +2,7 @@
 export { CSV_BOM, csvField, csvDocument, csvTable, csvNumber, textField, looksLikeFormula, type CsvColumn, type CsvColumnKind } from './csv-write';
 export { readingsToCsv, type ReadingCsvOptions, type ReadingExportRow } from './readings-csv';
 export { gaugingsToCsv, type SiteCsvOptions } from './gaugings-csv';
-export { ratingSegmentsToCsv, ratingTablesToCsv, RATING_TABLE_HEADROOM_M } from './ratings-csv';
+export { printedRatingTable, ratingSegmentsToCsv, ratingTablesToCsv, RATING_TABLE_HEADROOM_M, type RatingTableCsvOptions } from './ratings-csv';
 export { stormToCsv, type SeparatedStorm } from './storm-csv';
 export { BUNDLE_FORMAT, BUNDLE_VERSION, BundleError, bundleChecksum, makeBundle, parseBundle, type Bundle, type BundleErrorReason, type BundleInput } from './bundle';
 export { sha256Hex, utf8Bytes } from './sha256';

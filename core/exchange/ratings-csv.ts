@@ -1,7 +1,7 @@
 // Ratings as CSV tables for office systems: the power-law segments with their coefficients (SI), and
 // each rating as a stage–discharge table. RFC 4180, UTF-8 with a byte-order mark, units in the header.
 import { displayUnit, fromDisplay, toDisplay } from '../units';
-import { ratingTable, zeroFlowStage_m } from '../rating/index';
+import { dischargeAt, isExtrapolated, RATING_TABLE_MAX_ROWS, zeroFlowStage_m } from '../rating/index';
 import { toIsoWithOffset } from '../time/index';
 import type { RatingRecord } from '../records/index';
 import { csvNumber, csvTable, type CsvColumn } from './csv-write';
@@ -45,32 +45,66 @@ export function ratingSegmentsToCsv(ratings: readonly RatingRecord[], options: S
   return csvTable(columns, rows);
 }
 
+/** Options of one printed rating table: first and last stage (m) and the step in display units. */
+export interface RatingTableCsvOptions extends SiteCsvOptions {
+  /** Lowest stage wanted, m; default the gauge height of zero flow. Rows start at the first round stage at or above it. */
+  from_m?: number;
+  /** Highest stage, m; default the gauged range's top plus RATING_TABLE_HEADROOM_M. */
+  top_m?: number;
+  /** Step in display units; default 0.01 m or 0.05 ft. */
+  step?: number;
+}
+
+/** Decimals a printed stage keeps: 4 in metres, 3 in feet. */
+function stageDecimals(units: SiteCsvOptions['units']): number {
+  return units === 'us' ? 3 : 4;
+}
+
 /**
- * Each rating as a stage–discharge table (no shift applied), oldest rating first: from the gauge height
- * of zero flow up to top_m (m; default the gauged range's top plus RATING_TABLE_HEADROOM_M) every step
- * (in display units: 0.01 m or 0.05 ft by default), with the extrapolated rows marked.
+ * The printed rows of one rating's table (no shift applied): from the first round stage (a whole number
+ * of steps, in display units) at or above from_m up to top_m; each discharge is that of the stage as
+ * printed, so a row can be checked by hand from the equation; the zero-flow row is not extrapolated.
  */
-export function ratingTablesToCsv(ratings: readonly RatingRecord[], options: SiteCsvOptions & { top_m?: number; step?: number }): string {
+export function printedRatingTable(rating: RatingRecord, options: RatingTableCsvOptions): string[][] {
   const { units, timeZone, siteCode } = options;
-  const h = displayUnit('stage', units);
-  const q = displayUnit('discharge', units);
-  const step_m = fromDisplay('stage', options.step ?? (units === 'us' ? 0.05 : 0.01), units);
-  const columns: CsvColumn[] = [
-    { name: 'site', kind: 'text' }, { name: 'rating_id', kind: 'text' }, { name: 'valid_from', kind: 'time' },
-    { name: `stage_${h}`, kind: 'number' }, { name: `discharge_${q}`, kind: 'number' }, { name: 'extrapolated', kind: 'text' },
-  ];
-  const rows: string[][] = [];
-  for (const r of byStart(ratings)) {
-    const from_m = zeroFlowStage_m(r);
-    const lastBreak = r.segments[r.segments.length - 1].fromStage_m;
-    const top_m = options.top_m ?? Math.max(r.gaugedRange_m?.[1] ?? lastBreak, lastBreak, from_m) + RATING_TABLE_HEADROOM_M;
-    const from = toIsoWithOffset(r.validFrom_ms, timeZone);
-    for (const row of ratingTable(r, from_m, Math.max(top_m, from_m), step_m)) {
-      rows.push([
-        siteCode, r.id, from, toDisplay('stage', row.stage_m, units).toFixed(units === 'us' ? 3 : 4),
-        csvNumber(toDisplay('discharge', row.discharge_m3s, units), 6), row.extrapolated ? 'yes' : 'no',
-      ]);
-    }
+  const step = options.step ?? (units === 'us' ? 0.05 : 0.01);
+  const decimals = stageDecimals(units);
+  const from_m = options.from_m ?? zeroFlowStage_m(rating);
+  const lastBreak = rating.segments[rating.segments.length - 1].fromStage_m;
+  const top_m = Math.max(options.top_m ?? Math.max(rating.gaugedRange_m?.[1] ?? lastBreak, lastBreak, from_m) + RATING_TABLE_HEADROOM_M, from_m);
+  // Whole steps in display units; the slack keeps 0.3/0.1 = 2.999… from skipping a row.
+  const first = Math.ceil(toDisplay('stage', from_m, units) / step - 1e-9);
+  const last = Math.floor(toDisplay('stage', top_m, units) / step + 1e-9);
+  if (last - first + 1 > RATING_TABLE_MAX_ROWS) {
+    throw new RangeError(`A rating table would have ${last - first + 1} rows; at most ${RATING_TABLE_MAX_ROWS} are allowed, so use a larger step`);
   }
-  return csvTable(columns, rows);
+  const validFrom = toIsoWithOffset(rating.validFrom_ms, timeZone);
+  const rows: string[][] = [];
+  for (let k = first; k <= last; k++) {
+    const printed = (k * step).toFixed(decimals);
+    const stage_m = fromDisplay('stage', Number(printed), units);
+    const q = dischargeAt(rating, stage_m);
+    const extrapolated = q > 0 && isExtrapolated(rating, stage_m);
+    rows.push([siteCode, rating.id, validFrom, printed, csvNumber(toDisplay('discharge', q, units), 6), extrapolated ? 'yes' : 'no']);
+  }
+  return rows;
+}
+
+/** The columns of a printed rating table: site, rating, start, stage and discharge in display units, extrapolated. */
+function tableColumns(units: SiteCsvOptions['units']): CsvColumn[] {
+  return [
+    { name: 'site', kind: 'text' }, { name: 'rating_id', kind: 'text' }, { name: 'valid_from', kind: 'time' },
+    { name: `stage_${displayUnit('stage', units)}`, kind: 'number' }, { name: `discharge_${displayUnit('discharge', units)}`, kind: 'number' },
+    { name: 'extrapolated', kind: 'text' },
+  ];
+}
+
+/**
+ * Ratings as stage–discharge tables, oldest rating first, one CSV (the one writer of a rating table: the
+ * export and the rating screen's "Share or save as CSV" both call it). See printedRatingTable for the rows.
+ */
+export function ratingTablesToCsv(ratings: readonly RatingRecord[], options: RatingTableCsvOptions): string {
+  const rows: string[][] = [];
+  for (const r of byStart(ratings)) rows.push(...printedRatingTable(r, options));
+  return csvTable(tableColumns(options.units), rows);
 }

@@ -41,11 +41,9 @@ export function ratingTable(rating: Rating, from_m: number, to_m: number, step_m
     // a nanometre then removes that last bit (0.1 + 2·0.1 is 0.30000000000000004), so a row on the edge
     // of the gauged range is not marked extrapolated by a rounding error.
     const stage = k === rows - 1 ? to_m : Math.round((from_m + k * step_m) * 1e9) / 1e9;
-    table.push({
-      stage_m: stage,
-      discharge_m3s: dischargeAt(rating, stage, shift_m),
-      extrapolated: isExtrapolated(rating, stage),
-    });
+    const discharge_m3s = dischargeAt(rating, stage, shift_m);
+    // Q = 0 at or below the zero-flow stage is exact, not extrapolated, wherever the gaugings lie.
+    table.push({ stage_m: stage, discharge_m3s, extrapolated: discharge_m3s > 0 && isExtrapolated(rating, stage) });
   }
   return table;
 }

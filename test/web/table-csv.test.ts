@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { M3S_PER_CFS, M_PER_FT, ratingTable } from '../../core';
-import { parseTableCsv, ratingTableCsv, TableCsvError } from '../../web/screens/Ratings/table-csv';
+import { dischargeAt, M3S_PER_CFS, M_PER_FT, ratingTablesToCsv, type RatingRecord } from '../../core';
+import { parseTableCsv, TableCsvError } from '../../web/screens/Ratings/table-csv';
 
 describe('parseTableCsv', () => {
   it('reads a headed table in the units the header names (NIST SP 811 factors, exact)', () => {
@@ -30,8 +30,16 @@ describe('parseTableCsv', () => {
     expect(fail('stage,discharge\n0.1,0\n0.2,1')).toMatch(/at least 3 lines/);
     expect(fail('')).toMatch(/^Line 1: the file is empty/);
   });
-  it('writes the rating table with the extrapolated rows marked (RFC 4180, CRLF)', () => {
-    const rows = ratingTable({ segments: [{ fromStage_m: 0.1, offset_m: 0.1, coefficient: 5, exponent: 2 }], gaugedRange_m: [0.2, 0.3] }, 0.1, 0.4, 0.1);
-    expect(ratingTableCsv(rows, 'metric')).toBe('stage (m),discharge (m3/s),extrapolated\r\n0.100,0,yes\r\n0.200,0.05,no\r\n0.300,0.2,no\r\n0.400,0.45,yes\r\n');
+  // The screen's CSV is core's one table writer; what it writes, the import reads back (round trip, exact
+  // to the printed digits: Q = 5·(h − 0.1)² by hand at the printed stages).
+  it('reads back the table the screen writes', () => {
+    const rating = {
+      id: 'r', siteId: 's', validFrom_ms: Date.UTC(2026, 0, 1), shifts: [], note: '', rev: '', updated_ms: 0,
+      segments: [{ fromStage_m: 0.1, offset_m: 0.1, coefficient: 5, exponent: 2 }], gaugedRange_m: [0.2, 0.3],
+    } as unknown as RatingRecord;
+    const csv = ratingTablesToCsv([rating], { units: 'metric', timeZone: 'UTC', siteCode: 'X-1', from_m: 0.1, top_m: 0.4, step: 0.1 });
+    const t = parseTableCsv(csv, 'metric');
+    expect(t.rows.map((r) => r.stage_m)).toEqual([0.1, 0.2, 0.3, 0.4]);
+    t.rows.forEach((r) => expect(r.discharge_m3s).toBeCloseTo(dischargeAt(rating, r.stage_m), 6));
   });
 });

@@ -144,3 +144,27 @@ describe('tables', () => {
     expect(() => stormToCsv({ series: { time_ms: [0], discharge_m3s: [1] }, baseflow_m3s: [], method: 'x' }, site)).toThrow(RangeError);
   });
 });
+
+describe('printed rating tables (issue 20)', () => {
+  // Invented rating with its zero-flow stage off the grid: e = 0.2153 m (0.706 ft).
+  const rating = {
+    id: 'r-us', siteId: 's', validFrom_ms: Date.UTC(2026, 0, 1), shifts: [], note: '', rev: '', updated_ms: 0,
+    segments: [{ fromStage_m: 0.2153, offset_m: 0.2153, coefficient: 7.3, exponent: 1.9 }], gaugedRange_m: [0.3, 0.9],
+  } as unknown as RatingRecord;
+  it('starts at the first round stage at or above the zero flow and gives the discharge of the printed stage', () => {
+    const { rows } = parse(ratingTablesToCsv([rating], { units: 'us', timeZone: 'UTC', siteCode: 'US-1' }));
+    // 0.2153 m = 0.70636 ft (NIST SP 811: 1 ft = 0.3048 m); the first whole 0.05 ft step above it is 0.750 ft
+    expect(rows[0]['stage_ft']).toBe('0.750');
+    for (const r of rows.slice(0, 30)) {
+      const h_m = Number(r['stage_ft']) * 0.3048;
+      const q = rating.segments[0].coefficient * Math.max(0, h_m - 0.2153) ** 1.9 / 0.028316846592; // by hand, in ft³/s
+      expect(Number(r['discharge_ft³/s'])).toBeCloseTo(q, 6 - Math.ceil(Math.log10(q)));
+    }
+  });
+  it('does not mark the zero-flow row extrapolated', () => {
+    const onGrid = { ...rating, segments: [{ ...rating.segments[0], fromStage_m: 0.2, offset_m: 0.2 }] } as RatingRecord;
+    const { rows } = parse(ratingTablesToCsv([onGrid], { units: 'metric', timeZone: 'UTC', siteCode: 'M-1' }));
+    expect(rows[0]).toMatchObject({ stage_m: '0.2000', 'discharge_m³/s': '0', extrapolated: 'no' });
+    expect(rows[1].extrapolated).toBe('yes'); // 0.21 m flows below the gauged 0.3 m
+  });
+});

@@ -23,7 +23,10 @@ describe('ratingTable', () => {
   // DOMAIN.md §2: every row outside the gauged range [0.6, 0.8] is marked extrapolated
   it('marks rows outside the gauged range', () => {
     const t = ratingTable(rating, 0.5, 0.9, 0.1);
-    expect(t.map((r) => r.extrapolated)).toEqual([true, false, false, false, true]);
+    // exact: the row at the offset 0.5 m has Q = 0 by the power law itself, so it is not extrapolated (issue 20)
+    expect(t.map((r) => r.extrapolated)).toEqual([false, false, false, false, true]);
+    // a flowing row below the gauged range still is
+    expect(ratingTable(rating, 0.55, 0.55, 0.1)[0].extrapolated).toBe(true);
   });
   // exact: a range that is not a whole number of steps still ends at to_m
   it('appends the end stage when the range is not a whole number of steps', () => {
@@ -54,6 +57,6 @@ describe('ratingTable rows on the edge of the gauged range', () => {
   it('does not mark a row at the top of the gauged range as extrapolated through rounding', () => {
     const rows = ratingTable({ segments: [{ fromStage_m: 0.1, offset_m: 0.1, coefficient: 5, exponent: 2 }], gaugedRange_m: [0.2, 0.3] }, 0.1, 0.4, 0.1);
     expect(rows.map((r) => r.stage_m)).toEqual([0.1, 0.2, 0.3, 0.4]);
-    expect(rows.map((r) => r.extrapolated)).toEqual([true, false, false, true]);
+    expect(rows.map((r) => r.extrapolated)).toEqual([false, false, false, true]); // 0.1 m is the zero-flow row
   });
 });

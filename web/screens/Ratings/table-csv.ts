@@ -1,6 +1,7 @@
-// Rating tables as CSV: reading one the office hands out (stage, discharge) and writing the app's table.
+// Rating tables as CSV: reading one the office hands out (stage, discharge). Writing one is core's
+// ratingTablesToCsv, the one writer for the export and the rating screen.
 // Pure: text in, rows out; every refusal names the line.
-import { csvDocument, M3S_PER_CFS, M_PER_FT, type RatingTableRow, type TableRow, type UnitSystem } from '../../../core';
+import { M3S_PER_CFS, M_PER_FT, type TableRow, type UnitSystem } from '../../../core';
 import { parseDecimal } from '../../format';
 
 /** The rows of a table CSV in SI, and the units its header said (or the site's when it said none). */
@@ -112,16 +113,4 @@ export function parseTableCsv(text: string, siteUnits: UnitSystem): ParsedTable 
   }
   if (rows.length < 3) throw new TableCsvError(lines.length, `a table needs at least 3 lines of stage and discharge; this one has ${rows.length}.`);
   return { rows, stageUnit, dischargeUnit };
-}
-
-/** A rating table as CSV in the site's units: stage, discharge, and "yes" where the row is extrapolated. */
-export function ratingTableCsv(rows: readonly RatingTableRow[], units: UnitSystem): string {
-  const us = units === 'us';
-  const out: string[][] = [[`stage (${us ? 'ft' : 'm'})`, `discharge (${us ? 'ft3/s' : 'm3/s'})`, 'extrapolated']];
-  for (const r of rows) {
-    const h = us ? r.stage_m / M_PER_FT : r.stage_m;
-    const q = us ? r.discharge_m3s / M3S_PER_CFS : r.discharge_m3s;
-    out.push([h.toFixed(us ? 2 : 3), Number(q.toPrecision(4)).toString(), r.extrapolated ? 'yes' : 'no']);
-  }
-  return csvDocument(out);
 }

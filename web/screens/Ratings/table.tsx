@@ -1,9 +1,8 @@
 // The rating table at a step of the user's choice, extrapolated rows marked; shared or saved as CSV.
 import { useMemo, useState } from 'preact/hooks';
-import { fromDisplay, ratingTable, toDisplay, type RatingRecord, type SiteRecord } from '../../../core';
+import { fromDisplay, ratingTable, ratingTablesToCsv, toDisplay, type RatingRecord, type SiteRecord } from '../../../core';
 import { Field } from '../../components/Field';
 import { formatQuantity, parseDecimal } from '../../format';
-import { ratingTableCsv } from './table-csv';
 
 /** The table of one rating, from its zero-flow stage (or gauged low) to above its gauged top. */
 export function RatingTableView({ site, rating }: { site: SiteRecord; rating: RatingRecord }) {
@@ -18,7 +17,7 @@ export function RatingTableView({ site, rating }: { site: SiteRecord; rating: Ra
   const [fromText, setFromText] = useState(fmt(lowDefault));
   const [toText, setToText] = useState(fmt(highDefault));
   const [message, setMessage] = useState<string>();
-  const table = useMemo((): { rows: ReturnType<typeof ratingTable> } | { error: string } => {
+  const table = useMemo((): { rows: ReturnType<typeof ratingTable>; from_m: number; to_m: number; step: number } | { error: string } => {
     const step = parseDecimal(stepText);
     const from = parseDecimal(fromText);
     const to = parseDecimal(toText);
@@ -26,13 +25,16 @@ export function RatingTableView({ site, rating }: { site: SiteRecord; rating: Ra
     if (from === undefined || to === undefined) return { error: `The table needs a first and last stage as numbers in ${su}.` };
     if (!(to >= from)) return { error: 'The last stage must not be below the first.' };
     if ((to - from) / step > 2000) return { error: 'That would be more than 2,000 rows; use a larger step or a shorter range.' };
-    return { rows: ratingTable(rating, fromDisplay('stage', from, u), fromDisplay('stage', to, u), fromDisplay('stage', step, u)) };
+    const from_m = fromDisplay('stage', from, u);
+    const to_m = fromDisplay('stage', to, u);
+    return { rows: ratingTable(rating, from_m, to_m, fromDisplay('stage', step, u)), from_m, to_m, step };
   }, [stepText, fromText, toText, rating, u, su]);
   const csvName = `${site.code.replace(/[^\w.-]+/g, '_')}-rating-table.csv`;
 
   async function share() {
     if (!('rows' in table)) return;
-    const file = new File([ratingTableCsv(table.rows, u)], csvName, { type: 'text/csv' });
+    const csv = ratingTablesToCsv([rating], { units: u, timeZone: site.timeZone, siteCode: site.code, from_m: table.from_m, top_m: table.to_m, step: table.step });
+    const file = new File([csv], csvName, { type: 'text/csv;charset=utf-8' });
     try {
       if (navigator.canShare?.({ files: [file] })) {
         await navigator.share({ files: [file], title: `${site.name} rating table` });

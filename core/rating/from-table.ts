@@ -14,7 +14,8 @@ export interface TableRow {
  * piece reaches down to the offset, the last one carries on above the top row (extrapolation).
  * Rows with zero discharge are allowed at the bottom only, at or below the offset. offset_m (m) is the
  * gauge height of zero flow; by default the highest stage with zero discharge in the table.
- * Every row is reproduced exactly (to rounding). Throws a RangeError naming the row that is wrong.
+ * Every row is reproduced exactly (to rounding); a zero-flow row above a given offset cannot be, and is
+ * refused. Throws a RangeError naming the row that is wrong.
  */
 export function ratingFromTable(rows: readonly TableRow[], offset_m?: number): Rating {
   if (!Array.isArray(rows)) throw new RangeError('ratingFromTable needs a list of (stage, discharge) rows');
@@ -37,6 +38,14 @@ export function ratingFromTable(rows: readonly TableRow[], offset_m?: number): R
     throw new RangeError('ratingFromTable needs the stage of zero flow: give an offset, or a row with discharge 0 at the bottom of the table');
   }
   requireFinite('ratingFromTable', 'offset_m', e);
+  // A dry row above the offset could not be reproduced: the first piece flows everywhere above the offset.
+  const dryAbove = rows.findIndex((r) => r.discharge_m3s === 0 && r.stage_m > e);
+  if (dryAbove >= 0) {
+    throw new RangeError(
+      `ratingFromTable cannot reproduce row ${dryAbove + 1}: it gives no flow at ${rows[dryAbove].stage_m} m, above the stage of zero flow ${e} m; ` +
+        `give the stage of zero flow at or above ${rows[dryAbove].stage_m} m, or remove that row`,
+    );
+  }
   if (!(e < flowing[0].stage_m)) {
     throw new RangeError(`ratingFromTable needs the offset below the lowest row with flow (${flowing[0].stage_m} m); got ${e} m`);
   }

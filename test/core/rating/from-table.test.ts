@@ -44,6 +44,15 @@ describe('ratingFromTable (log–log interpolation between rows)', () => {
     // a table carries no gauged range of its own: nothing is extrapolated until one is set
     expect(isExtrapolated(rating, 5)).toBe(false);
   });
+  // Issue 20: a dry row above a typed offset came back as 5.8e-6 m³/s; every row must be reproduced, so such a
+  // table is refused with the row and what to change (exact: Q > 0 everywhere above the offset of a power law).
+  it('refuses a zero-flow row above a typed offset rather than give it a flow', () => {
+    const table = [{ stage_m: 0.15, discharge_m3s: 0 }, { stage_m: 0.2, discharge_m3s: 0.05 }, { stage_m: 0.4, discharge_m3s: 0.9 }, { stage_m: 0.6, discharge_m3s: 2.4 }];
+    expect(() => ratingFromTable(table, 0.1)).toThrow(/cannot reproduce row 1: it gives no flow at 0\.15 m, above the stage of zero flow 0\.1 m; give the stage of zero flow at or above 0\.15 m, or remove that row/);
+    const kept = ratingFromTable(table, 0.15);
+    expect(dischargeAt(kept, 0.15)).toBe(0);
+    expect(dischargeAt(kept, 0.4)).toBeCloseTo(0.9, 12);
+  });
   it('refuses rows out of order, falling discharge and too few rows, naming the row (1-based)', () => {
     expect(() => ratingFromTable([rows[0], rows[2], rows[1]])).toThrow(/row 3 at 0\.3 m is not above row 2/);
     expect(() => ratingFromTable([{ stage_m: 0.1, discharge_m3s: 0 }, { stage_m: 0.2, discharge_m3s: 2 }, { stage_m: 0.3, discharge_m3s: 1 }])).toThrow(/row 3 has 1 m³\/s, not above row 2/);

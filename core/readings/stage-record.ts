@@ -14,8 +14,8 @@ export interface SpotSeries {
   source: ArrayLike<number>;
 }
 
-/** A logger day as the join reads it: the record body, and `deleted` when it travels as a tombstone. */
-export type StageLoggerDay = LoggerDayBody & { deleted?: boolean };
+/** A logger day as the join reads it: the record body, with its id, rev and `deleted` when it is a stored record. */
+export type StageLoggerDay = LoggerDayBody & { deleted?: boolean; id?: string; rev?: string };
 
 /** A site's stage record in time order: every spot reading and every logger value of the window. */
 export interface StageRecord {

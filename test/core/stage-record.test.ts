@@ -67,7 +67,7 @@ describe('the stage record with discharge', () => {
     const days = splitLoggerDays({ time_ms: [T0 + Q], raw_m: [0.68], correction_m: [0.02] }, ctx);
     const spot = { ...reading('s1', T0, 0.6), id: 'r1', rev: 'x', updated_ms: 0 };
     const gone = { ...reading('s1', T0 + 2 * Q, 0.9), id: 'r2', rev: 'x', updated_ms: 0, deleted: true as const };
-    const r = stageRecordWithDischarge([{ ...rating('s1', T0 - DAY), id: 'q1', rev: 'x', updated_ms: 0 }], [gone, spot], days);
+    const r = stageRecordWithDischarge([{ ...rating('s1', T0 - DAY), id: 'q1' }], [gone, spot], days);
     expect(r.time_ms.length).toBe(2);
     expect(r.readings[r.spot[0]].id).toBe('r1');
     expect(r.discharge_m3s[0]).toBeCloseTo(10 * 0.4 ** 2, 12); // 1.6 m³/s

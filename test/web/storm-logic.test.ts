@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import {
   defaultEckhardt,
   demoRating,
+  demoLoggerRecord,
   demoScenario,
   dischargeAt,
   findEventPoints,
@@ -31,14 +32,14 @@ const END = Date.UTC(2026, 10, 30, 0, 0);
 /** The demo's logger record through the demo rating, as the storm screen builds it. */
 function demoSeries(): { series: StormSeries; area_km2: number } {
   const s = demoScenario(END);
-  const logger = s.readings.filter((r) => r.source === 'logger');
+  const logger = demoLoggerRecord(s);
   const rating = demoRating();
-  const n = logger.length;
+  const n = logger.time_ms.length;
   return {
     series: {
-      time_ms: Float64Array.from(logger, (r) => r.time_ms),
-      discharge_m3s: Float64Array.from(logger, (r) => dischargeAt(rating, r.stage_m)),
-      stage_m: Float64Array.from(logger, (r) => r.stage_m),
+      time_ms: logger.time_ms,
+      discharge_m3s: Float64Array.from(logger.stage_m, (h) => dischargeAt(rating, h)),
+      stage_m: logger.stage_m,
       extrapolated: new Uint8Array(n),
     },
     area_km2: s.site.area_km2!,

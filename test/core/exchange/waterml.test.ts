@@ -7,7 +7,7 @@ import { join } from 'node:path';
 import { XMLParser } from 'fast-xml-parser';
 import { describe, expect, it } from 'vitest';
 import {
-  NO_DISCHARGE, demoScenario, dischargeAt, isExtrapolated, ratingConversionPoints, toIsoWithOffset, watermlRatings, watermlTimeseries,
+  NO_DISCHARGE, demoScenario, dischargeAt, isExtrapolated, stageExportRows, stageRecordWithDischarge, ratingConversionPoints, toIsoWithOffset, watermlRatings, watermlTimeseries,
   type GaugingRecord, type Rating, type RatingRecord, type ReadingExportRow, type ReadingRecord, type SiteRecord,
 } from '../../../core';
 import { validateWaterml } from '../../support/waterml-kit';
@@ -22,10 +22,10 @@ function demo() {
   const site: SiteRecord = { ...s.site, ...env(0) };
   const rating: RatingRecord = { ...s.rating, ...env(1) };
   const gaugings: GaugingRecord[] = s.gaugings.map((g, i) => ({ ...g, ...env(10 + i) }));
-  const readings: ReadingExportRow[] = s.readings.map((r, i) => {
-    const reading: ReadingRecord = { ...r, ...env(100 + i) };
-    return { reading, discharge_m3s: dischargeAt(rating, r.stage_m), shift_m: 0, extrapolated: isExtrapolated(rating, r.stage_m) };
-  });
+  // The stage record (core's join of the check readings and the logger days) as export rows.
+  const readings: ReadingExportRow[] = stageExportRows(stageRecordWithDischarge(
+    [rating], s.readings.map((r, i): ReadingRecord => ({ ...r, ...env(100 + i) })), s.loggerDays.map((d, i) => ({ ...d, ...env(5000 + i) })),
+  ));
   return { site, rating, gaugings, readings };
 }
 

@@ -38,3 +38,4 @@ export { recessionConstant } from './recession';
 export type { RecessionFit } from './recession';
 export { phiIndex } from './phi-index';
 export type { PhiIndexResult } from './phi-index';
+export { bridgingLimit_ms, continuousStretches, findStorms, MAX_STORMS, MIN_STORM_READINGS, stormWindow, STORM_PEAK_RATIO, type StormFound, type StormSearchSeries } from './storm-find';

@@ -9,6 +9,7 @@ import type { Locator, Page } from 'playwright-core';
 import {
   DEMO_SITE_ID,
   demoRating,
+  demoLoggerRecord,
   demoScenario,
   dischargeAt,
   findEventPoints,
@@ -59,8 +60,10 @@ async function stormInNode(latest_ms: number) {
   const from_ms = fromLocalInput(await page.locator('#storm-from').inputValue(), ZONE);
   const to_ms = fromLocalInput(await page.locator('#storm-to').inputValue(), ZONE);
   const rating = demoRating();
-  const logger = demoScenario(latest_ms).readings.filter((r) => r.source === 'logger' && r.time_ms >= from_ms && r.time_ms <= to_ms);
-  const series = { time_ms: logger.map((r) => r.time_ms), discharge_m3s: logger.map((r) => dischargeAt(rating, r.stage_m)) };
+  const all = demoLoggerRecord(demoScenario(latest_ms));
+  const times = Array.from(all.time_ms);
+  const inWindow = times.map((t, i) => i).filter((i) => times[i] >= from_ms && times[i] <= to_ms);
+  const series = { time_ms: inWindow.map((i) => times[i]), discharge_m3s: inWindow.map((i) => dischargeAt(rating, all.stage_m[i])) };
   const area_km2 = demoScenario(latest_ms).site.area_km2!;
   const found = findEventPoints(series, { area_km2 });
   const figures = (method: SeparationMethod, points: EventPoints = found, rainfall_mm?: number) => {

@@ -15,7 +15,7 @@ export {
   type OtherStore, type ReadingsTx,
 } from './readings-write';
 export { readingsWithDischarge, seriesWithDischarge, stageRecordIn, type SeriesWithDischarge } from './discharge-read';
-export { readingSeries, type ReadingSeries } from './series-read';
+export { latestStageTime, readingSeries, type ReadingSeries } from './series-read';
 export type { ReadingWithDischarge } from '../../core/readings/index';
 export { READING_SOURCE_CODES, readingSourceOfCode, type ReadingSourceCode } from '../../core/records/index';
 export {

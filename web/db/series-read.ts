@@ -5,6 +5,8 @@ import type { SeriesChunk } from './schema';
 import { withDb } from './connection';
 import { dayOf } from './series-edit';
 import { joinStageRecord, type LoggerDayRecord, type StageRecord } from '../../core/index';
+import { now_ms } from './clock';
+import { latestReading, LATEST_AHEAD_MS } from './readings';
 
 /**
  * The stage record of a window as parallel arrays: times (UTC ms, ascending), stages (m; logger values
@@ -93,4 +95,30 @@ export async function stagePartsIn(tx: SeriesReadTx, siteId: string, from_ms: nu
     tx.objectStore('loggerDays').index('by-site-day').getAll(range),
   ]);
   return { chunks, days };
+}
+
+/**
+ * The time (UTC ms) of the latest value of a site's stage record, spot reading or logger value, not more
+ * than a day ahead of the clock (a mistyped year must not move the default windows); undefined when none.
+ */
+export async function latestStageTime(siteId: string): Promise<number | undefined> {
+  const upTo = now_ms() + LATEST_AHEAD_MS;
+  const [reading, days] = await Promise.all([
+    latestReading(siteId),
+    withDb((db) => db.transaction('loggerDays').store.index('by-site-day').getAll(chunkRange(siteId, -Infinity, upTo))),
+  ]);
+  let latest = reading?.time_ms;
+  for (let i = days.length - 1; i >= 0; i--) {
+    const d = days[i];
+    if (d.deleted) continue;
+    const start = d.day * 86_400_000;
+    const times = d.offset_ms;
+    let k = times.length - 1;
+    while (k >= 0 && start + times[k] > upTo) k--;
+    if (k >= 0) {
+      latest = Math.max(latest ?? -Infinity, start + times[k]);
+      break;
+    }
+  }
+  return latest;
 }

@@ -5,7 +5,7 @@ import {
   fromLocalInput, gaugingsToCsv, MS_PER_DAY, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv, stageExportRows, toLocalInput, watermlRatings, watermlTimeseries,
   type SiteRecord,
 } from '../../../core';
-import { latestReadings, listGaugings, listRatings, stageRecordIn } from '../../db';
+import { latestStageTime, listGaugings, listRatings, stageRecordIn } from '../../db';
 import { describedBy, Field } from '../../components/Field';
 import { saveTextFile } from './save-file';
 
@@ -35,11 +35,11 @@ export function ExportSection({ sites }: { sites: SiteRecord[] }) {
   const [range, setRange] = useState<{ from: string; to: string }>();
   const [status, setStatus] = useState<{ ok: boolean; text: string }>();
   const [busy, setBusy] = useState(false);
-  // Default window: the 30 days up to the site's latest reading.
+  // Default window: the 30 days up to the latest value of the site's record (spot reading or logger value).
   useEffect(() => {
     if (!site) return;
-    void latestReadings([site.id]).then((m) => {
-      const end = m.get(site.id)?.time_ms ?? Date.now();
+    void latestStageTime(site.id).then((latest) => {
+      const end = latest ?? Date.now();
       setRange({ from: toLocalInput(end - 30 * MS_PER_DAY, site.timeZone), to: toLocalInput(end + 60_000, site.timeZone) });
     });
   }, [site?.id]);

@@ -103,22 +103,24 @@ export async function stagePartsIn(tx: SeriesReadTx, siteId: string, from_ms: nu
  */
 export async function latestStageTime(siteId: string): Promise<number | undefined> {
   const upTo = now_ms() + LATEST_AHEAD_MS;
-  const [reading, days] = await Promise.all([
+  const [reading, logger] = await Promise.all([
     latestReading(siteId),
-    withDb((db) => db.transaction('loggerDays').store.index('by-site-day').getAll(chunkRange(siteId, -Infinity, upTo))),
+    withDb(async (db) => {
+      // The newest live day first, one record at a time: a long record is never read whole for this.
+      let cursor = await db.transaction('loggerDays').store.index('by-site-day').openCursor(chunkRange(siteId, -Infinity, upTo), 'prev');
+      while (cursor) {
+        const d = cursor.value;
+        if (!d.deleted) {
+          const start = d.day * 86_400_000;
+          let k = d.offset_ms.length - 1;
+          while (k >= 0 && start + d.offset_ms[k] > upTo) k--;
+          if (k >= 0) return start + d.offset_ms[k];
+        }
+        cursor = await cursor.continue();
+      }
+      return undefined;
+    }),
   ]);
-  let latest = reading?.time_ms;
-  for (let i = days.length - 1; i >= 0; i--) {
-    const d = days[i];
-    if (d.deleted) continue;
-    const start = d.day * 86_400_000;
-    const times = d.offset_ms;
-    let k = times.length - 1;
-    while (k >= 0 && start + times[k] > upTo) k--;
-    if (k >= 0) {
-      latest = Math.max(latest ?? -Infinity, start + times[k]);
-      break;
-    }
-  }
-  return latest;
+  if (reading === undefined) return logger;
+  return logger === undefined ? reading.time_ms : Math.max(reading.time_ms, logger);
 }

@@ -1,2 +1,2 @@
 // The invented demo scenario.
-export { demoScenario, demoRating, demoFlow, DEMO_SITE_ID, type DemoScenario, type DemoItem } from './scenario';
+export { demoScenario, demoRating, demoFlow, demoLoggerRecord, DEMO_SITE_ID, type DemoScenario, type DemoItem } from './scenario';

@@ -15,7 +15,9 @@
 // - Staff check readings every 3–4 days, 1–5 mm off the logger; gaugings spread over the
 //   previous year with ±4 % measurement scatter.
 import { continuousCoefficient, dischargeAt, stageAt, type Rating } from '../rating/index';
-import type { GaugingBody, RatingBody, ReadingBody, SiteBody } from '../records/index';
+import type { GaugingBody, LoggerDayBody, RatingBody, ReadingBody, SiteBody } from '../records/index';
+import { driftCorrections } from '../exchange/logger-drift';
+import { loggerDayId, splitLoggerDays } from '../exchange/logger-days';
 import { MS_PER_DAY } from '../time/day';
 
 const STEP_MS = 15 * 60_000;
@@ -23,12 +25,24 @@ const STEP_MS = 15 * 60_000;
 /** A demo record with its fixed id (so loading the scenario twice writes nothing new). */
 export type DemoItem<B> = { id: string } & B;
 
-/** Everything the demo loads: one site, its rating, gaugings and readings (logger and staff). */
+/**
+ * Everything the demo loads: one site, its rating, gaugings, staff check readings and the logger record
+ * as per-day logger records (raw values with a slow invented drift, corrected from the checks by core's
+ * driftCorrections), the way a real logger import stores it.
+ */
 export interface DemoScenario {
   site: DemoItem<SiteBody>;
   rating: DemoItem<RatingBody>;
   gaugings: DemoItem<GaugingBody>[];
+  /** Staff check readings beside the logger (each with the logger's value at its time). */
   readings: DemoItem<ReadingBody>[];
+  /** The logger record, one record per UTC day (ids from loggerDayId). */
+  loggerDays: DemoItem<LoggerDayBody>[];
+}
+
+/** The invented logger drift (m): the logger reads low by up to 6 mm over the 21 days (raw = true − drift). */
+function demoDrift(t_days: number): number {
+  return 0.006 * Math.min(1, Math.max(0, t_days / 21));
 }
 
 /** The demo site's fixed id. */
@@ -96,27 +110,34 @@ export function demoScenario(end_ms: number): DemoScenario {
     displayUnits: 'metric',
     jumpLimit_m: 0.3,
   };
-  const readings: DemoItem<ReadingBody>[] = [];
-  let n = 0;
-  for (let t = start; t <= end; t += STEP_MS) {
+  // The true stage every 15 minutes (mm noise, 1 mm resolution) and the logger's raw value (drifting low).
+  const count = Math.floor((end - start) / STEP_MS) + 1;
+  const time_ms = new Float64Array(count);
+  const true_m = new Float64Array(count);
+  const raw_m = new Float64Array(count);
+  for (let i = 0; i < count; i++) {
+    const t = start + i * STEP_MS;
     const q = demoFlow((t - start) / MS_PER_DAY);
     const noise = (rnd() - 0.5) * 0.004;
-    const stage_m = Math.round((stageAt(rating, q) + noise) * 1000) / 1000;
-    readings.push({
-      id: demoId(2, ++n), siteId: DEMO_SITE_ID, time_ms: t, stage_m, source: 'logger', quality: 'good',
-      observer: '', note: '', warnings: [],
-    });
+    time_ms[i] = t;
+    true_m[i] = Math.round((stageAt(rating, q) + noise) * 1000) / 1000;
+    raw_m[i] = Math.round((true_m[i] - demoDrift((t - start) / MS_PER_DAY)) * 1000) / 1000;
   }
-  // Staff checks beside the logger every 3–4 days.
+  const readings: DemoItem<ReadingBody>[] = [];
   for (let d = 1, k = 0; d < 21; d += k % 2 === 0 ? 3 : 4, k++) {
     const t = start + d * MS_PER_DAY + 2 * 60 * 60_000;
-    const logger = readings[Math.round((t - start) / STEP_MS)];
-    const offset = (1 + Math.floor(rnd() * 5)) / 1000;
+    const i = Math.round((t - start) / STEP_MS);
+    const offset = Math.floor(rnd() * 3) / 1000;
     readings.push({
-      id: demoId(3, k + 1), siteId: DEMO_SITE_ID, time_ms: t, stage_m: Math.round((logger.stage_m + offset) * 1000) / 1000,
+      id: demoId(3, k + 1), siteId: DEMO_SITE_ID, time_ms: t, stage_m: Math.round((true_m[i] + offset) * 1000) / 1000,
       source: 'staff', quality: 'good', observer: 'J. Tarrant (demo)', note: 'Staff check beside the logger.', warnings: [],
+      loggerCheck: { logger_m: raw_m[i] },
     });
   }
+  const checks = readings.map((r) => ({ time_ms: r.time_ms, staff_m: r.stage_m, logger_m: r.loggerCheck!.logger_m }));
+  const correction_m = driftCorrections(checks, time_ms);
+  const loggerDays = splitLoggerDays({ time_ms, raw_m, correction_m }, { siteId: DEMO_SITE_ID, fileName: 'pb03-logger-demo.csv', checks, note: 'Invented demo logger record.' })
+    .map((body) => ({ id: loggerDayId(DEMO_SITE_ID, body.day), ...body }));
   readings.sort((a, b) => a.time_ms - b.time_ms);
   const gaugingStages = [0.26, 0.29, 0.31, 0.34, 0.38, 0.45, 0.52, 0.63, 0.78, 0.95, 1.18, 1.42];
   const gaugings: DemoItem<GaugingBody>[] = gaugingStages.map((h, i) => {
@@ -133,5 +154,21 @@ export function demoScenario(end_ms: number): DemoScenario {
     segments: rating.segments, gaugedRange_m: rating.gaugedRange_m, shifts: [],
     fittedFrom: gaugings.map((g) => g.id), note: 'Demo rating: invented two-segment curve.',
   };
-  return { site, rating: ratingRecord, gaugings, readings };
+  return { site, rating: ratingRecord, gaugings, readings, loggerDays };
+}
+
+/** The demo's logger record as arrays: times (UTC ms), corrected stages, raw values and corrections (m). */
+export function demoLoggerRecord(s: Pick<DemoScenario, 'loggerDays'>): { time_ms: Float64Array; stage_m: Float64Array; raw_m: Float64Array; correction_m: Float64Array } {
+  const n = s.loggerDays.reduce((sum, d) => sum + d.offset_ms.length, 0);
+  const out = { time_ms: new Float64Array(n), stage_m: new Float64Array(n), raw_m: new Float64Array(n), correction_m: new Float64Array(n) };
+  let k = 0;
+  for (const d of s.loggerDays) {
+    for (let i = 0; i < d.offset_ms.length; i++, k++) {
+      out.time_ms[k] = d.day * MS_PER_DAY + d.offset_ms[i];
+      out.raw_m[k] = d.raw_m[i];
+      out.correction_m[k] = d.correction_m[i];
+      out.stage_m[k] = d.raw_m[i] + d.correction_m[i];
+    }
+  }
+  return out;
 }

@@ -1,6 +1,7 @@
 // Exchange formats for office systems: bundles, CSV tables (RFC 4180), CSV readings import, WaterML 2.0.
 export { CSV_BOM, csvField, csvDocument, csvTable, csvNumber, textField, looksLikeFormula, type CsvColumn, type CsvColumnKind } from './csv-write';
-export { readingsToCsv, type ReadingCsvOptions, type ReadingExportRow } from './readings-csv';
+export { DISCHARGE_DIGITS, readingsToCsv, type ReadingCsvOptions, type ReadingExportRow } from './readings-csv';
+export { stageExportRows } from './stage-rows';
 export { gaugingsToCsv, type SiteCsvOptions } from './gaugings-csv';
 export { printedRatingTable, ratingSegmentsToCsv, ratingTablesToCsv, RATING_TABLE_HEADROOM_M, type RatingTableCsvOptions } from './ratings-csv';
 export { stormToCsv, type SeparatedStorm } from './storm-csv';

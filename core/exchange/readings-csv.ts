@@ -6,8 +6,20 @@ import type { ReadingWithDischarge } from '../readings/index';
 import { isoWithOffsetFormatter } from './iso-times';
 import { csvNumber, csvTable, type CsvColumn } from './csv-write';
 
-/** One reading row to export: the stored reading and its discharge (m³/s; NaN, none, without a rating), shift (m). */
-export type ReadingExportRow = Pick<ReadingWithDischarge, 'reading' | 'discharge_m3s' | 'shift_m' | 'extrapolated'>;
+/**
+ * One row of a site's stage record to export: a stored spot reading, or a logger value (its reading
+ * carries the logger day's id and rev, the corrected stage and source 'logger', and `logger` holds the raw
+ * value and the correction, m), with its discharge (m³/s; NaN, none, without a rating) and shift (m).
+ */
+export type ReadingExportRow = Pick<ReadingWithDischarge, 'reading' | 'discharge_m3s' | 'shift_m' | 'extrapolated'> & {
+  logger?: { raw_m: number; correction_m: number };
+};
+
+/**
+ * Significant digits of an exported discharge: three, the precision a stage–discharge rating supports
+ * (common practice: discharges are published to three significant figures).
+ */
+export const DISCHARGE_DIGITS = 3;
 
 /** What the CSV describes: site code, its time zone (for the offsets) and the units to write. */
 export interface ReadingCsvOptions {
@@ -16,7 +28,11 @@ export interface ReadingCsvOptions {
   units: UnitSystem;
 }
 
-/** The readings as a CSV document, oldest first as given; stage and discharge in `units`. */
+/**
+ * The rows of a site's stage record as a CSV document, oldest first as given; stage and discharge in
+ * `units`. Logger values give their raw value and correction (the stage column is raw + correction) and
+ * leave the quality empty (a logger value has no reader's grade).
+ */
 export function readingsToCsv(rows: readonly ReadingExportRow[], options: ReadingCsvOptions): string {
   const { units, timeZone, siteCode } = options;
   const iso = isoWithOffsetFormatter(timeZone);
@@ -26,7 +42,7 @@ export function readingsToCsv(rows: readonly ReadingExportRow[], options: Readin
     { name: 'site', kind: 'text' }, { name: 'time', kind: 'time' }, { name: `stage_${h}`, kind: 'number' },
     { name: `shift_${h}`, kind: 'number' }, { name: `discharge_${q}`, kind: 'number' }, { name: 'extrapolated', kind: 'text' },
     { name: 'source', kind: 'text' }, { name: 'quality', kind: 'text' }, { name: 'observer', kind: 'text' },
-    { name: 'note', kind: 'text' }, { name: 'warnings', kind: 'text' }, { name: 'latitude_deg', kind: 'number' },
+    { name: 'note', kind: 'text' }, { name: `logger_raw_${h}`, kind: 'number' }, { name: `correction_${h}`, kind: 'number' }, { name: 'warnings', kind: 'text' }, { name: 'latitude_deg', kind: 'number' },
     { name: 'longitude_deg', kind: 'number' }, { name: 'gps_accuracy_m', kind: 'number' }, { name: 'id', kind: 'text' },
     { name: 'rev', kind: 'text' },
   ];
@@ -38,12 +54,14 @@ export function readingsToCsv(rows: readonly ReadingExportRow[], options: Readin
       iso(x.time_ms),
       toDisplay('stage', x.stage_m, units).toFixed(stageDecimals),
       toDisplay('stage', r.shift_m, units).toFixed(stageDecimals),
-      !hasDischarge(r.discharge_m3s) ? '' : csvNumber(toDisplay('discharge', r.discharge_m3s, units), 6),
+      !hasDischarge(r.discharge_m3s) ? '' : csvNumber(toDisplay('discharge', r.discharge_m3s, units), DISCHARGE_DIGITS),
       r.extrapolated ? 'yes' : 'no',
       x.source,
-      x.quality,
+      r.logger ? '' : x.quality,
       x.observer,
       x.note,
+      r.logger ? toDisplay('stage', r.logger.raw_m, units).toFixed(stageDecimals) : '',
+      r.logger ? toDisplay('stage', r.logger.correction_m, units).toFixed(stageDecimals) : '',
       x.warnings.join(' '),
       csvNumber(x.gps?.lat),
       csvNumber(x.gps?.lon),

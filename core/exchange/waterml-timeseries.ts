@@ -5,7 +5,7 @@ import { hasDischarge } from '../rating/index';
 import type { ReadingQuality, ReadingSource, SiteRecord } from '../records/index';
 import { toIsoWithOffset } from '../time/index';
 import { isoWithOffsetFormatter } from './iso-times';
-import type { ReadingExportRow } from './readings-csv';
+import { DISCHARGE_DIGITS, type ReadingExportRow } from './readings-csv';
 import { monitoringPoint, monitoringPointId, siteLink } from './waterml-site';
 import { el, gmlId, wrap, WATERML_NAMESPACES } from './xml-write';
 
@@ -63,7 +63,7 @@ function observation(site: SiteRecord, s: SeriesSpec, generated_ms: number, feat
   });
   return wrap('wml2:observationMember', undefined, [
     wrap('om:OM_Observation', { 'gml:id': gmlId('obs', base) }, [
-      el('gml:description', undefined, `${s.title} at ${site.code}, ${s.source} readings.`),
+      el('gml:description', undefined, `${s.title} at ${site.code}, ${s.source === 'logger' ? 'logger values (drift-corrected: the value read plus the correction from check readings)' : `${s.source} readings`}.`),
       wrap('om:phenomenonTime', undefined, [
         wrap('gml:TimePeriod', { 'gml:id': gmlId('period', base) }, [
           el('gml:beginPosition', undefined, toIsoWithOffset(first, tz)),
@@ -128,7 +128,7 @@ export function watermlTimeseries(input: TimeseriesDocumentInput): string {
       members.push(observation(site, {
         key: 'discharge', property: 'urn:x-freshet:property:discharge', title: 'Discharge', uom: 'm3/s', source,
         points: withQ.map((r) => ({
-          time_ms: r.reading.time_ms, value: r.discharge_m3s,
+          time_ms: r.reading.time_ms, value: Number(r.discharge_m3s.toPrecision(DISCHARGE_DIGITS)),
           quality: r.extrapolated ? 'estimated' : r.reading.quality,
           comment: r.extrapolated ? 'Extrapolated beyond the gauged range of the rating.' : undefined,
         })),

@@ -45,3 +45,4 @@ export {
   runoffRange, extrapolatedShare, roundDown, roundUp, DEFAULT_RATING_SE_PCT, EXTRAPOLATION_BAND_FACTOR,
 } from './runoff-range';
 export type { MethodVolume, RunoffRange, RunoffRangeInput } from './runoff-range';
+export { continuousStretches, findStorms, MAX_STORMS, MIN_STORM_READINGS, stormWindow, STORM_PEAK_RATIO, type StormFound, type StormSearchSeries } from './storm-find';

@@ -1,53 +1,61 @@
-// A bundle's records gathered per site for the exports: the latest revision of each record (the higher
-// rev wins, as in the merge rule), tombstones dropped, and each reading's discharge through the rating
-// in force at its time with that rating's dated shifts (core's withDischarge).
-import { compareRev, fromSyncRecord, withDischarge } from '../../core/index';
-import type { AnalysisRecord, GaugingRecord, RatingRecord, ReadingExportRow, ReadingRecord, SiteRecord, SyncRecord } from '../../core/index';
+// A bundle's records gathered per site for the exports: the version of each record that wins by core's
+// sync rule (frontierOf, as the phone and the receiver merge), tombstones dropped, and the site's stage
+// record (spot readings and logger days joined by core's stageRecordWithDischarge, each value with its
+// discharge through the rating in force at its time), so the office writes what the phone writes.
+import { frontierOf, fromSyncRecord, recordKey, stageExportRows, stageRecordWithDischarge } from '../../core/index';
+import type {
+  AnalysisRecord, GaugingRecord, LoggerDayRecord, RatingRecord, ReadingExportRow, ReadingRecord, SiteRecord, StageRecordWithDischarge, SyncRecord,
+} from '../../core/index';
 
-/** One site's records from a bundle: readings with discharge (oldest first), gaugings, ratings (by start), analyses. */
+/** One site's records: its stage record with discharge, as export rows (oldest first), gaugings, ratings (by start), analyses. */
 export interface SiteData {
   site: SiteRecord;
   readings: ReadingExportRow[];
+  /** The joined stage record (spot readings and logger values) the rows were made from. */
+  stage: StageRecordWithDischarge;
   gaugings: GaugingRecord[];
   ratings: RatingRecord[];
   analyses: AnalysisRecord[];
 }
 
-/** The latest live revision of every record in `records`, by kind. */
+/** The winning live version of every record in `records` (core's sync rule, frontierOf), by kind and id. */
 function latest(records: readonly SyncRecord[]): SyncRecord[] {
-  const best = new Map<string, SyncRecord>();
+  const versions = new Map<string, SyncRecord[]>();
   for (const r of records) {
-    const key = `${r.kind}\u0000${r.id}`;
-    const old = best.get(key);
-    if (!old || compareRev(r.rev, old.rev) > 0) best.set(key, r);
+    const key = recordKey(r.kind, r.id);
+    const list = versions.get(key);
+    if (list) list.push(r);
+    else versions.set(key, [r]);
   }
-  return [...best.values()].filter((r) => r.deleted !== true);
+  return [...versions.values()].map((v) => frontierOf(v).winner).filter((r) => r.deleted !== true);
 }
 
 /** Every site in the bundle with its records, sites in code order; records of sites not in the bundle are left out. */
 export function sitesOf(records: readonly SyncRecord[]): SiteData[] {
   const live = latest(records);
-  const sites = new Map<string, SiteData & { rawReadings: ReadingRecord[] }>();
+  type Gathered = Omit<SiteData, 'readings' | 'stage'> & { rawReadings: ReadingRecord[]; loggerDays: LoggerDayRecord[] };
+  const sites = new Map<string, Gathered>();
   for (const r of live) {
-    if (r.kind === 'site') sites.set(r.id, { site: fromSyncRecord(r), readings: [], rawReadings: [], gaugings: [], ratings: [], analyses: [] });
+    if (r.kind === 'site') sites.set(r.id, { site: fromSyncRecord(r), rawReadings: [], loggerDays: [], gaugings: [], ratings: [], analyses: [] });
   }
   for (const r of live) {
     if (r.kind === 'site') continue;
     const s = sites.get(r.body.siteId);
     if (!s) continue;
     if (r.kind === 'reading') s.rawReadings.push(fromSyncRecord(r));
+    else if (r.kind === 'logger-day') s.loggerDays.push(fromSyncRecord(r));
     else if (r.kind === 'gauging') s.gaugings.push(fromSyncRecord(r));
     else if (r.kind === 'rating') s.ratings.push(fromSyncRecord(r));
     else if (r.kind === 'analysis') s.analyses.push(fromSyncRecord(r));
   }
   return [...sites.values()]
     .sort((a, b) => a.site.code.localeCompare(b.site.code))
-    .map(({ rawReadings, ...s }) => {
-      rawReadings.sort((a, b) => a.time_ms - b.time_ms || a.source.localeCompare(b.source));
+    .map(({ rawReadings, loggerDays, ...s }) => {
       s.gaugings.sort((a, b) => a.time_ms - b.time_ms);
       s.ratings.sort((a, b) => a.validFrom_ms - b.validFrom_ms);
       s.analyses.sort((a, b) => a.from_ms - b.from_ms);
-      return { ...s, readings: withDischarge(s.ratings, rawReadings) };
+      const stage = stageRecordWithDischarge(s.ratings, rawReadings, loggerDays);
+      return { ...s, stage, readings: stageExportRows(stage) };
     });
 }
 

@@ -1,8 +1,8 @@
-// The separated series of each saved storm analysis of a site, as CSV: the readings of its window
-// through the rating (one discharge per time: the logger wins, core's rule), separated again with the
-// analysis's method and key points.
+// The separated series of each saved storm analysis of a site, as CSV: the stage record of its window
+// (spot readings and logger values, core's join) through the rating (one discharge per time: the logger
+// wins, core's rule), separated again with the analysis's method and key points.
 import {
-  READING_SOURCE_CODES, SEPARATION_METHOD_KINDS, separateBaseflow, seriesFromReadings, stormToCsv, toLocalInput,
+  SEPARATION_METHOD_KINDS, separateBaseflow, seriesFromReadings, stormToCsv, toLocalInput,
   type SeparationMethod,
 } from '../../core/index';
 import type { SiteData } from './site-data';
@@ -21,12 +21,16 @@ export function stormFiles(data: SiteData, stem: string): { files: OutputFile[];
       skipped.push(`${label} uses a separation method this version does not know ("${a.method.kind}")`);
       continue;
     }
-    const rows = data.readings.filter((r) => r.reading.time_ms >= a.from_ms && r.reading.time_ms <= a.to_ms);
+    const st = data.stage;
+    const first = st.time_ms.findIndex((t) => t >= a.from_ms);
+    const from = first < 0 ? st.time_ms.length : first;
+    let to = from;
+    while (to < st.time_ms.length && st.time_ms[to] <= a.to_ms) to++;
     const made = seriesFromReadings({
-      time_ms: rows.map((r) => r.reading.time_ms),
-      discharge_m3s: rows.map((r) => r.discharge_m3s),
-      source: rows.map((r) => READING_SOURCE_CODES[r.reading.source]),
-      extrapolated: rows.map((r) => (r.extrapolated ? 1 : 0)),
+      time_ms: st.time_ms.subarray(from, to),
+      discharge_m3s: st.discharge_m3s.subarray(from, to),
+      source: st.source.subarray(from, to),
+      extrapolated: st.extrapolated.subarray(from, to),
     });
     if (made.kind !== 'ready') {
       skipped.push(`${label} has ${made.kind === 'empty' ? 'no readings in its window in this bundle' : 'readings with no rating in force'}`);
@@ -41,7 +45,8 @@ export function stormFiles(data: SiteData, stem: string): { files: OutputFile[];
       names.add(name);
       files.push({ name, text: stormToCsv({ series: made.series, baseflow_m3s, method: a.method.kind }, { siteCode: site.code, timeZone: site.timeZone, units: site.displayUnits }) });
     } catch (err) {
-      skipped.push(`${label} could not be separated again: ${(err as Error).message}`);
+      if (!(err instanceof RangeError)) throw err;
+      skipped.push(`${label} could not be separated again from the records held here (its key points or method settings do not fit the stage record of its window); its saved figures stay in the analysis record`);
     }
   }
   return { files, skipped };

@@ -116,9 +116,9 @@ describe('importing a 100,000-row logger file', () => {
     await page.locator('#clock').selectOption('standard');
     expect(await page.locator('#standard-offset').inputValue()).toBe('720');
     // Line 3: 00:00 at UTC+12 is 01:00 New Zealand daylight time, 20 February.
-    const line3 = page.locator('table.preview tbody tr').nth(2);
-    await expect.poll(() => line3.locator('td').nth(2).textContent()).toBe('2026-02-20T01:00:00+13:00');
-    expect(await line3.locator('td').nth(3).textContent()).toBe(raw(0).toFixed(4));
+    const line3 = page.locator('ol.preview li[data-line="3"]');
+    await expect.poll(() => line3.getByTestId('stored-time').textContent()).toBe('2026-02-20T01:00:00+13:00');
+    expect(await line3.getByTestId('stored-stage').textContent()).toBe(`${raw(0).toFixed(4)} m`);
     await shot('mapping');
     const found = await seriousViolations(page);
     expect(found, JSON.stringify(found)).toEqual([]);

@@ -9,6 +9,8 @@ import type { Locator, Page } from 'playwright-core';
 import {
   DEMO_SITE_ID,
   demoRating,
+  demoLoggerRecord,
+  findStorms,
   demoScenario,
   dischargeAt,
   findEventPoints,
@@ -23,6 +25,7 @@ import {
 } from '../../core';
 import { ARTIFACTS, launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
 import { seriousViolations } from '../support/browser/axe';
+import { formatQuantity } from '../../web/format';
 
 const ZONE = 'Pacific/Auckland';
 let server: Preview;
@@ -59,8 +62,10 @@ async function stormInNode(latest_ms: number) {
   const from_ms = fromLocalInput(await page.locator('#storm-from').inputValue(), ZONE);
   const to_ms = fromLocalInput(await page.locator('#storm-to').inputValue(), ZONE);
   const rating = demoRating();
-  const logger = demoScenario(latest_ms).readings.filter((r) => r.source === 'logger' && r.time_ms >= from_ms && r.time_ms <= to_ms);
-  const series = { time_ms: logger.map((r) => r.time_ms), discharge_m3s: logger.map((r) => dischargeAt(rating, r.stage_m)) };
+  const all = demoLoggerRecord(demoScenario(latest_ms));
+  const times = Array.from(all.time_ms);
+  const inWindow = times.map((t, i) => i).filter((i) => times[i] >= from_ms && times[i] <= to_ms);
+  const series = { time_ms: inWindow.map((i) => times[i]), discharge_m3s: inWindow.map((i) => dischargeAt(rating, all.stage_m[i])) };
   const area_km2 = demoScenario(latest_ms).site.area_km2!;
   const found = findEventPoints(series, { area_km2 });
   const figures = (method: SeparationMethod, points: EventPoints = found, rainfall_mm?: number) => {
@@ -130,10 +135,18 @@ describe('storm screen on the demo site, offline', () => {
     expect(latest_ms).toBeGreaterThanOrEqual(fromLocalInput(await page.locator('#storm-to').inputValue(), ZONE));
     const node = await stormInNode(latest_ms);
     // The storm list names the demo storm first, at the core's peak time in the site's zone.
-    await page.locator('.storm-list summary').click();
+    // Every listed storm is in view (the list is open), and as many as core's findStorms finds on the whole record.
     const first = page.getByTestId('storm-list').locator('li').first();
+    expect(await first.isVisible()).toBe(true);
     await expect(first.textContent()).resolves.toContain(toLocalInput(node.found.peak_ms, ZONE).replace('T', ' '));
-    await expect(page.getByTestId('storm-list').locator('li').count()).resolves.toBe(2);
+    const all = demoLoggerRecord(demoScenario(latest_ms));
+    const rating = demoRating();
+    const whole = { time_ms: all.time_ms, discharge_m3s: Float64Array.from(all.stage_m, (h) => dischargeAt(rating, h)) };
+    const storms = findStorms(whole, { area_km2: node.area_km2, method: { kind: 'variable-slope' } });
+    await expect(page.getByTestId('storm-list').locator('li').count()).resolves.toBe(storms.length);
+    // The depth the list gives the storm it opened is the depth of the analysis on screen.
+    const listed = (await first.textContent())!;
+    expect(listed).toContain(formatQuantity('depth', node.figures({ kind: 'variable-slope' }).runoffDepth_mm!, 'metric'));
     // The demo storm peaks 13.5 days plus about 8 h into its 21-day record (core/demo/scenario.ts).
     const peakDay = (node.found.peak_ms - (latest_ms - 21 * 86_400_000)) / 86_400_000;
     expect(peakDay).toBeGreaterThan(13.5);

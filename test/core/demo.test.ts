@@ -1,8 +1,8 @@
 // The invented demo scenario: valid records, deterministic, and faithful to its own documented model.
 import { describe, expect, it } from 'vitest';
 import {
-  demoFlow, demoRating, demoScenario, dischargeAt, fitRating, ratingContinuity, stageAt,
-  validateGaugingBody, validateRatingBody, validateReadingBody, validateSiteBody,
+  demoFlow, demoLoggerRecord, demoRating, demoScenario, dischargeAt, fitRating, ratingContinuity, stageAt,
+  validateGaugingBody, validateLoggerDayBody, validateRatingBody, validateReadingBody, validateSiteBody,
 } from '../../core';
 
 const END = Date.UTC(2026, 10, 20, 6, 7); // any fixed time: the scenario is relative to its end
@@ -15,20 +15,31 @@ describe('demo scenario', () => {
     expect(() => validateRatingBody(s.rating)).not.toThrow();
     for (const g of s.gaugings) validateGaugingBody(g);
     for (const r of s.readings) validateReadingBody(r);
+    for (const d of s.loggerDays) validateLoggerDayBody(d);
   });
 
   it('is the same every time and has unique ids', () => {
     expect(demoScenario(END)).toEqual(s);
-    const ids = [s.site.id, s.rating.id, ...s.gaugings.map((g) => g.id), ...s.readings.map((r) => r.id)];
+    const ids = [s.site.id, s.rating.id, ...s.gaugings.map((g) => g.id), ...s.readings.map((r) => r.id), ...s.loggerDays.map((d) => d.id)];
     expect(new Set(ids).size).toBe(ids.length);
   });
 
-  it('has three weeks of 15-minute logger readings ending at the 15-minute mark before the end', () => {
-    const logger = s.readings.filter((r) => r.source === 'logger');
-    expect(logger).toHaveLength(21 * 96 + 1);
-    expect(logger[logger.length - 1].time_ms).toBe(Date.UTC(2026, 10, 20, 6, 0));
-    for (let i = 1; i < logger.length; i++) expect(logger[i].time_ms - logger[i - 1].time_ms).toBe(900_000);
+  it('has three weeks of 15-minute logger values, kept as logger days, ending at the 15-minute mark before the end', () => {
+    const logger = demoLoggerRecord(s);
+    expect(logger.time_ms).toHaveLength(21 * 96 + 1);
+    expect(logger.time_ms[logger.time_ms.length - 1]).toBe(Date.UTC(2026, 10, 20, 6, 0));
+    for (let i = 1; i < logger.time_ms.length; i++) expect(logger.time_ms[i] - logger.time_ms[i - 1]).toBe(900_000);
+    expect(s.readings.every((r) => r.source === 'staff' && r.loggerCheck !== undefined)).toBe(true);
     expect(s.gaugings).toHaveLength(12);
+  });
+
+  it('corrects the logger drift from the checks: staff − logger at each check, linear between (common practice)', () => {
+    const logger = demoLoggerRecord(s);
+    for (const r of s.readings) {
+      const i = logger.time_ms.indexOf(r.time_ms);
+      expect(logger.raw_m[i]).toBe(r.loggerCheck!.logger_m);
+      expect(logger.correction_m[i]).toBeCloseTo(r.stage_m - r.loggerCheck!.logger_m, 12);
+    }
   });
 
   it('has a rating continuous at its breakpoint (within the 1 % check)', () => {
@@ -37,17 +48,18 @@ describe('demo scenario', () => {
     expect(Math.abs(check.breakpoints[0].jump_pct)).toBeLessThan(1e-9);
   });
 
-  it('turns back into the model flow within the ±2 mm reading noise (exact model inversion)', () => {
+  it('turns back into the model flow within the reading noise and check offsets (exact model inversion)', () => {
     const rating = demoRating();
-    const logger = s.readings.filter((r) => r.source === 'logger');
-    const start = logger[0].time_ms;
-    for (const r of logger.filter((_, i) => i % 37 === 0)) {
-      const q = demoFlow((r.time_ms - start) / 86_400_000);
-      expect(Math.abs(r.stage_m - stageAt(rating, q))).toBeLessThanOrEqual(0.0025 + 1e-9);
+    const logger = demoLoggerRecord(s);
+    const start = logger.time_ms[0];
+    // Corrected values: ±2 mm noise, 1 mm rounding, and the checks' own 0–2 mm offsets carried by the correction.
+    for (let i = 0; i < logger.time_ms.length; i += 37) {
+      const q = demoFlow((logger.time_ms[i] - start) / 86_400_000);
+      expect(Math.abs(logger.stage_m[i] - stageAt(rating, q))).toBeLessThanOrEqual(0.0055 + 1e-9);
     }
-    const peak = logger.reduce((a, b) => (b.stage_m > a.stage_m ? b : a));
-    expect(dischargeAt(rating, peak.stage_m)).toBeGreaterThan(6.5);
-    expect(peak.stage_m).toBeGreaterThan(s.rating.gaugedRange_m![1]); // the peak is an extrapolation
+    const peak = Math.max(...logger.stage_m);
+    expect(dischargeAt(rating, peak)).toBeGreaterThan(6.5);
+    expect(peak).toBeGreaterThan(s.rating.gaugedRange_m![1]); // the peak is an extrapolation
   });
 
   it('gives gaugings that a power-law fit recovers closely (exponent in the usual 1.3–3.0 range)', () => {

@@ -44,8 +44,12 @@ describe('freshet demo', () => {
     expect(kinds.filter((k) => k === 'rating')).toHaveLength(1);
     expect(kinds.filter((k) => k === 'gauging')).toHaveLength(12);
     const readings = demo.records.filter((r) => r.kind === 'reading');
-    expect(readings.length).toBe(21 * 96 + 1 + 6); // 15-minute logger record plus six staff checks (demo model)
-    const last = Math.max(...readings.map((r) => (r.kind === 'reading' ? r.body.time_ms : 0)));
+    expect(readings.length).toBe(6); // six staff checks beside the logger (demo model)
+    // The 15-minute logger record as logger days, one record per UTC day, as a logger import stores it.
+    const days = demo.records.flatMap((r) => (r.kind === 'logger-day' ? [r.body] : []));
+    expect(days.reduce((n, d) => n + d.offset_ms.length, 0)).toBe(21 * 96 + 1);
+    const lastDay = days[days.length - 1];
+    const last = lastDay.day * 86_400_000 + lastDay.offset_ms[lastDay.offset_ms.length - 1];
     expect(new Date(last).toISOString()).toBe('2026-11-20T06:00:00.000Z'); // --end, rounded to the quarter hour
   });
 });

@@ -1,15 +1,19 @@
 // The office command's storm CSV: a saved analysis separated again from the bundle's readings. Read back
 // with papaparse (test-only oracle); direct runoff is discharge minus baseflow in every row, and its volume
 // by the trapezoid rule over the key points (done here by hand) matches core's event summary.
+import { mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import {
-  DEMO_SITE_ID, defaultEckhardt, findEventPoints, separateBaseflow, seriesFromReadings, summarizeEvent, toSyncRecord, READING_SOURCE_CODES,
+  DEMO_SITE_ID, defaultEckhardt, makeBundle, findEventPoints, separateBaseflow, seriesFromReadings, summarizeEvent, toSyncRecord, READING_SOURCE_CODES,
   type AnalysisRecord, type SyncRecord,
 } from '../../core';
 import { demoRecords } from '../../office/cli/commands/demo';
 import { sitesOf } from '../../office/cli/site-data';
 import { stormFiles } from '../../office/cli/storm-files';
+import { run } from '../../office/cli/index';
 
 const END = Date.UTC(2026, 10, 20, 6, 0);
 const DAY_MS = 86_400_000;
@@ -66,5 +70,24 @@ describe('storm CSV from a saved analysis', () => {
       'the storm analysis of PB-03 from 2025-10-16 has no readings in its window in this bundle',
       'the storm analysis of PB-03 from 2026-11-06 uses a separation method this version does not know ("guesswork")',
     ]);
+  });
+
+  it('makes freshet csv name the analysis it could not write and exit with status 1, the other files written', async () => {
+    const outside = { ...analysis, id: 'a0000000-0000-4000-8000-000000000003', from_ms: END - 400 * DAY_MS, to_ms: END - 300 * DAY_MS };
+    const dir = mkdtempSync(join(tmpdir(), 'freshet-storm-files-'));
+    try {
+      const bundle = makeBundle({ id: 'b0000000-0000-4000-8000-000000000001', device: 'test', created_ms: END, records: [...withAnalysis, toSyncRecord('analysis', outside)] });
+      writeFileSync(join(dir, 'b.json'), JSON.stringify(bundle));
+      let out = '';
+      let err = '';
+      const code = await run(['csv', 'b.json', '--out', 'tables'], { stdout: (t) => (out += t), stderr: (t) => (err += t), cwd: dir });
+      expect(code).toBe(1);
+      expect(err).toContain('not written: the storm analysis of PB-03 from 2025-10-16 has no readings in its window in this bundle');
+      expect(err).not.toMatch(/_ms\b|separateBaseflow/);
+      expect(out).toMatch(/^Wrote 5 CSV files/);
+      expect(readdirSync(join(dir, 'tables')).sort()).toEqual(['PB-03_gaugings.csv', 'PB-03_rating_segments.csv', 'PB-03_rating_tables.csv', 'PB-03_readings.csv', 'PB-03_storm_2026-11-06.csv']);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 });

@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import {
   defaultEckhardt,
   demoRating,
+  demoLoggerRecord,
   demoScenario,
   dischargeAt,
   findEventPoints,
@@ -24,7 +25,6 @@ import { defaultMethodChoice, methodFor, minimaWindow_days } from '../../web/scr
 import { everyMethod, methodSpread } from '../../web/screens/Storm/method-table';
 import { DEFAULT_RATING_SE_PCT, roundAbout, stormRange } from '../../web/screens/Storm/runoff-range';
 import { analyse } from '../../web/screens/Storm/analysis';
-import { findStorms, STORM_PEAK_RATIO } from '../../web/screens/Storm/storms';
 
 const DAY = 86_400_000;
 const END = Date.UTC(2026, 10, 30, 0, 0);
@@ -32,14 +32,14 @@ const END = Date.UTC(2026, 10, 30, 0, 0);
 /** The demo's logger record through the demo rating, as the storm screen builds it. */
 function demoSeries(): { series: StormSeries; area_km2: number } {
   const s = demoScenario(END);
-  const logger = s.readings.filter((r) => r.source === 'logger');
+  const logger = demoLoggerRecord(s);
   const rating = demoRating();
-  const n = logger.length;
+  const n = logger.time_ms.length;
   return {
     series: {
-      time_ms: Float64Array.from(logger, (r) => r.time_ms),
-      discharge_m3s: Float64Array.from(logger, (r) => dischargeAt(rating, r.stage_m)),
-      stage_m: Float64Array.from(logger, (r) => r.stage_m),
+      time_ms: logger.time_ms,
+      discharge_m3s: Float64Array.from(logger.stage_m, (h) => dischargeAt(rating, h)),
+      stage_m: logger.stage_m,
       extrapolated: new Uint8Array(n),
     },
     area_km2: s.site.area_km2!,
@@ -191,40 +191,6 @@ describe('every method side by side', () => {
   it('says how long a window the minima methods need', () => {
     expect(minimaWindow_days('smoothed-minima', area_km2)).toBe(25);
     expect(minimaWindow_days('variable-slope', area_km2)).toBeUndefined();
-  });
-});
-
-describe('storms found in a record', () => {
-  // Stated model: hourly flows for 30 days, 1 m³/s base plus two gamma-shaped pulses (shape 3) peaking
-  // 12 h after they start: 6 m³/s starting on day 8 and 3 m³/s starting on day 20.
-  const t0 = Date.UTC(2026, 0, 1);
-  const n = 30 * 24 + 1;
-  const time_ms = Float64Array.from({ length: n }, (_, i) => t0 + i * 3_600_000);
-  const pulse = (h: number, startDay: number, peak: number) => {
-    const tau = h - startDay * 24;
-    return tau <= 0 ? 0 : peak * Math.pow(tau / 12, 3) * Math.exp(3 * (1 - tau / 12));
-  };
-  const discharge_m3s = Float64Array.from({ length: n }, (_, i) => 1 + pulse(i, 8, 6) + pulse(i, 20, 3));
-  const twoStorms: StormSeries = { time_ms, discharge_m3s, stage_m: new Float64Array(n), extrapolated: new Uint8Array(n) };
-  it('finds both storms, newest first, at the model peaks', () => {
-    const storms = findStorms(twoStorms, 50);
-    expect(storms).toHaveLength(2);
-    // Gamma pulse peaks 12 h after it starts.
-    expect(storms[0].points.peak_ms).toBe(t0 + (20 * 24 + 12) * 3_600_000);
-    expect(storms[1].points.peak_ms).toBe(t0 + (8 * 24 + 12) * 3_600_000);
-    expect(storms[0].peak_m3s).toBeCloseTo(4, 9);
-    expect(storms[1].peak_m3s).toBeCloseTo(7, 9);
-    for (const s of storms) expect(s.depth_mm).toBeGreaterThan(0);
-  });
-  it('finds no storm in a steady record', () => {
-    const flat: StormSeries = { ...twoStorms, discharge_m3s: new Float64Array(n).fill(1) };
-    expect(findStorms(flat, 50)).toEqual([]);
-    expect(STORM_PEAK_RATIO).toBeGreaterThan(1);
-  });
-  it('finds the demo storm (day 13.5 of the demo record) first', () => {
-    const storms = findStorms(series, area_km2);
-    expect(storms.length).toBeGreaterThan(0);
-    expect(storms[0].points.peak_ms).toBe(found.peak_ms);
   });
 });
 

@@ -2,9 +2,11 @@
 // as whole records for lists and exports, or as arrays read from the compact series for plots and
 // storm analysis. Both read their window and the site's ratings in one transaction and leave the
 // hydrometry to core (withDischarge, dischargeThrough), so they agree row for row.
-import { dischargeThrough, withDischarge, type DischargeSeries, type ReadingWithDischarge } from '../../core/index';
+import {
+  dischargeThrough, stageRecordWithDischarge, withDischarge, type DischargeSeries, type ReadingWithDischarge, type StageRecordWithDischarge,
+} from '../../core/index';
 import { withDb } from './connection';
-import { checkWindow, joinChunks, seriesChunksIn, type ReadingSeries } from './series-read';
+import { chunkRange, checkWindow, stageOf, stagePartsIn, type ReadingSeries } from './series-read';
 
 /** A reading series with, per reading, its discharge (m³/s; NaN with no rating in force), shift (m), extrapolation flag and rating. */
 export interface SeriesWithDischarge extends ReadingSeries, DischargeSeries {}
@@ -36,13 +38,31 @@ export async function readingsWithDischarge(siteId: string, from_ms: number, to_
  */
 export async function seriesWithDischarge(siteId: string, from_ms: number, to_ms: number): Promise<SeriesWithDischarge> {
   checkWindow('seriesWithDischarge', from_ms, to_ms);
-  const [chunks, ratings] = await withDb(async (db) => {
+  const [parts, ratings] = await withDb(async (db) => {
     const tx = db.transaction(['series', 'loggerDays', 'ratings']);
     return Promise.all([
-      seriesChunksIn(tx, siteId, from_ms, to_ms),
+      stagePartsIn(tx, siteId, from_ms, to_ms),
       tx.objectStore('ratings').index('by-site-from').getAll(ratingsUpTo(siteId, to_ms)),
     ]);
   });
-  const series = joinChunks(chunks, from_ms, to_ms);
+  const series = stageOf(parts, from_ms, to_ms);
   return { ...series, ...dischargeThrough(ratings, series.time_ms, series.stage_m) };
+}
+
+/**
+ * The stage record of a site with from_ms ≤ time_ms ≤ to_ms (UTC ms) with whole records: live spot
+ * readings and logger days joined by core (stageRecordWithDischarge), each value with its discharge.
+ * What the readings list and the exports read; the same join as seriesWithDischarge, value for value.
+ */
+export async function stageRecordIn(siteId: string, from_ms: number, to_ms: number): Promise<StageRecordWithDischarge> {
+  checkWindow('stageRecordIn', from_ms, to_ms);
+  const [readings, days, ratings] = await withDb(async (db) => {
+    const tx = db.transaction(['readings', 'loggerDays', 'ratings']);
+    return Promise.all([
+      tx.objectStore('readings').index('by-site-time').getAll(IDBKeyRange.bound([siteId, from_ms], [siteId, to_ms])),
+      tx.objectStore('loggerDays').index('by-site-day').getAll(chunkRange(siteId, from_ms, to_ms)),
+      tx.objectStore('ratings').index('by-site-from').getAll(ratingsUpTo(siteId, to_ms)),
+    ]);
+  });
+  return stageRecordWithDischarge(ratings, readings, days, from_ms, to_ms);
 }

@@ -14,8 +14,8 @@ export {
   DEFAULT_IMPORT_BATCH, type SaveReadingOptions, type ImportOptions, type ImportProgress, type ImportDuplicate, type ImportResult,
   type OtherStore, type ReadingsTx,
 } from './readings-write';
-export { readingsWithDischarge, seriesWithDischarge, type SeriesWithDischarge } from './discharge-read';
-export { readingSeries, type ReadingSeries } from './series-read';
+export { readingsWithDischarge, seriesWithDischarge, stageRecordIn, type SeriesWithDischarge } from './discharge-read';
+export { latestStageTime, readingSeries, type ReadingSeries } from './series-read';
 export type { ReadingWithDischarge } from '../../core/readings/index';
 export { READING_SOURCE_CODES, readingSourceOfCode, type ReadingSourceCode } from '../../core/records/index';
 export {

@@ -1,16 +1,23 @@
-// Readings of a window as plain arrays (times, stages, sources), read from the compact series store:
-// what plots and the storm analysis need, at a fraction of the cost of reading whole records.
+// A site's stage record of a window as plain arrays, read from the compact series store and the logger
+// days and joined by core's joinStageRecord (the one join of spot readings and logger values): what
+// plots and the storm analysis need, at a fraction of the cost of reading whole records.
 import type { SeriesChunk } from './schema';
 import { withDb } from './connection';
 import { dayOf } from './series-edit';
-import { withLoggerDays } from './logger-series';
-import type { LoggerDayRecord } from '../../core/records/index';
+import { joinStageRecord, type LoggerDayRecord, type StageRecord } from '../../core/index';
+import { now_ms } from './clock';
+import { latestReading, LATEST_AHEAD_MS } from './readings';
 
-/** Non-deleted readings of a window as parallel arrays: times (UTC ms, ascending), stages (m), sources (READING_SOURCE_CODES). */
-export interface ReadingSeries {
-  time_ms: Float64Array;
-  stage_m: Float64Array;
-  source: Uint8Array;
+/**
+ * The stage record of a window as parallel arrays: times (UTC ms, ascending), stages (m; logger values
+ * corrected), sources (READING_SOURCE_CODES), raw logger values and corrections (m; NaN for spot readings).
+ */
+export type ReadingSeries = StageRecord;
+
+/** The spot readings' day chunks and the logger days of a site's window, read in one transaction. */
+export interface StageParts {
+  chunks: SeriesChunk[];
+  days: LoggerDayRecord[];
 }
 
 /** Throws a RangeError unless from_ms ≤ to_ms and neither is NaN (±Infinity means unbounded). */
@@ -37,12 +44,12 @@ function bound(t: Float64Array, x: number, after: boolean): number {
   return lo;
 }
 
-/** The entries of day chunks (in day order) with from_ms ≤ time_ms ≤ to_ms, joined into one series. */
-export function joinChunks(chunks: readonly SeriesChunk[], from_ms: number, to_ms: number): ReadingSeries {
+/** The spot readings of day chunks (in day order) with from_ms ≤ time_ms ≤ to_ms as one series. */
+export function joinChunks(chunks: readonly SeriesChunk[], from_ms: number, to_ms: number): Pick<ReadingSeries, 'time_ms' | 'stage_m' | 'source'> {
   const spans = chunks.map((c) => [bound(c.time_ms, from_ms, false), bound(c.time_ms, to_ms, true)] as const);
   let n = 0;
   for (const [a, b] of spans) n += Math.max(0, b - a);
-  const out: ReadingSeries = { time_ms: new Float64Array(n), stage_m: new Float64Array(n), source: new Uint8Array(n) };
+  const out = { time_ms: new Float64Array(n), stage_m: new Float64Array(n), source: new Uint8Array(n) };
   let k = 0;
   chunks.forEach((c, i) => {
     const [a, b] = spans[i];
@@ -55,18 +62,23 @@ export function joinChunks(chunks: readonly SeriesChunk[], from_ms: number, to_m
   return out;
 }
 
+/** The stage record of a window from its parts (core's joinStageRecord over the spot readings and logger days). */
+export function stageOf(parts: StageParts, from_ms: number, to_ms: number): ReadingSeries {
+  return joinStageRecord(joinChunks(parts.chunks, from_ms, to_ms), parts.days, from_ms, to_ms);
+}
+
 /**
- * Non-deleted readings of a site with from_ms ≤ time_ms ≤ to_ms (UTC ms; ±Infinity for no bound) as
- * arrays in time order (readings at one time in id order, as listReadings gives them). Throws a
- * RangeError for a window that ends before it starts.
+ * The stage record of a site with from_ms ≤ time_ms ≤ to_ms (UTC ms; ±Infinity for no bound): live
+ * spot readings (at one time in id order, as listReadings gives them) and logger values in time order.
+ * Throws a RangeError for a window that ends before it starts.
  */
 export async function readingSeries(siteId: string, from_ms: number, to_ms: number): Promise<ReadingSeries> {
   checkWindow('readingSeries', from_ms, to_ms);
-  const chunks = await withDb(async (db) => {
+  const parts = await withDb(async (db) => {
     const tx = db.transaction(['series', 'loggerDays']);
-    return seriesChunksIn(tx, siteId, from_ms, to_ms);
+    return stagePartsIn(tx, siteId, from_ms, to_ms);
   });
-  return joinChunks(chunks, from_ms, to_ms);
+  return stageOf(parts, from_ms, to_ms);
 }
 
 /** What a read transaction over the series and the logger days offers. */
@@ -75,15 +87,40 @@ export interface SeriesReadTx {
   objectStore(name: 'loggerDays'): { index(name: 'by-site-day'): { getAll(range: IDBKeyRange): Promise<LoggerDayRecord[]> } };
 }
 
-/**
- * The day chunks of a site's window read in tx: the readings' series with the logger days merged in, so
- * every reader of series (plots, storm analysis, exports) sees staff readings and logger records alike.
- */
-export async function seriesChunksIn(tx: SeriesReadTx, siteId: string, from_ms: number, to_ms: number): Promise<SeriesChunk[]> {
+/** The spot readings' day chunks and the logger days of a site's window, read in tx. */
+export async function stagePartsIn(tx: SeriesReadTx, siteId: string, from_ms: number, to_ms: number): Promise<StageParts> {
   const range = chunkRange(siteId, from_ms, to_ms);
   const [chunks, days] = await Promise.all([
     tx.objectStore('series').getAll(range),
     tx.objectStore('loggerDays').index('by-site-day').getAll(range),
   ]);
-  return withLoggerDays(chunks, days);
+  return { chunks, days };
+}
+
+/**
+ * The time (UTC ms) of the latest value of a site's stage record, spot reading or logger value, not more
+ * than a day ahead of the clock (a mistyped year must not move the default windows); undefined when none.
+ */
+export async function latestStageTime(siteId: string): Promise<number | undefined> {
+  const upTo = now_ms() + LATEST_AHEAD_MS;
+  const [reading, logger] = await Promise.all([
+    latestReading(siteId),
+    withDb(async (db) => {
+      // The newest live day first, one record at a time: a long record is never read whole for this.
+      let cursor = await db.transaction('loggerDays').store.index('by-site-day').openCursor(chunkRange(siteId, -Infinity, upTo), 'prev');
+      while (cursor) {
+        const d = cursor.value;
+        if (!d.deleted) {
+          const start = d.day * 86_400_000;
+          let k = d.offset_ms.length - 1;
+          while (k >= 0 && start + d.offset_ms[k] > upTo) k--;
+          if (k >= 0) return start + d.offset_ms[k];
+        }
+        cursor = await cursor.continue();
+      }
+      return undefined;
+    }),
+  ]);
+  if (reading === undefined) return logger;
+  return logger === undefined ? reading.time_ms : Math.max(reading.time_ms, logger);
 }

@@ -12,12 +12,14 @@ const HELP = `Usage: freshet csv <bundle.json> --out <dir>
 
 Writes CSV tables (RFC 4180, UTF-8 with a byte-order mark, ISO 8601 times with the site's UTC offset,
 units in the header, in each site's display units) for every site in the bundle:
-  <site>_readings.csv         readings with discharge, shift, extrapolated flag, source, quality, note
+  <site>_readings.csv         the stage record: every spot reading and logger value with source, stage,
+                              raw logger value and correction, shift, discharge, extrapolated flag, quality
   <site>_gaugings.csv         gaugings: mean stage, discharge, method, grade
   <site>_rating_segments.csv  each rating's power-law segments, coefficients in SI (Q m³/s, h m)
   <site>_rating_tables.csv    each rating as a stage–discharge table (no shift), extrapolated rows marked
   <site>_storm_<date>.csv     each saved storm analysis: discharge, baseflow and direct runoff per time
-                              (separated again from the bundle's readings with the analysis's method)
+                              (separated again from the site's stage record with the analysis's method;
+                              one that cannot be is named as not written, and the exit status is 1)
 Text that a spreadsheet could take for a formula is written with a leading apostrophe.
 The folder must be new or empty; nothing is written unless every file is.
 
@@ -53,8 +55,12 @@ export const csvCommand: Command = {
       skipped.push(...storms.skipped);
     });
     const dir = await writeFilesAtomically('csv', out, files, io.cwd);
-    for (const why of skipped) io.stderr(`freshet csv: not written: ${why}\n`);
     io.stdout(`Wrote ${files.length} CSV files for ${sites.length} site${sites.length === 1 ? '' : 's'} to ${dir}\n`);
+    for (const why of skipped) io.stderr(`freshet csv: not written: ${why}\n`);
+    if (skipped.length > 0) {
+      io.stderr(`freshet csv: ${skipped.length} file${skipped.length === 1 ? ' was' : 's were'} not written (see above); the exit status is 1\n`);
+      return 1;
+    }
     return 0;
   },
 };

@@ -29,6 +29,7 @@ export function demoRecords(end_ms: number, made_ms: number): SyncRecord[] {
     toSyncRecord('rating', { ...s.rating, ...env() }),
     ...s.gaugings.map((g) => toSyncRecord('gauging', { ...g, ...env() })),
     ...s.readings.map((r) => toSyncRecord('reading', { ...r, ...env() })),
+    ...s.loggerDays.map((d) => toSyncRecord('logger-day', { ...d, ...env() })),
   ];
 }
 

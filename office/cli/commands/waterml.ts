@@ -11,7 +11,8 @@ const HELP = `Usage: freshet waterml <bundle.json> --out <dir>
        freshet waterml (--data <dir> | --database <url>) --site <code> --out <dir>
 
 Writes OGC WaterML 2.0 documents for every site in the bundle:
-  <site>_timeseries.xml   Part 1: stage (m) and discharge (m3/s) time series per reading source, times
+  <site>_timeseries.xml   Part 1: stage (m) and discharge (m3/s) time series per reading source (logger
+                          values drift-corrected, in their own series), times
                           with the site's UTC offset, per-point quality, extrapolated discharges marked
   <site>_ratings.xml      Part 2: each rating as a conversion table fine enough for linear interpolation
                           (power-law coefficients stated), dated shifts, periods of validity, and the

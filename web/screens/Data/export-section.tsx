@@ -2,10 +2,10 @@
 // time series, Part 2 ratings and gaugings), shared from the phone or downloaded.
 import { useEffect, useState } from 'preact/hooks';
 import {
-  fromLocalInput, gaugingsToCsv, MS_PER_DAY, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv, toLocalInput, watermlRatings, watermlTimeseries,
+  fromLocalInput, gaugingsToCsv, MS_PER_DAY, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv, stageExportRows, toLocalInput, watermlRatings, watermlTimeseries,
   type SiteRecord,
 } from '../../../core';
-import { latestReadings, listGaugings, listRatings, readingsWithDischarge } from '../../db';
+import { latestStageTime, listGaugings, listRatings, stageRecordIn } from '../../db';
 import { describedBy, Field } from '../../components/Field';
 import { saveTextFile } from './save-file';
 
@@ -35,11 +35,11 @@ export function ExportSection({ sites }: { sites: SiteRecord[] }) {
   const [range, setRange] = useState<{ from: string; to: string }>();
   const [status, setStatus] = useState<{ ok: boolean; text: string }>();
   const [busy, setBusy] = useState(false);
-  // Default window: the 30 days up to the site's latest reading.
+  // Default window: the 30 days up to the latest value of the site's record (spot reading or logger value).
   useEffect(() => {
     if (!site) return;
-    void latestReadings([site.id]).then((m) => {
-      const end = m.get(site.id)?.time_ms ?? Date.now();
+    void latestStageTime(site.id).then((latest) => {
+      const end = latest ?? Date.now();
       setRange({ from: toLocalInput(end - 30 * MS_PER_DAY, site.timeZone), to: toLocalInput(end + 60_000, site.timeZone) });
     });
   }, [site?.id]);
@@ -58,12 +58,15 @@ export function ExportSection({ sites }: { sites: SiteRecord[] }) {
         return 'Type both ends of the window as a date and time.';
       }
       if (to_ms < from_ms) return 'The end of the window is before its start.';
-      const rows = await readingsWithDischarge(site.id, from_ms, to_ms);
+      // The site's whole stage record of the window: spot readings and every logger value (core's join).
+      const rows = stageExportRows(await stageRecordIn(site.id, from_ms, to_ms));
       if (rows.length === 0) return 'No readings in that window: nothing to export.';
+      const loggerValues = rows.reduce((n, r) => n + (r.logger ? 1 : 0), 0);
+      const counted = loggerValues > 0 ? `${rows.length - loggerValues} readings and ${loggerValues} logger values` : `${rows.length} readings`;
       const span = `${range.from.slice(0, 10)}_to_${range.to.slice(0, 10)}`;
       return kind === 'readings-csv'
-        ? { text: readingsToCsv(rows, o), name: `${stem}_readings_${span}.csv`, type: 'text/csv;charset=utf-8', what: `${rows.length} readings` }
-        : { text: watermlTimeseries({ site, readings: rows, generated_ms: Date.now() }), name: `${stem}_timeseries_${span}.xml`, type: 'application/xml', what: `${rows.length} readings as WaterML` };
+        ? { text: readingsToCsv(rows, o), name: `${stem}_readings_${span}.csv`, type: 'text/csv;charset=utf-8', what: counted }
+        : { text: watermlTimeseries({ site, readings: rows, generated_ms: Date.now() }), name: `${stem}_timeseries_${span}.xml`, type: 'application/xml', what: `${counted} as WaterML` };
     }
     const [gaugings, ratings] = await Promise.all([listGaugings(site.id), listRatings(site.id)]);
     switch (kind) {

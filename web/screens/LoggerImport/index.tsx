@@ -7,7 +7,7 @@ import { importLoggerRecord, listReadings, listSites, StorageError, type LoggerI
 import type { ScreenProps } from '../../router';
 import { useRecords } from '../../db/use-records';
 import { Field } from '../../components/Field';
-import { guessMapping } from '../../logger/guess-mapping';
+import { guessLoggerMapping } from '../../logger/guess-mapping';
 import { readInWorker, type WorkerRead } from '../../logger/parse-in-worker';
 import { previewLogger, type LoggerFileRead } from '../../logger/read-logger';
 import { href } from '../../router';
@@ -76,7 +76,8 @@ function Importer({ sites, initialSiteId }: { sites: SiteRecord[]; initialSiteId
       const head = await f.slice(0, HEAD_BYTES).text();
       const { rows, delimiter } = previewLogger(head, 30);
       // The last preview line may be cut by the 64 KiB slice; it is only shown, never stored.
-      setDraft({ base: guessMapping(rows, delimiter), clock: '', standardOffset_min: standardOffsetOf(site.timeZone, new Date().getUTCFullYear()) });
+      const guess = guessLoggerMapping(rows, delimiter);
+      setDraft({ base: guess.mapping, askDateOrder: guess.bothDateOrders, clock: '', standardOffset_min: standardOffsetOf(site.timeZone, new Date().getUTCFullYear()) });
       setPhase({ step: 'map', rows });
     } catch (err) {
       setError(`The file could not be opened: ${(err as Error).message}`);

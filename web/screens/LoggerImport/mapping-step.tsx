@@ -1,6 +1,6 @@
 // The mapping step of a logger import: which line the data start on, the time and level columns, the
 // time format, the clock of the stamps (asked, never guessed) and the level's unit, with the first rows
-// shown as they will be stored.
+// shown as they will be stored (stacked, so the stored time and stage fit a 360 px screen).
 import { useMemo } from 'preact/hooks';
 import {
   displayUnit, LOGGER_LEVEL_UNITS, LOGGER_TIME_FORMATS, loggerReader, toDisplay, toIsoWithOffset, zoneOffset_min,
@@ -18,6 +18,8 @@ export interface MappingDraft {
   clock: ClockChoice;
   /** Minutes east of UTC for 'standard'. */
   standardOffset_min: number;
+  /** True while the dates read both day-first and month-first and the user has not said which. */
+  askDateOrder?: boolean;
 }
 
 const FORMAT_LABELS: Record<LoggerTimeFormat, string> = {
@@ -45,7 +47,7 @@ export function mappingOf(d: MappingDraft, site: SiteRecord): LoggerMapping | un
       : d.clock === 'standard' ? { kind: 'fixed-offset', offset_min: d.standardOffset_min }
         : d.clock === 'zone' ? { kind: 'zone', timeZone: site.timeZone }
           : d.clock === 'in-stamp' ? { kind: 'in-stamp' } : undefined;
-  return clock && { ...d.base, clock };
+  return clock && !d.askDateOrder ? { ...d.base, clock } : undefined;
 }
 
 const OFFSETS = Array.from({ length: (14 + 12) * 4 + 1 }, (_, i) => -12 * 60 + i * 15);
@@ -121,10 +123,17 @@ export function MappingStep({ site, rows, draft, onChange }: {
         </Field>
       </div>
       <Field id="time-format" label="Time written as">
-        <select id="time-format" value={b.timeFormat} onChange={(e) => set({ timeFormat: e.currentTarget.value as LoggerTimeFormat })}>
+        <select id="time-format" value={draft.askDateOrder ? '' : b.timeFormat} aria-invalid={draft.askDateOrder ? true : undefined}
+          onChange={(e) => onChange({ ...draft, askDateOrder: false, base: { ...b, timeFormat: e.currentTarget.value as LoggerTimeFormat } })}>
+          {draft.askDateOrder && <option value="">Choose… (the dates read both ways)</option>}
           {LOGGER_TIME_FORMATS.map((f) => <option key={f} value={f}>{FORMAT_LABELS[f]}</option>)}
         </select>
       </Field>
+      {draft.askDateOrder && (
+        <p class="callout warn" role="status" data-testid="date-order">
+          Every date in the first lines reads both day-first and month-first (e.g. 03/04 is 3 April or 4 March). Choose how the logger writes dates.
+        </p>
+      )}
       <Field id="clock" label="Clock of the logger's times" hint="Loggers often keep local standard time all year. Check the logger's settings: this is never guessed.">
         <select id="clock" value={draft.clock} aria-describedby="clock-hint" aria-invalid={draft.clock === '' ? true : undefined}
           onChange={(e) => onChange({ ...draft, clock: e.currentTarget.value as ClockChoice })}>
@@ -170,31 +179,26 @@ export function MappingStep({ site, rows, draft, onChange }: {
         </Field>
       </div>
       <h4>The first lines as they will be stored</h4>
-      {!mapping && <p class="callout warn" role="status">Choose the clock of the logger's times to see the rows as they will be stored.</p>}
+      {!mapping && <p class="callout warn" role="status">{draft.askDateOrder ? 'Choose how the dates are written' : 'Choose the clock of the logger\'s times'} to see the rows as they will be stored.</p>}
       {preview && 'error' in preview && <p class="callout bad" role="alert">{preview.error}</p>}
-      <div class="scroll-x" tabIndex={0} role="region" aria-label="First lines of the file, scrolls sideways">
-        <table class="preview" aria-label="First lines of the file">
-          <thead><tr><th scope="col">Line</th><th scope="col">In the file</th><th scope="col">Time ({site.timeZone})</th><th scope="col">Stage ({displayUnit('stage', u)})</th></tr></thead>
-          <tbody>
-            {rows.slice(0, 15).map((cells, i) => {
-              const line = i + 1;
-              const row = preview && 'byLine' in preview ? preview.byLine?.get(line) : undefined;
-              return (
-                <tr key={line} class={line < b.firstDataLine ? 'muted' : undefined}>
-                  <td>{line}</td>
-                  <td class="cells">{cells.join(' | ')}</td>
-                  {row && 'problem' in row ? <td colSpan={2} class="problem">{row.problem}</td> : (
-                    <>
-                      <td>{row ? row.time : line < b.firstDataLine ? 'header' : ''}</td>
-                      <td>{row ? row.stage : ''}</td>
-                    </>
-                  )}
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
-      </div>
+      <ol class="preview" aria-label="First lines of the file">
+        {rows.slice(0, 15).map((cells, i) => {
+          const line = i + 1;
+          const row = preview && 'byLine' in preview ? preview.byLine?.get(line) : undefined;
+          return (
+            <li key={line} class={line < b.firstDataLine ? 'muted' : undefined} data-line={line}>
+              <span class="line">Line {line}</span>
+              <span class="cells">{cells.join(' | ')}</span>
+              {row && 'problem' in row ? <span class="problem">{row.problem}</span> : line < b.firstDataLine ? <span class="hint">header</span> : row && (
+                <span class="stored">
+                  <span class="time" data-testid="stored-time">{row.time}</span>
+                  <span class="stage" data-testid="stored-stage">{row.stage} {displayUnit('stage', u)}</span>
+                </span>
+              )}
+            </li>
+          );
+        })}
+      </ol>
     </section>
   );
 }

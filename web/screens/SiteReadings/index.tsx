@@ -3,11 +3,13 @@
 import { useMemo, useState } from 'preact/hooks';
 import type { SiteRecord } from '../../../core';
 import {
-  deleteReading, getSite, listGaugings, ratingInForceAt, readingsWithDischarge, restoreReading, seriesWithDischarge, type ReadingWithDischarge,
+  deleteReading, getSite, listGaugings, ratingInForceAt, restoreReading, seriesWithDischarge, stageRecordIn, type ReadingWithDischarge,
 } from '../../db';
+import { listItems, type ListItem } from './list-items';
+import { LoggerDayRow, ReadingRow } from './rows';
 import { useRecords } from '../../db/use-records';
 import { Hydrograph } from '../../components/Hydrograph';
-import { formatAgo, formatQuantity, formatTime } from '../../format';
+import { formatQuantity, formatTime } from '../../format';
 import { href, type ScreenProps } from '../../router';
 import { displayUnit, hasDischarge, MS_PER_DAY, toDisplay } from '../../../core';
 import './style.css';
@@ -18,7 +20,9 @@ const PAGE = 50;
 
 interface SiteView {
   site: SiteRecord;
-  readings: ReadingWithDischarge[];
+  /** Spot readings one each, the logger record one item per logger day; newest first. */
+  items: ListItem[];
+  last_ms: number | undefined;
   ratingNote?: string;
   gaugingCount: number;
 }
@@ -29,7 +33,9 @@ async function readSite(siteId: string, days: number): Promise<SiteView | undefi
   const now = Date.now();
   // Readings of the last `days` days and every reading with a time ahead of the clock, however far
   // (a mistyped year must stay reachable so it can be fixed).
-  const readings = (await readingsWithDischarge(siteId, now - days * MS_PER_DAY, Infinity)).reverse();
+  const record = await stageRecordIn(siteId, now - days * MS_PER_DAY, Infinity);
+  const items = listItems(record);
+  const last_ms = record.time_ms.length > 0 ? record.time_ms[record.time_ms.length - 1] : undefined;
   const rating = await ratingInForceAt(siteId, now);
   const gaugings = await listGaugings(siteId);
   const ratingNote = rating
@@ -37,14 +43,14 @@ async function readSite(siteId: string, days: number): Promise<SiteView | undefi
       (rating.gaugedRange_m ? `, gauged from ${formatQuantity('stage', rating.gaugedRange_m[0], site.displayUnits)} to ${formatQuantity('stage', rating.gaugedRange_m[1], site.displayUnits)}` : '') +
       (rating.shifts.length ? `, ${rating.shifts.length} dated shift${rating.shifts.length > 1 ? 's' : ''}` : '')
     : undefined;
-  return { site, readings, ratingNote, gaugingCount: gaugings.length };
+  return { site, items, last_ms, ratingNote, gaugingCount: gaugings.length };
 }
 
 /** The discharge of the PLOT_DAYS days up to the latest reading (last_ms, UTC ms), read as the compact series. */
 function SmallPlot({ site, last_ms }: { site: SiteRecord; last_ms: number | undefined }) {
   const series = useRecords(
     () => (last_ms === undefined ? Promise.resolve(undefined) : seriesWithDischarge(site.id, last_ms - PLOT_DAYS * MS_PER_DAY, last_ms)),
-    ['reading', 'rating'],
+    ['reading', 'logger-day', 'rating'],
     [site.id, last_ms],
   );
   const data = useMemo(() => {
@@ -82,7 +88,7 @@ export default function SiteReadings({ params }: ScreenProps) {
   const [shown, setShown] = useState(PAGE);
   const [undo, setUndo] = useState<{ id: string; text: string }>();
   const [message, setMessage] = useState<string>();
-  const view = useRecords(() => readSite(siteId, days), ['site', 'reading', 'rating', 'gauging'], [siteId, days]);
+  const view = useRecords(() => readSite(siteId, days), ['site', 'reading', 'logger-day', 'rating', 'gauging'], [siteId, days]);
   if (view.state === 'loading') return <p aria-busy="true">Reading the site…</p>;
   if (view.state === 'failed') return <p class="callout bad" role="alert">The site could not be read: {view.message}</p>;
   if (!view.value) {
@@ -93,7 +99,7 @@ export default function SiteReadings({ params }: ScreenProps) {
       </>
     );
   }
-  const { site, readings, ratingNote, gaugingCount } = view.value;
+  const { site, items, last_ms, ratingNote, gaugingCount } = view.value;
   const u = site.displayUnits;
   const now = Date.now();
 
@@ -124,7 +130,7 @@ export default function SiteReadings({ params }: ScreenProps) {
         {' · '}
         <a href={href('sites', site.id, 'gaugings')}>{`${gaugingCount} gauging${gaugingCount === 1 ? '' : 's'} on this phone`}</a>
       </p>
-      <SmallPlot site={site} last_ms={readings[0]?.reading.time_ms} />
+      <SmallPlot site={site} last_ms={last_ms} />
       {message && <p class="callout bad" role="alert">{message}</p>}
       {undo && (
         <div class="notice" role="status">
@@ -142,48 +148,20 @@ export default function SiteReadings({ params }: ScreenProps) {
         </div>
       )}
       <h3>Readings, newest first</h3>
-      {readings.length === 0 ? (
+      <p class="hint">The logger record shows one row per day; open a day for its range and drift corrections.</p>
+      {items.length === 0 ? (
         <p>No readings in the last {days} days.</p>
       ) : (
         <ul class="list card" aria-label={`Readings of ${site.name}`}>
-          {readings.slice(0, shown).map((r) => (
-            <li key={r.reading.id} class="reading-row">
-              <details>
-                <summary class="item">
-                  <span>
-                    <strong>{formatQuantity('stage', r.reading.stage_m, u)}</strong>
-                    <span class="hint">
-                      {!hasDischarge(r.discharge_m3s) ? 'no rating' : formatQuantity('discharge', r.discharge_m3s, u)}
-                      {r.extrapolated && <> <span class="tag">extrapolated</span></>}
-                      {r.reading.warnings.length > 0 && <> <span class="tag">{r.reading.warnings.length} warning{r.reading.warnings.length > 1 ? 's' : ''}</span></>}
-                      {r.reading.loggerCheck && <> <span class="tag" data-testid="check-tag">check: logger − gauge {formatQuantity('stage', r.reading.loggerCheck.logger_m - r.reading.stage_m, u)}</span></>}
-                    </span>
-                  </span>
-                  <span>
-                    <span>{formatTime(r.reading.time_ms, site.timeZone)}</span>
-                    <span class="hint">{r.reading.source} · {formatAgo(r.reading.time_ms, now)}</span>
-                  </span>
-                </summary>
-                <div class="reading-more">
-                  {r.reading.warnings.length > 0 && <ul>{r.reading.warnings.map((w, i) => <li key={i}>{w}</li>)}</ul>}
-                  {r.reading.note && <p>Note: {r.reading.note}</p>}
-                  <p class="hint">
-                    {r.reading.quality} quality{r.reading.observer && ` · read by ${r.reading.observer}`}
-                    {r.shift_m !== 0 && ` · shift ${formatQuantity('stage', r.shift_m, u)}`}
-                    {r.reading.gps && ` · location ± ${Math.round(r.reading.gps.accuracy_m)} m`}
-                  </p>
-                  <div class="row reading-actions">
-                    <a class="button" href={href('record', site.id, r.reading.id)} aria-label={`Edit the reading at ${formatTime(r.reading.time_ms, site.timeZone)}`}>Edit</a>
-                    <button type="button" class="danger" onClick={() => void remove(r)} aria-label={`Delete the reading at ${formatTime(r.reading.time_ms, site.timeZone)}`}>Delete</button>
-                  </div>
-                </div>
-              </details>
-            </li>
+          {items.slice(0, shown).map((item) => (
+            item.kind === 'reading'
+              ? <ReadingRow key={item.key} r={item.row} site={site} now={now} onDelete={(r) => void remove(r)} />
+              : <LoggerDayRow key={item.key} day={item} site={site} />
           ))}
         </ul>
       )}
       <div class="row">
-        {readings.length > shown && <button type="button" onClick={() => setShown(shown + PAGE)}>Show {Math.min(PAGE, readings.length - shown)} more</button>}
+        {items.length > shown && <button type="button" onClick={() => setShown(shown + PAGE)}>Show {Math.min(PAGE, items.length - shown)} more</button>}
         <button type="button" onClick={() => setDays(days * 3)}>Show older readings (last {days * 3} days)</button>
       </div>
     </>

@@ -1,7 +1,7 @@
 // The storms found in the site's recent record, newest first; tapping one opens it.
 import type { UnitSystem } from '../../../core';
 import { formatQuantity, formatTime } from '../../format';
-import type { StormFound } from './storms';
+import type { StormFound } from '../../../core';
 
 /** Props: the storms (newest first), which is open, units, zone, the days searched up to the latest reading (UTC ms). */
 export interface StormListProps {
@@ -14,7 +14,7 @@ export interface StormListProps {
   onOpen: (storm: StormFound) => void;
 }
 
-/** A collapsible list of storms; "no storm" is said plainly. */
+/** The list of storms, open (every storm in view; it folds away on a tap); "no storm" is said plainly. */
 export function StormList({ storms, openPeak_ms, units, timeZone, days, last_ms, onOpen }: StormListProps) {
   const upTo = formatTime(last_ms, timeZone);
   if (storms.length === 0) {
@@ -26,10 +26,11 @@ export function StormList({ storms, openPeak_ms, units, timeZone, days, last_ms,
     );
   }
   return (
-    <details class="storm-list">
+    <details class="storm-list" open>
       <summary>
         {storms.length === 1 ? 'One storm' : `${storms.length} storms`} in the {days} days to {upTo}
       </summary>
+      <p class="hint">Found where the record is continuous; figures as each storm opens (its key points as found, the first method).</p>
       <ul class="list" data-testid="storm-list">
         {storms.map((s) => {
           const open = s.points.peak_ms === openPeak_ms;

@@ -8,7 +8,7 @@ import { BundleError, parseBundle, type Bundle } from '../../core/index';
 import type { Database } from './db';
 import { authenticate, type AuthenticatedDevice } from './devices';
 import { IntegrityError, pullBundles, storeBundle, type StoreOptions } from './store';
-import { BODY_BUDGET_BUNDLES, BodyBudget, DEFAULT_MAX_CONNECTIONS, readBody, tooLarge } from './intake';
+import { BODY_BUDGET_BUNDLES, BODY_READ_LIMIT_MS, BodyBudget, DEFAULT_MAX_CONNECTIONS, readBody, tooLarge } from './intake';
 import { findUnstorableRecord, isDataError, positionOf, Refusal } from './refusal';
 
 /** Largest bundle the receiver accepts by default, bytes of request body (16 MiB, ~40,000 readings). */
@@ -30,6 +30,8 @@ export interface ReceiverOptions {
   store?: StoreOptions;
   /** Most connections held open at once (default DEFAULT_MAX_CONNECTIONS); more are closed at once. */
   maxConnections?: number;
+  /** Longest a push may take to send its body, ms (default BODY_READ_LIMIT_MS); then 408. */
+  bodyReadLimit_ms?: number;
 }
 
 interface LogFields {
@@ -130,7 +132,7 @@ async function handle(req: IncomingMessage, res: ServerResponse, url: URL, field
   const device = await authorise(ctx.db, req.headers.authorization);
   fields.device = device.name;
   if (req.method === 'GET') return pull(res, url, fields, ctx, device);
-  const text = await readBody(req, ctx.maxBytes, ctx.budget);
+  const text = await readBody(req, ctx.maxBytes, ctx.budget, ctx.bodyReadLimit_ms ?? BODY_READ_LIMIT_MS);
   return push(req, text, res, fields, ctx, device);
 }
 
@@ -228,8 +230,10 @@ function askingDevice(url: URL): string | undefined {
 }
 
 function sendJson(res: ServerResponse, status: number, value: unknown): number {
-  // After a refusal the rest of the body is not read: the connection cannot carry another request.
-  if (status >= 400) res.setHeader('Connection', 'close');
+  // After an oversized or too slow body the rest of it is not read: the connection cannot carry another
+  // request. After other refusals Node reads and discards the rest of the body (holding none of it), so
+  // the sender gets the answer rather than a connection reset in the middle of its upload.
+  if (status === 413 || status === 408) res.setHeader('Connection', 'close');
   if (status === 401) res.setHeader('WWW-Authenticate', 'Bearer');
   res.writeHead(status, { 'Content-Type': 'application/json; charset=utf-8', 'Cache-Control': 'no-store' });
   res.end(JSON.stringify(value));

@@ -3,6 +3,7 @@
 // token (refused before the body is read), and the rule that a phone pulls every bundle it did not make
 // itself. Run once per engine, like the protocol suite. The refusals follow core/exchange/README.md.
 import { request, type Server } from 'node:http';
+import { connect, type Socket } from 'node:net';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { bundleChecksum, MAX_BUNDLE_DEPTH, type Bundle, type SyncRecord } from '../../../core/index';
 import type { Database } from '../../../office/receiver/db';
@@ -127,6 +128,29 @@ export function describeRobustness(engine: Engine): void {
         }
       }
       expect(answers[4].headers.get('access-control-allow-origin')).toBe('https://elsewhere.example');
+    });
+
+    it('closes connections beyond its cap at once and cuts off a body that does not arrive in time (408)', async () => {
+      const small = createReceiver({ db, origins: [], maxBundleBytes: LIMIT_BYTES, log: () => {}, maxConnections: 3, bodyReadLimit_ms: 400 });
+      const port = engine.port + 10;
+      await new Promise<void>((r) => small.listen(port, '127.0.0.1', r));
+      try {
+        // A body that stops after its first bytes: the receiver answers 408 once the read limit passes.
+        const slow = await answerBeforeBody(port, { Authorization: `Bearer ${token}` });
+        expect(slow.status).toBe(408);
+        // Three idle connections fill the cap; a fourth is closed without an answer (the phone retries later).
+        const idle = await Promise.all([0, 1, 2].map(() => new Promise<Socket>((r) => {
+          const s: Socket = connect(port, '127.0.0.1', () => r(s));
+        })));
+        await new Promise((r) => setTimeout(r, 100));
+        await expect(fetch(`http://127.0.0.1:${port}/`)).rejects.toThrow();
+        for (const s of idle) s.destroy();
+        await new Promise((r) => setTimeout(r, 100));
+        expect((await fetch(`http://127.0.0.1:${port}/`)).status).toBe(200);
+      } finally {
+        small.closeAllConnections();
+        await new Promise((r) => small.close(r));
+      }
     });
 
     it('hands a reinstalled phone (new device id, same token) every bundle, its old self\'s included', async () => {

@@ -79,10 +79,13 @@ export async function runOffice(args: readonly string[], io: OfficeIo = processO
           err.write(`freshet office ${command}: expected one device name; got ${rest.length} (try freshet office --help)\n`);
           return 2;
         }
-        const db = await openOfficeDatabase(where);
+        const db = await openOfficeDatabase(where, command === 'token' ? (line) => err.write(line + '\n') : undefined);
         try {
           if (command === 'token') {
-            out.write((await createDevice(db, rest[0])) + '\n');
+            const token = await createDevice(db, rest[0]);
+            err.write(`Token for ${JSON.stringify(rest[0])} (shown only now; the office keeps only a fingerprint of it):\n`);
+            out.write(token + '\n');
+            err.write(nextSteps(where));
             return 0;
           }
           if (!(await revokeDevice(db, rest[0]))) {
@@ -149,6 +152,21 @@ export async function runOffice(args: readonly string[], io: OfficeIo = processO
     }
     throw e;
   }
+}
+
+/** What to do with a new token: where it goes on the phone and the address to type there. */
+export function nextSteps(where: StoreLocation): string {
+  const folder = String(where.data);
+  const store = where.database !== undefined ? '--database <the same URL>' : `--data ${/^[\w./:@-]+$/.test(folder) ? folder : JSON.stringify(folder)}`;
+  return `Next steps:
+  1. On the phone, open Sync. Under "Office endpoint", type the token above into "Token for this phone".
+  2. Into "Office address" type the address the phone reaches this receiver at, WITHOUT /bundles at the end
+     (the app adds /bundles itself): the HTTPS address of the proxy in front of the receiver, for example
+     https://office.example.org/freshet (see the README, "HTTPS is the reverse proxy's job"), or
+     http://127.0.0.1:8787 when the app runs in a browser on this same computer.
+  3. Press "Save endpoint". The receiver must be running for the phone to sync:
+     npx freshet office ${store} --origin <the web address the app is served from>
+`;
 }
 
 /** True for addresses that only this machine can reach. */

@@ -3,7 +3,7 @@
 import { randomBytes } from 'node:crypto';
 import { mkdir, readdir, rename, rm, rmdir, stat, writeFile } from 'node:fs/promises';
 import { basename, dirname, join, resolve } from 'node:path';
-import { CliError } from './io';
+import { CliError } from '../shared/io';
 
 /** One file to write: its name inside the output folder (no slashes) and its text (UTF-8). */
 export interface OutputFile {

@@ -5,8 +5,8 @@ import { createReceiver, DEFAULT_MAX_BUNDLE_BYTES } from './http';
 import { createDevice, listDevices, revokeDevice } from './devices';
 import { openOfficeDatabase, OfficeSetupError, type StoreLocation } from './open';
 import { importBundle } from './import-files';
-import { CliError } from '../cli/io';
-import { readBundleFile } from '../cli/read-bundle';
+import { CliError } from '../shared/io';
+import { readBundleFile } from '../shared/read-bundle';
 
 /** Where `freshet office` writes: results to stdout, messages to stderr (the dispatcher's CliIo fits). */
 export interface OfficeIo {
@@ -29,7 +29,8 @@ version in PostgreSQL (embedded in a folder by default, or a server).
       Listening anywhere but this machine (127.0.0.1, ::1, localhost) needs --behind-proxy:
       HTTPS is the reverse proxy's job.
   freshet office token <device name> (--data <folder> | --database <url>)
-      Add a device and print its token once (only a hash is kept).
+      Add a device and print its token once (only a hash is kept), with where to enter it on the
+      phone and the address to type there (without /bundles).
   freshet office devices (--data <folder> | --database <url>)
       List devices, their last push and bundle count.
   freshet office revoke <device name> (--data <folder> | --database <url>)

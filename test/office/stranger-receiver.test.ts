@@ -8,7 +8,7 @@ import { createServer, type Server } from 'node:http';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { driftCorrections } from '../../core';
 import { acknowledge, importLoggerRecord, importReadings, nextOutgoing, saveSite, waitingCount } from '../../web/db';
-import { pushBundle } from '../../web/sync/http';
+import { pullBundles, pushBundle } from '../../web/sync/http';
 import { useFreshDb } from '../support/db';
 import { loggerRecord, singleStorm, stageOf } from '../support/logger-records';
 import { QUARTER_HOUR_MS, reading, site, T0 } from '../support/records';
@@ -101,5 +101,9 @@ describe('a receiver written from the protocol page alone', () => {
     expect((checkRecord?.body as { loggerCheck: { logger_m: number } }).loggerCheck.logger_m).toBe(0.507);
     const values = [...stranger.records.values()].filter((r) => r.kind === 'logger-day').reduce((n, r) => n + (r.body as { offset_ms: number[] }).offset_ms.length, 0);
     expect(values).toBe(sim.time_ms.length);
+    // The phone names itself when it pulls, so what it made itself does not come back (page: "Pull").
+    const pulled = await pullBundles(settings, undefined);
+    expect(pulled).toMatchObject({ kind: 'bundles', bundles: [] });
+    expect(stranger.bundles.size).toBe(sent);
   });
 });

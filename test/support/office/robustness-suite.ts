@@ -153,6 +153,27 @@ export function describeRobustness(engine: Engine): void {
       }
     });
 
+    it('answers 503 busy with Retry-After when the bodies being read would pass its memory budget', async () => {
+      // Budget: 4 bundles of the largest size (office/receiver/intake.ts); each stalled post announces the largest.
+      const small = createReceiver({ db, origins: [], maxBundleBytes: 200 * 1024, log: () => {}, bodyReadLimit_ms: 1500 });
+      const port = engine.port + 11;
+      await new Promise<void>((r) => small.listen(port, '127.0.0.1', r));
+      try {
+        const stalled = [0, 1, 2, 3].map(() => answerBeforeBody(port, { Authorization: `Bearer ${token}` }));
+        await new Promise((r) => setTimeout(r, 300));
+        const fifth = await answerBeforeBody(port, { Authorization: `Bearer ${token}` });
+        expect(fifth.status).toBe(503);
+        expect(fifth.headers['retry-after']).toMatch(/^\d+$/);
+        expect((await Promise.all(stalled)).map((a) => a.status)).toEqual([408, 408, 408, 408]);
+        // The budget is given back: a whole bundle goes through again.
+        const b = bundleOf('dev-a', readingRecords('dev-a', 2));
+        expect((await push(`http://127.0.0.1:${port}`, token, b)).status).toBe(201);
+      } finally {
+        small.closeAllConnections();
+        await new Promise((r) => small.close(r));
+      }
+    });
+
     it('hands a reinstalled phone (new device id, same token) every bundle, its old self\'s included', async () => {
       const tokenB = await createDevice(db, 'phone B');
       const a1 = bundleOf('dev-a', [siteRecord('dev-a'), ...readingRecords('dev-a', 3)]);

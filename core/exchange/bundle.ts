@@ -2,6 +2,7 @@
 // document with its own id, the device, the creation time, the records ({ kind, id, rev, deleted?, body })
 // and a SHA-256 checksum of the records. The format is described for other implementers in README.md here.
 import { isUuid, validateSyncRecord, RecordValidationError, type SyncRecord } from '../records/index';
+import { MAX_BUNDLE_DEPTH, nestedDeeperThan } from './nesting';
 import { sha256Hex, utf8Bytes } from './sha256';
 
 /** The `format` field every bundle carries. */
@@ -103,6 +104,7 @@ export function parseBundle(x: unknown): Bundle {
   if (typeof o.checksum !== 'string' || !/^sha256:[0-9a-f]{64}$/.test(o.checksum)) {
     throw new BundleError('checksum', `The bundle's checksum must be "sha256:" and 64 hex digits; got ${describe(o.checksum)}.`);
   }
+  checkNesting(o, o.records);
   if (bundleChecksum(o.records as SyncRecord[]) !== o.checksum) {
     throw new BundleError('checksum', 'The bundle is damaged: its records do not match its checksum. Ask for the file again.');
   }
@@ -123,6 +125,16 @@ export function parseBundle(x: unknown): Bundle {
     seen.set(key, body);
   });
   return o as unknown as Bundle;
+}
+
+// Before the checksum (which serialises the records recursively): nesting beyond MAX_BUNDLE_DEPTH is
+// refused, naming the record it is in when it is in one.
+function checkNesting(bundle: object, records: unknown[]): void {
+  if (!nestedDeeperThan(bundle, MAX_BUNDLE_DEPTH)) return;
+  const i = records.findIndex((r) => nestedDeeperThan(r, MAX_BUNDLE_DEPTH - 2));
+  const why = `objects and lists may nest at most ${MAX_BUNDLE_DEPTH} levels deep, counting the bundle itself`;
+  if (i < 0) throw new BundleError('shape', `The bundle is nested too deeply: ${why}.`);
+  throw new BundleError('record', `Record ${i + 1} of the bundle is nested too deeply: ${why}.`, i);
 }
 
 function describe(x: unknown): string {

@@ -7,6 +7,7 @@ export { printedRatingTable, ratingSegmentsToCsv, ratingTablesToCsv, RATING_TABL
 export { stormToCsv, type SeparatedStorm } from './storm-csv';
 export { BUNDLE_FORMAT, BUNDLE_VERSION, BundleError, bundleChecksum, makeBundle, parseBundle, type Bundle, type BundleErrorReason, type BundleInput } from './bundle';
 export { sha256Hex, utf8Bytes } from './sha256';
+export { MAX_BUNDLE_DEPTH, nestedDeeperThan } from './nesting';
 export { escapeXml, gmlId } from './xml-write';
 export { watermlTimeseries, WATERML_QUALITY, type TimeseriesDocumentInput } from './waterml-timeseries';
 export { watermlRatings, segmentEquation, type RatingsDocumentInput } from './waterml-ratings';

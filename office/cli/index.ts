@@ -4,7 +4,7 @@ import { checkCommand } from './commands/check';
 import { csvCommand } from './commands/csv';
 import { demoCommand } from './commands/demo';
 import { watermlCommand } from './commands/waterml';
-import { CliError, processIo, type CliIo, type Command } from './io';
+import { CliError, processIo, type CliIo, type Command } from '../shared/io';
 import { officeCommand } from '../receiver/command';
 
 /** Every subcommand, in the order `freshet --help` lists them. */

@@ -1,8 +1,9 @@
 // Writes a set of files into an output folder all at once: into a fresh temporary folder beside it
 // first, then renamed into place, so a failure part-way leaves nothing half-written.
-import { mkdtemp, readdir, rename, rm, rmdir, stat, writeFile } from 'node:fs/promises';
+import { randomBytes } from 'node:crypto';
+import { mkdir, readdir, rename, rm, rmdir, stat, writeFile } from 'node:fs/promises';
 import { basename, dirname, join, resolve } from 'node:path';
-import { CliError } from './io';
+import { CliError } from '../shared/io';
 
 /** One file to write: its name inside the output folder (no slashes) and its text (UTF-8). */
 export interface OutputFile {
@@ -20,7 +21,7 @@ async function statOrNull(path: string) {
 
 /**
  * Writes files into outDir (created; it may exist only as an empty folder). Resolves with the folder's
- * full path. Throws a CliError, writing nothing, when the folder holds files or its parent is missing.
+ * full path (missing folders above it are made). Throws a CliError, writing nothing, when the folder holds files.
  */
 export async function writeFilesAtomically(command: string, outDir: string, files: readonly OutputFile[], cwd: string): Promise<string> {
   const target = resolve(cwd, outDir);
@@ -32,8 +33,14 @@ export async function writeFilesAtomically(command: string, outDir: string, file
     }
     names.add(f.name);
   }
+  // Missing folders above the output folder are made (as `mkdir -p` would); a file in the way is refused.
+  try {
+    await mkdir(parent, { recursive: true });
+  } catch (err) {
+    throw new CliError(`freshet ${command}: cannot make the folder ${parent}: ${(err as Error).message.split('\n')[0]}`);
+  }
   const parentStat = await statOrNull(parent);
-  if (!parentStat?.isDirectory()) throw new CliError(`freshet ${command}: the folder ${parent} does not exist; create it or give another --out`);
+  if (!parentStat?.isDirectory()) throw new CliError(`freshet ${command}: ${parent} is not a folder; give another --out`);
   const existing = await statOrNull(target);
   if (existing && !existing.isDirectory()) throw new CliError(`freshet ${command}: ${target} is a file; --out needs a new or empty folder`);
   if (existing && (await readdir(target)).length > 0) {
@@ -41,7 +48,10 @@ export async function writeFilesAtomically(command: string, outDir: string, file
   }
   let temp: string;
   try {
-    temp = await mkdtemp(join(parent, `.${basename(target)}.partial-`));
+    // mkdir (not mkdtemp, which always makes 0700) so the folder's permissions follow the umask, as the
+    // files' do; the random name keeps two runs apart.
+    temp = join(parent, `.${basename(target)}.partial-${randomBytes(6).toString('hex')}`);
+    await mkdir(temp);
   } catch (err) {
     throw new CliError(`freshet ${command}: cannot write in ${parent}: ${(err as Error).message.split('\n')[0]}`);
   }

@@ -5,8 +5,8 @@ import { createReceiver, DEFAULT_MAX_BUNDLE_BYTES } from './http';
 import { createDevice, listDevices, revokeDevice } from './devices';
 import { openOfficeDatabase, OfficeSetupError, type StoreLocation } from './open';
 import { importBundle } from './import-files';
-import { CliError } from '../cli/io';
-import { readBundleFile } from '../cli/read-bundle';
+import { CliError } from '../shared/io';
+import { readBundleFile } from '../shared/read-bundle';
 
 /** Where `freshet office` writes: results to stdout, messages to stderr (the dispatcher's CliIo fits). */
 export interface OfficeIo {
@@ -29,7 +29,8 @@ version in PostgreSQL (embedded in a folder by default, or a server).
       Listening anywhere but this machine (127.0.0.1, ::1, localhost) needs --behind-proxy:
       HTTPS is the reverse proxy's job.
   freshet office token <device name> (--data <folder> | --database <url>)
-      Add a device and print its token once (only a hash is kept).
+      Add a device and print its token once (only a hash is kept), with where to enter it on the
+      phone and the address to type there (without /bundles).
   freshet office devices (--data <folder> | --database <url>)
       List devices, their last push and bundle count.
   freshet office revoke <device name> (--data <folder> | --database <url>)
@@ -79,10 +80,13 @@ export async function runOffice(args: readonly string[], io: OfficeIo = processO
           err.write(`freshet office ${command}: expected one device name; got ${rest.length} (try freshet office --help)\n`);
           return 2;
         }
-        const db = await openOfficeDatabase(where);
+        const db = await openOfficeDatabase(where, command === 'token' ? (line) => err.write(line + '\n') : undefined);
         try {
           if (command === 'token') {
-            out.write((await createDevice(db, rest[0])) + '\n');
+            const token = await createDevice(db, rest[0]);
+            err.write(`Token for ${JSON.stringify(rest[0])} (shown only now; the office keeps only a fingerprint of it):\n`);
+            out.write(token + '\n');
+            err.write(nextSteps(where));
             return 0;
           }
           if (!(await revokeDevice(db, rest[0]))) {
@@ -149,6 +153,21 @@ export async function runOffice(args: readonly string[], io: OfficeIo = processO
     }
     throw e;
   }
+}
+
+/** What to do with a new token: where it goes on the phone and the address to type there. */
+export function nextSteps(where: StoreLocation): string {
+  const folder = String(where.data);
+  const store = where.database !== undefined ? '--database <the same URL>' : `--data ${/^[\w./:@-]+$/.test(folder) ? folder : JSON.stringify(folder)}`;
+  return `Next steps:
+  1. On the phone, open Sync. Under "Office endpoint", type the token above into "Token for this phone".
+  2. Into "Office address" type the address the phone reaches this receiver at, WITHOUT /bundles at the end
+     (the app adds /bundles itself): the HTTPS address of the proxy in front of the receiver, for example
+     https://office.example.org/freshet (see the README, "HTTPS is the reverse proxy's job"), or
+     http://127.0.0.1:8787 when the app runs in a browser on this same computer.
+  3. Press "Save endpoint". The receiver must be running for the phone to sync:
+     npx freshet office ${store} --origin <the web address the app is served from>
+`;
 }
 
 /** True for addresses that only this machine can reach. */

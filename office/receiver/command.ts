@@ -1,5 +1,5 @@
 // `freshet office` as one entry of the `freshet` dispatcher (office/cli).
-import type { Command } from '../cli/io';
+import type { Command } from '../shared/io';
 import { OFFICE_HELP, runOffice } from './cli';
 
 /** The `office` subcommand: the receiver and its devices. */

@@ -76,6 +76,12 @@ export async function openPostgres(url: string, poolSize = 10): Promise<Database
     async transaction(fn) {
       const client = await pool.connect();
       let broken = false;
+      // A connection lost while checked out (the server restarted) is reported on the client as an
+      // 'error' event as well as by the query under way: without a listener the process would exit.
+      const lost = () => {
+        broken = true;
+      };
+      client.on('error', lost);
       try {
         await client.query('begin');
         const out = await fn(wrap(client));
@@ -90,6 +96,7 @@ export async function openPostgres(url: string, poolSize = 10): Promise<Database
         }
         throw err;
       } finally {
+        client.removeListener('error', lost);
         client.release(broken);
       }
     },

@@ -26,13 +26,14 @@ export function tokenHash(token: string): string {
   return createHash('sha256').update(token, 'utf8').digest('hex');
 }
 
-const NAME = /^[\p{L}\p{N}][\p{L}\p{N} ._-]{0,63}$/u;
+// Letters of any script, digits, spaces and the marks names and descriptions use ("Hana's phone", "Site 3 (spare)").
+const NAME = /^[\p{L}\p{N}][\p{L}\p{N} ._'’()-]{0,63}$/u;
 
 /** Adds a device and returns its new token (256 random bits, base64url); refuses a taken or odd name. */
 export async function createDevice(db: Queryable, name: string): Promise<string> {
   if (!NAME.test(name)) {
     throw new RangeError(
-      `A device name needs 1–64 letters, digits, spaces, '.', '_' or '-', starting with a letter or digit; got ${JSON.stringify(name)}`,
+      `A device name needs 1–64 letters, digits, spaces or . _ - ' ( ), starting with a letter or digit; got ${JSON.stringify(name)}`,
     );
   }
   const taken = await db.query('select 1 from office_devices where name = $1', [name]);

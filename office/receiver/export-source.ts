@@ -2,9 +2,9 @@
 // office's database (`--data <folder>` or `--database <url>` with `--site <code>`): the current version of
 // the site and of every record of it, as the merge rules left them.
 import type { SyncRecord } from '../../core/index';
-import { expectPositionals, type OptionSpec, type ParsedArgs } from '../cli/args';
-import { CliError, type CliIo } from '../cli/io';
-import { readBundleFile } from '../cli/read-bundle';
+import { expectPositionals, type OptionSpec, type ParsedArgs } from '../shared/args';
+import { CliError, type CliIo } from '../shared/io';
+import { readBundleFile } from '../shared/read-bundle';
 import type { Queryable } from './db';
 import { openOfficeDatabase, OfficeSetupError } from './open';
 

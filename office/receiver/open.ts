@@ -1,7 +1,7 @@
 // Opening the office database from command-line options: PGlite in the data folder (held with a lock file,
 // since one folder must never be open in two processes at once), or a PostgreSQL server by URL. Either
 // way the schema is brought up to date before it is used.
-import { closeSync, mkdirSync, openSync, readFileSync, rmSync, writeSync } from 'node:fs';
+import { closeSync, existsSync, mkdirSync, openSync, readFileSync, rmSync, writeSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { openPglite, openPostgres, type Database } from './db';
 import { migrate } from './migrations';
@@ -17,8 +17,14 @@ export class OfficeSetupError extends Error {
   override name = 'OfficeSetupError';
 }
 
-/** Opens and migrates the database; the returned close() also releases the folder. */
-export async function openOfficeDatabase(where: StoreLocation): Promise<Database> {
+/** How long between "still creating" lines while a new embedded database is made, ms. */
+const PROGRESS_EVERY_MS = 5000;
+
+/**
+ * Opens and migrates the database; the returned close() also releases the folder. `report` (optional)
+ * gets plain lines while a new embedded database is created (its first use takes up to a minute).
+ */
+export async function openOfficeDatabase(where: StoreLocation, report?: (line: string) => void): Promise<Database> {
   if (where.database !== undefined) {
     if (!/^postgres(ql)?:\/\//.test(where.database)) {
       throw new OfficeSetupError(`--database needs a PostgreSQL URL like postgres://user@host:5432/freshet; got ${JSON.stringify(where.database)}`);
@@ -38,9 +44,14 @@ export async function openOfficeDatabase(where: StoreLocation): Promise<Database
   const dir = resolve(where.data);
   mkdirSync(dir, { recursive: true });
   const release = lockFolder(dir);
+  const firstUse = report !== undefined && !existsSync(join(dir, 'pglite', 'PG_VERSION'));
+  const started = Date.now();
+  const ticker = firstUse ? setInterval(() => report(`  still creating the office database (${Math.round((Date.now() - started) / 1000)} s so far)…`), PROGRESS_EVERY_MS) : undefined;
+  if (firstUse) report(`Creating the office database in ${dir} (first use only; this takes up to a minute)…`);
   try {
     const db = await openPglite(join(dir, 'pglite'));
     await migrate(db);
+    if (firstUse) report(`Office database ready (${Math.round((Date.now() - started) / 1000)} s).`);
     return {
       ...db,
       async close() {
@@ -54,6 +65,8 @@ export async function openOfficeDatabase(where: StoreLocation): Promise<Database
   } catch (err) {
     release();
     throw err;
+  } finally {
+    clearInterval(ticker);
   }
 }
 

@@ -175,19 +175,24 @@ export const PULL_MAX_BUNDLES = 200;
 /** Most bytes of bundle documents in one pull answer (UTF-16 code units, close to bytes for JSON). */
 export const PULL_MAX_CHARS = 8 * 1024 * 1024;
 
-/** Bundles numbered after `after` that devices other than `deviceNo` (and the office) pushed, oldest first. */
-export async function pullBundles(db: Queryable, after: number, deviceNo: number): Promise<PullPage> {
+/**
+ * Bundles numbered after `after`, oldest first, except those made by the asking phone: a bundle is left
+ * out when its own `device` field is `appDevice` (the phone's device id), whatever token pushed it. So a
+ * reinstalled phone (a new device id) with a reused token gets everything back; with no `appDevice`
+ * every bundle is sent (merging one's own records again changes nothing).
+ */
+export async function pullBundles(db: Queryable, after: number, appDevice: string | undefined): Promise<PullPage> {
   // One statement is one snapshot: the page and the highest number seen come from the same moment.
   const rows = await db.query<{ seq: string | null; document: string | null; top: string }>(
     `with page as (
        select seq, document from office_bundles
-        where seq > $1 and device_no <> $2
+        where seq > $1 and ($2::text is null or bundle_device <> $2::text)
         order by seq limit $3),
      top as (select coalesce(max(seq), 0) as top from office_bundles)
      select p.seq::text as seq, p.document, t.top::text as top
        from top t left join page p on true
       order by p.seq`,
-    [after, deviceNo, PULL_MAX_BUNDLES + 1],
+    [after, appDevice ?? null, PULL_MAX_BUNDLES + 1],
   );
   const top = Number(rows[0]?.top ?? 0);
   const documents: string[] = [];

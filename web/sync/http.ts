@@ -1,7 +1,7 @@
 // The two requests of the protocol (core/exchange/README.md): push one bundle, pull bundles after a
 // cursor. Both cross origins with a bearer token (a preflighted CORS request, no cookies).
 import { parseBundle, readPushAnswer, retryAfter_ms, type Bundle, type PushOutcome } from '../../core';
-import type { SyncSettings } from '../db';
+import { deviceId, type SyncSettings } from '../db';
 
 /** How long a request may take before it is given up and treated as a network failure, ms. */
 export const REQUEST_TIMEOUT_MS = 60_000;
@@ -40,9 +40,13 @@ export type PullOutcome =
   | { kind: 'retry'; message: string; after_ms?: number }
   | { kind: 'fix'; message: string };
 
-/** Asks {base}/bundles?after=<cursor> for what others sent; every bundle is checked before it is returned. */
+/**
+ * Asks {base}/bundles?after=<cursor>&device=<this phone's id> for every bundle this phone did not make
+ * (the receiver leaves out only bundles carrying this device id); every bundle is checked before it is returned.
+ */
 export async function pullBundles(settings: SyncSettings, cursor: string | undefined): Promise<PullOutcome> {
-  const query = cursor === undefined ? '' : `?after=${encodeURIComponent(cursor)}`;
+  const device = `device=${encodeURIComponent(await deviceId())}`;
+  const query = cursor === undefined ? `?${device}` : `?after=${encodeURIComponent(cursor)}&${device}`;
   const res = await send(`${settings.base}/bundles${query}`, { method: 'GET', headers: { Authorization: `Bearer ${settings.token}`, Accept: 'application/json' } });
   if (!res) return { kind: 'retry', message: 'No connection to the office. The app asks for new records again when the network is back.' };
   if (res.status >= 200 && res.status < 300 && res.status !== 200) {

@@ -1,9 +1,9 @@
 // `freshet check <bundle.json>`: validates a bundle (format, version, checksum, every record) and prints
 // a summary; a bad bundle ends with one plain line and exit status 1.
 import { SYNC_KINDS } from '../../../core/index';
-import { expectPositionals, parseCommandArgs } from '../args';
-import type { Command } from '../io';
-import { readBundleFile } from '../read-bundle';
+import { expectPositionals, parseCommandArgs } from '../../shared/args';
+import type { Command } from '../../shared/io';
+import { readBundleFile } from '../../shared/read-bundle';
 import { sitesOf } from '../site-data';
 
 const HELP = `Usage: freshet check <bundle.json>

@@ -1,7 +1,7 @@
 // `freshet csv <bundle.json> --out <dir>`: the CSV tables of every site in a bundle, written all at once.
 import { gaugingsToCsv, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv } from '../../../core/index';
-import { parseCommandArgs } from '../args';
-import { CliError, type Command } from '../io';
+import { parseCommandArgs } from '../../shared/args';
+import { CliError, type Command } from '../../shared/io';
 import { DATABASE_SOURCE_HELP, DATABASE_SOURCE_OPTIONS, exportRecords } from '../../receiver/export-source';
 import { siteStems, sitesOf } from '../site-data';
 import { stormFiles } from '../storm-files';

@@ -1,8 +1,8 @@
 // `freshet demo`: the invented demo site (site, rating, gaugings, readings) as a bundle on stdout.
 import { randomUUID } from 'node:crypto';
 import { demoScenario, formatRev, makeBundle, toSyncRecord, type SyncRecord } from '../../../core/index';
-import { parseCommandArgs, expectPositionals } from '../args';
-import { CliError, type Command } from '../io';
+import { parseCommandArgs, expectPositionals } from '../../shared/args';
+import { CliError, type Command } from '../../shared/io';
 
 const HELP = `Usage: freshet demo [--end TIME]
 

@@ -1,8 +1,8 @@
 // `freshet waterml <bundle.json> --out <dir>`: WaterML 2.0 documents of every site in a bundle, written
 // all at once: Part 1 for its readings and discharges, Part 2 for its ratings and gaugings.
 import { watermlRatings, watermlTimeseries } from '../../../core/index';
-import { parseCommandArgs } from '../args';
-import { CliError, type Command } from '../io';
+import { parseCommandArgs } from '../../shared/args';
+import { CliError, type Command } from '../../shared/io';
 import { DATABASE_SOURCE_HELP, DATABASE_SOURCE_OPTIONS, exportRecords } from '../../receiver/export-source';
 import { siteStems, sitesOf } from '../site-data';
 import { writeFilesAtomically, type OutputFile } from '../write-files';

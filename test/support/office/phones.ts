@@ -57,11 +57,12 @@ export async function push(
   return { status: res.status, body: (await res.json()) as Record<string, unknown> };
 }
 
-/** Pulls every page after `cursor` (following `more`); resolves to the bundles and the last cursor. */
-export async function pullAll(base: string, token: string, cursor = '0'): Promise<{ status: number; bundles: Bundle[]; cursor: string }> {
+/** Pulls every page after `cursor` (following `more`) as phone `device` (its own bundles left out); resolves to the bundles and the last cursor. */
+export async function pullAll(base: string, token: string, cursor = '0', device?: string): Promise<{ status: number; bundles: Bundle[]; cursor: string }> {
   const bundles: Bundle[] = [];
+  const asking = device === undefined ? '' : `&device=${encodeURIComponent(device)}`;
   for (;;) {
-    const res = await fetch(`${base}/bundles?after=${encodeURIComponent(cursor)}`, { headers: { Authorization: `Bearer ${token}` } });
+    const res = await fetch(`${base}/bundles?after=${encodeURIComponent(cursor)}${asking}`, { headers: { Authorization: `Bearer ${token}` } });
     if (res.status !== 200) return { status: res.status, bundles, cursor };
     const body = (await res.json()) as { bundles: Bundle[]; cursor: string; more: boolean };
     bundles.push(...body.bundles);

@@ -1,4 +1,5 @@
-// What a subcommand may touch: its output streams and the working folder. Tests pass their own.
+// What a subcommand may touch: its output streams and the working folder (tests pass their own); a
+// refusal with its exit status; the shape of a subcommand. Shared by office/cli and office/receiver.
 
 /** Where a subcommand writes: stdout for results, stderr for messages; cwd resolves relative paths. */
 export interface CliIo {

@@ -165,7 +165,7 @@ describe('phone layout and accessibility at 360×640', () => {
 });
 
 describe('first-visit budget', () => {
-  it('loads at most 60 KiB gzip of JS and CSS on the first visit', async () => {
+  it('loads at most 45 KiB gzip of JS and CSS on the first visit', async () => {
     const { files, total_gzip_bytes } = await measureFirstVisit(server.url);
     expect(files.some((f) => f.kind === 'script')).toBe(true);
     expect(files.some((f) => /uplot/i.test(f.url)), 'uPlot must load only with a plot').toBe(false);

@@ -5,8 +5,9 @@
 //   - a few seconds after this tab saved records that now wait for the office (a push, then a pull);
 //   - when the service worker's Background Sync fires while a page is open;
 //   - "Send and receive now" on the Sync screen (the screen calls the engine itself);
-//   - otherwise at most every 15 minutes while the app is visible; a hidden tab never pulls, and coming
-//     back to the foreground pulls only when the last exchange is that old.
+//   - otherwise at most every 15 minutes while the app is visible; a hidden tab never pulls (it may send),
+//     and coming back to the foreground pulls only when the last exchange is that old, or when records
+//     wait to be sent (then the run sends them and pulls after the push).
 // The sync client (engine, HTTP, bundle code) loads only once an office endpoint is set up, so a first
 // visit never downloads it. Each trigger only starts a run; the outbox in IndexedDB holds the data.
 import { onRecordsChanged } from '../db/events';
@@ -103,7 +104,10 @@ export function startSyncTriggers(network?: NetworkWatch): void {
     addEventListener('online', () => void run());
   }
   document.addEventListener('visibilitychange', () => {
-    if (visible() && Date.now() - lastPull_ms >= PULL_EVERY_MS) void run(network);
+    if (!visible()) return;
+    // Back in the foreground: a pull when the last is 15 minutes old, else a run only to send what waits.
+    if (Date.now() - lastPull_ms >= PULL_EVERY_MS) void run(network);
+    else void getSyncValue('settings').then((s) => (s ? somethingWaits() : false)).then((waits) => (waits ? run(network) : undefined));
   });
   onRecordsChanged((c) => {
     // Only this tab's own saves: another tab runs its own triggers.

@@ -1,5 +1,6 @@
 // One sync run: send every waiting bundle (each until acknowledged), then, when the page is visible,
-// pull what others sent and merge it (a hidden tab only sends). One run at a time per tab, and per browser where Web Locks exist (tabs and the service worker).
+// pull what others sent and merge it (a hidden tab only sends). One run at a time per tab, and per
+// browser where Web Locks exist (tabs and the service worker).
 // A failure that can pass (no network, 408, 429, 5xx, a login page) schedules another run with growing
 // waits and asks the service worker's Background Sync to trigger one when the network returns; a failure
 // the user must fix (token, address) stops until the settings change or the user asks again.

@@ -18,7 +18,16 @@ export default defineConfig({
   root: resolve(import.meta.dirname, 'web'),
   publicDir: resolve(import.meta.dirname, 'public'),
   define: { __APP_VERSION__: JSON.stringify(version) },
-  build: { outDir, emptyOutDir: true, target: 'es2022', sourcemap: false },
+  build: {
+    outDir, emptyOutDir: true, target: 'es2022', sourcemap: false,
+    rolldownOptions: {
+      // Our own modules (core/, web/) do nothing when imported but define things; saying so lets the
+      // bundler leave out of a chunk whatever a barrel (core/index.ts, web/db/index.ts) re-exports and
+      // that chunk does not use, so the first screen does not load the storm analysis or the logger
+      // import. Stylesheets are imported for their effect and stay.
+      treeshake: { moduleSideEffects: (id: string) => !/[\\/](core|web)[\\/][^?]*\.tsx?$/.test(id) },
+    },
+  },
   // The preview server sends the policy as a header too, with frame-ancestors (a meta tag cannot).
   preview: { host: '127.0.0.1', port: 4173, strictPort: true, headers: { 'Content-Security-Policy': contentSecurityPolicy({ frameAncestors: "'none'" }) } },
   plugins: [

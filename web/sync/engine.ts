@@ -1,5 +1,6 @@
-// One sync run: send every waiting bundle (each until acknowledged), then pull what others sent and merge
-// it. One run at a time per tab, and per browser where Web Locks exist (tabs and the service worker).
+// One sync run: send every waiting bundle (each until acknowledged), then, when the page is visible,
+// pull what others sent and merge it (a hidden tab only sends). One run at a time per tab, and per
+// browser where Web Locks exist (tabs and the service worker).
 // A failure that can pass (no network, 408, 429, 5xx, a login page) schedules another run with growing
 // waits and asks the service worker's Background Sync to trigger one when the network returns; a failure
 // the user must fix (token, address) stops until the settings change or the user asks again.
@@ -20,6 +21,13 @@ export const syncRunning = createStore<boolean>(false);
 
 let current: Promise<RunResult> | undefined;
 let timer: ReturnType<typeof setTimeout> | undefined;
+/** Pulls that failed in a row: their retries wait longer each time, like a push's. */
+let pullFailures = 0;
+
+/** True when this run may pull: never from a hidden tab (web/sync/triggers.ts has the whole rule). */
+function mayPull(): boolean {
+  return typeof document === 'undefined' || document.visibilityState !== 'hidden';
+}
 
 /** Runs a sync now (or joins the run already going); resolves with how it ended. */
 export function syncNow(): Promise<RunResult> {
@@ -57,11 +65,12 @@ async function runOnce(): Promise<RunResult> {
     await noteAttempt(entry.id, Date.now());
     return stop(outcome, entry.attempts + 1);
   }
+  if (!mayPull()) return { kind: 'done', sent, received: 0 };
   let received = 0;
   let cursor = await getSyncValue('cursor');
   for (let page = 0; page < 1000; page++) {
     const answer = await pullBundles(settings, cursor);
-    if (answer.kind !== 'bundles') return stop(answer, 1);
+    if (answer.kind !== 'bundles') return stop(answer, ++pullFailures);
     const records = answer.bundles.flatMap((b) => b.records);
     // The cursor is stored in the merge's own transaction: never ahead of what was merged.
     await applyIncoming(records, { cursor: answer.cursor });
@@ -69,6 +78,7 @@ async function runOnce(): Promise<RunResult> {
     cursor = answer.cursor;
     if (!answer.more) break;
   }
+  pullFailures = 0;
   await updateSyncStatus((s) => withoutProblem(s, Date.now()));
   return { kind: 'done', sent, received };
 }

@@ -20,6 +20,8 @@ export interface TestEndpoint {
   /** Bundles stored, in arrival order, with the device (from the token) that sent them. */
   stored: { seq: number; device: string; bundle: Bundle }[];
   pushes: PushSeen[];
+  /** Every pull (GET of the bundles) with the device that asked, in arrival order. */
+  pulls: { device: string | undefined; at_ms: number }[];
   preflights: number;
   /** Answers for the next pushes, first first; 'normal' once the list is used up. */
   queue: PushMode[];
@@ -43,6 +45,7 @@ export async function startTestEndpoint(port: number, origin: string, tokens: Re
     base: `http://127.0.0.1:${port}/api`,
     stored: [],
     pushes: [],
+    pulls: [],
     preflights: 0,
     queue: [],
     records: () => ep.stored.flatMap((s) => s.bundle.records),
@@ -65,6 +68,7 @@ export async function startTestEndpoint(port: number, origin: string, tokens: Re
     const auth = /^Bearer (\S+)$/.exec(req.headers.authorization ?? '');
     const device = auth ? tokens[auth[1]] : undefined;
     if (req.method === 'GET') {
+      ep.pulls.push({ device, at_ms: Date.now() });
       if (!device) return json(res, 401, { error: 'token', message: 'Unknown token.' });
       const after = Number(url.searchParams.get('after') ?? '0');
       const bundles = ep.stored.filter((s) => s.seq > after && s.device !== device);

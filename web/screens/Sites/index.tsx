@@ -3,7 +3,6 @@
 import { useState } from 'preact/hooks';
 import type { ScreenProps } from '../../router';
 import { useRecords } from '../../db/use-records';
-import { loadDemoSite } from '../../app/demo';
 import { listSites, readingsWithDischarge, latestReadings, type ReadingWithDischarge } from '../../db';
 import { formatAgo, formatQuantity } from '../../format';
 import { href, navigate } from '../../router';
@@ -40,6 +39,8 @@ function DemoButton({ label }: { label: string }) {
           setError(undefined);
           setProgress('Preparing…');
           try {
+            // The demo's scenario and the bulk writer load on this tap, not with the first screen.
+            const { loadDemoSite } = await import('../../app/demo');
             const id = await loadDemoSite((p) => setProgress(`Writing readings: ${p.written.toLocaleString('en')} of ${p.total.toLocaleString('en')}`));
             navigate(href('sites', id));
           } catch (err) {

@@ -12,6 +12,7 @@ import { describedBy, Field } from '../../components/Field';
 import { formatAgo } from '../../format';
 import { useStore } from '../../store';
 import { syncNow, syncRunning } from '../../sync/engine';
+import { PULL_EVERY_MS } from '../../sync/triggers';
 import { readBundleFile, shareOrDownload } from '../../sync/files';
 import { loadSettings, saveSettings } from '../../sync/settings';
 import { describeVersion, KIND_WORDS, reasonWords } from './describe';
@@ -52,6 +53,10 @@ function StatusCard() {
           {problem.message} ({formatAgo(problem.at_ms, now)})
         </p>
       )}
+      <p class="hint" data-testid="pull-rule">
+        This phone asks the office for new records when the app opens, when the network comes back, after it sends records and when you
+        tap Send and receive now; otherwise at most every {PULL_EVERY_MS / 60_000} minutes while the app is on screen, never while it is in the background.
+      </p>
       {!settings && <p class="hint">Enter the office address and token below to exchange records over the network. Bundle files work without them.</p>}
       <button type="button" class="primary wide" disabled={!settings || running} onClick={() => void syncNow()}>
         {running ? 'Exchanging…' : 'Send and receive now'}

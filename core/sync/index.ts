@@ -1,5 +1,5 @@
 // Sync merge rules, pure: which version of a record wins, which are kept for review, which are flagged.
-export { descends, seenAfter, stampOf, type VersionStamp } from './ancestry';
+export { descends, ownKeptBases, seenAfter, stampOf, type VersionStamp } from './ancestry';
 export { AHEAD_TOLERANCE_MS, isAhead } from './ahead';
 export { decide, type Decision, type DecideOptions } from './decide';
 export { frontierOf, mergeIntoFrontier, recordKey, type Frontier } from './frontier';

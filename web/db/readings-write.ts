@@ -10,7 +10,7 @@ import {
 import { withDb } from './connection';
 import { now_ms, stampInTx } from './clock';
 import { StorageError, storageMessage } from './errors';
-import { afterWrite, DURABLE, inTx, withSeen, type SaveInput } from './records';
+import { afterWrite, DURABLE, inTx, keptInTx, withSeen, type SaveInput } from './records';
 import { isAhead } from '../../core/sync/index';
 import type { FreshetDB, ReadingsStores, ReadingsTx } from './schema';
 import { updateSeriesInTx } from './series-edit';
@@ -102,18 +102,20 @@ export async function saveReading(input: SaveInput<ReadingRecord>, options: Save
   const { id: given, body } = splitReading(input);
   const id = given ?? crypto.randomUUID();
   const at = now_ms();
-  const also: OtherStore[] = options.draftId !== undefined ? ['drafts'] : [];
+  const also: OtherStore[] = options.draftId !== undefined ? ['conflicts', 'drafts'] : ['conflicts'];
   const saved = await withDb(async (db) => {
     const tx = db.transaction(['readings', 'series', 'meta', ...also], 'readwrite', DURABLE);
     return inTx(tx, async () => {
-      // The new revision sorts above the one it replaces, and carries its `seen` list on (core/sync).
+      // The new revision sorts above the one it replaces, and carries its `seen` list on (core/sync) with
+      // what this device's own kept versions of the reading knew.
       const before = await tx.objectStore('readings').get(id);
+      const kept = await keptInTx(tx, 'reading', id);
       const rev = await stampInTx(tx, at, before?.rev);
       if (options.expectedRev !== undefined && (!before || before.deleted || before.rev !== options.expectedRev)) {
         throw new StorageError('stale', storageMessage('stale'));
       }
       if (before && !before.deleted && before.siteId !== body.siteId) throw new StorageError('moved', storageMessage('moved'));
-      const record: ReadingRecord = withSeen({ ...body, id, rev, updated_ms: at }, rev, before);
+      const record: ReadingRecord = withSeen({ ...body, id, rev, updated_ms: at }, rev, before, kept);
       quietly(tx.objectStore('readings').put(record));
       if (options.draftId !== undefined) quietly(tx.objectStore('drafts').delete(options.draftId));
       await updateSeriesInTx(tx, [{ before, after: record }]);
@@ -128,17 +130,18 @@ export async function saveReading(input: SaveInput<ReadingRecord>, options: Save
 async function setDeleted(id: string, deleted: boolean): Promise<ReadingRecord | undefined> {
   const at = now_ms();
   const changed = await withDb(async (db) => {
-    const tx = db.transaction(['readings', 'series', 'meta'], 'readwrite', DURABLE);
+    const tx = db.transaction(['readings', 'series', 'meta', 'conflicts'], 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const existing = await tx.objectStore('readings').get(id);
       if (!existing) throw new StorageError('not-found', storageMessage('not-found'));
+      const kept = await keptInTx(tx, 'reading', id);
       if ((existing.deleted === true) === deleted) {
         await tx.done;
         return undefined;
       }
       const rev = await stampInTx(tx, at, existing.rev);
       const { deleted: _was, seen: _seen, ...rest } = existing;
-      const fields = withSeen({ ...rest, rev, updated_ms: at }, rev, existing);
+      const fields = withSeen({ ...rest, rev, updated_ms: at }, rev, existing, kept);
       const record: ReadingRecord = deleted ? { ...fields, deleted: true } : fields;
       quietly(tx.objectStore('readings').put(record));
       await updateSeriesInTx(tx, [{ before: existing, after: record }]);

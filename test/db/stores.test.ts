@@ -6,7 +6,7 @@ import {
   ratingInForceAt, deleteRating, deleteReading, deleteSite, deviceId, discardDraft, dismissConflict, getDraft, getGauging, getMeta,
   getReading, getSite, latestReadings, readingBefore, listAnalyses, listConflicts, listDrafts, listGaugings, listRatings,
   listReadings, listSites, observeRev, onRecordsChanged, readingsWithDischarge, restoreReading, restoreSite,
-  saveAnalysis, saveConflict, saveDraft, saveGauging, saveRating, saveReading, saveSite, setMeta, storageState,
+  saveAnalysis, saveConflict, saveDraft, saveGauging, saveRating, saveReading, saveSite, storageState,
   changedSince, type RecordsChange,
 } from '../../web/db/index';
 import { useFreshDb } from '../support/db';
@@ -184,9 +184,7 @@ describe('drafts, conflicts, meta, clock', () => {
     expect(await listConflicts()).toEqual([]);
   });
 
-  it('stores sync cursors and keeps one device id', async () => {
-    await setMeta('cursor:office', '1767225600000-000000-x');
-    expect(await getMeta('cursor:office')).toBe('1767225600000-000000-x');
+  it('keeps one device id', async () => {
     const id = await deviceId();
     await saveSite(site());
     expect(await deviceId()).toBe(id);

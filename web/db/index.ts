@@ -27,9 +27,10 @@ export { saveRating, getRating, deleteRating, restoreRating, listRatings, rating
 export { saveAnalysis, getAnalysis, deleteAnalysis, restoreAnalysis, listAnalyses } from './analyses';
 export { saveDraft, getDraft, discardDraft, listDrafts } from './drafts';
 export { saveConflict, dismissConflict, listConflicts } from './conflicts';
-export { getMeta, setMeta } from './meta';
+export { getMeta } from './meta';
 export { settleConflict } from './conflicts';
-export { applyIncoming, previewIncoming, STORE_OF_KIND, syncedVersion, type IncomingResult } from './sync-merge';
+export { applyIncoming, previewIncoming, syncedVersion, type IncomingResult } from './sync-merge';
+export { STORES, STORE_OF_KIND, KIND_OF_STORE, SYNCED_STORES, type StoreFacts, type StoreName } from './stores';
 export {
   acknowledge, exportBundle, markExported, markOf, MAX_BUNDLE_RECORDS, nextOutgoing, noteAttempt, waitingCount, type ExportFile,
 } from './outbox';

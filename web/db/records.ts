@@ -5,28 +5,17 @@ import {
   isSyncKind, isUuid, parseRev, RecordValidationError, validateBody, type ConflictRecord, type RecordKind, type StoredRecords,
 } from '../../core/records/index';
 import { ownKeptBases, seenAfter, stampOf, type VersionStamp } from '../../core/sync/index';
-import type { FreshetDB, RecordStore } from './schema';
+import type { FreshetDB } from './schema';
+import { KIND_OF_STORE, type RecordStore } from './stores';
 
-/** Stores written through saveIn and its kin: every record store but readings (readings-write.ts is their one writer). */
-export type PlainStore = Exclude<RecordStore, 'readings'>;
+/** Stores this module writes (saveIn and its kin): every record store but readings and loggerDays (stores.ts). */
+export type PlainStore = Exclude<RecordStore, 'readings' | 'loggerDays'>;
 import { withDb } from './connection';
 import { now_ms, stampInTx } from './clock';
 import { StorageError, storageMessage } from './errors';
 import { notifyRecordsChanged } from './events';
 import { requestPersistenceOnce } from './persist';
 import { quietly } from './quietly';
-
-/** The record kind kept in each store. */
-export const KIND_OF_STORE = {
-  sites: 'site',
-  readings: 'reading',
-  gaugings: 'gauging',
-  ratings: 'rating',
-  analyses: 'analysis',
-  loggerDays: 'logger-day',
-  drafts: 'draft',
-  conflicts: 'conflict',
-} as const satisfies Record<RecordStore, RecordKind>;
 
 /** The record type kept in store S. */
 export type RecordOf<S extends RecordStore> = StoredRecords[(typeof KIND_OF_STORE)[S]];
@@ -183,6 +172,30 @@ export function tombstoneIn<S extends PlainStore>(store: S, id: string): Promise
 /** Undoes a deletion: writes the record again without the tombstone under a new rev; undefined when not deleted. */
 export function restoreIn<S extends PlainStore>(store: S, id: string): Promise<RecordOf<S> | undefined> {
   return setDeleted(store, id, false);
+}
+
+/**
+ * Puts whole records (each with its own id and rev: merged from another device, or a settled conflict)
+ * into store S inside an open transaction that holds it. The writers of readings and logger days have
+ * their own (putReadingsInTx, putLoggerDaysInTx).
+ */
+export function putRecordsInTx<S extends PlainStore>(
+  tx: { objectStore(name: S): { put(value: FreshetDB[S]['value']): Promise<unknown> } },
+  store: S,
+  records: readonly FreshetDB[S]['value'][],
+): void {
+  const s = tx.objectStore(store);
+  for (const r of records) quietly(s.put(r));
+}
+
+/** Deletes local-only records (drafts, conflicts) by id inside an open transaction that holds the store. */
+export function removeInTx<S extends 'drafts' | 'conflicts'>(
+  tx: { objectStore(name: S): { delete(key: string): Promise<unknown> } },
+  store: S,
+  ids: readonly string[],
+): void {
+  const s = tx.objectStore(store);
+  for (const id of ids) quietly(s.delete(id));
 }
 
 /** Removes a local-only record outright (drafts, conflicts: they never sync, so no tombstone is needed). */

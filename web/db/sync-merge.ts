@@ -6,7 +6,7 @@ import {
   fromSyncRecord, maxRev, toSyncRecord, validateSyncRecord, RecordValidationError,
   type ConflictRecord, type LoggerDayRecord, type ReadingRecord, type SyncKind, type SyncRecord,
 } from '../../core/records/index';
-import { isAhead, planMerge, recordKey, type Frontier, type MergePlan, type MergeSummary } from '../../core/sync/index';
+import { byRevision, isAhead, planMerge, recordKey, type Frontier, type MergePlan, type MergeSummary } from '../../core/sync/index';
 import { withDb } from './connection';
 import { now_ms, observeRevsInTx, stampInTx } from './clock';
 import { putLoggerDaysInTx } from './logger-days';
@@ -52,7 +52,7 @@ async function readCurrent(tx: MergeTx | MergeWriteTx, records: readonly SyncRec
     const others = mine.filter((c) => (c.reason ?? 'concurrent') === 'concurrent').map((c) => c.losing);
     const all = [...(stored ? [toSyncRecord(r.kind, stored as never)] : []), ...others];
     if (all.length === 0) return;
-    const sorted = all.sort((a, b) => (a.rev < b.rev ? -1 : 1));
+    const sorted = all.sort(byRevision);
     current.frontiers.set(key, { winner: sorted[sorted.length - 1], others: sorted.slice(0, -1) });
   });
   return current;

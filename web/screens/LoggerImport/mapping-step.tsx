@@ -8,6 +8,7 @@ import {
 } from '../../../core';
 import { Field } from '../../components/Field';
 import type { MappingWithoutClock } from '../../logger/guess-mapping';
+import { plainError } from '../../plain-words';
 
 /** The clock choices offered; '' until the user picks one. */
 export type ClockChoice = '' | 'utc' | 'standard' | 'zone' | 'in-stamp';
@@ -82,7 +83,7 @@ export function MappingStep({ site, rows, draft, onChange }: {
       for (const p of read.problems) byLine.set(p.line, { problem: p.message });
       return { byLine };
     } catch (err) {
-      return { error: (err as Error).message };
+      return { error: plainError(err) };
     }
   }, [rows, mapping && JSON.stringify(mapping), site.timeZone, u]);
 

@@ -203,7 +203,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       await deleteReading(id);
       setSaved({ text: 'The reading just saved was taken back.' });
     } catch (err) {
-      setError({ text: err instanceof Error ? err.message : String(err) });
+      setError({ text: plainError(err, { doing: 'save', units: u, timeZone: site.timeZone }) });
     }
   }
 

@@ -8,6 +8,7 @@ import { listSites, readingsWithDischarge, latestReadings, type ReadingWithDisch
 import { formatAgo, formatQuantity } from '../../format';
 import { href, navigate } from '../../router';
 import { hasDischarge, type SiteRecord } from '../../../core';
+import { plainError } from '../../plain-words';
 
 interface SiteRow {
   site: SiteRecord;
@@ -43,7 +44,7 @@ function DemoButton({ label }: { label: string }) {
             const id = await loadDemoSite((p) => setProgress(`Writing readings: ${p.written.toLocaleString('en')} of ${p.total.toLocaleString('en')}`));
             navigate(href('sites', id));
           } catch (err) {
-            setError(err instanceof Error ? err.message : String(err));
+            setError(plainError(err, { doing: 'save' }));
           } finally {
             setProgress(undefined);
           }

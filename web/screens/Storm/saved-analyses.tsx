@@ -6,6 +6,7 @@ import { deleteAnalysis, listAnalyses } from '../../db';
 import { formatQuantity, formatTime } from '../../format';
 import { useRecords } from '../../db/use-records';
 import { draftFromAnalysis, type StormDraft } from './draft';
+import { plainError } from '../../plain-words';
 
 function methodName(kind: string): string {
   return (METHOD_KINDS as readonly string[]).includes(kind) ? METHOD_LABELS[kind as MethodKind] : kind;
@@ -31,7 +32,7 @@ export function SavedAnalyses({ siteId, units, timeZone, openId, onOpen }: Saved
     try {
       await deleteAnalysis(a.id);
     } catch (e) {
-      setProblem(e instanceof Error ? e.message : String(e));
+      setProblem(plainError(e, { doing: 'save' }));
     } finally {
       setBusy(undefined);
     }

@@ -3,7 +3,7 @@
 // shown as they will be stored.
 import { useMemo } from 'preact/hooks';
 import {
-  displayUnit, LOGGER_LEVEL_UNITS, LOGGER_TIME_FORMATS, loggerReader, toDisplay, toIsoWithOffset, zoneOffset_min,
+  displayUnit, LOGGER_LEVEL_UNITS, LOGGER_TIME_FORMATS, loggerReader, toDisplay, toIsoWithOffset, utcOfCivil, zoneOffset_min,
   type LoggerClock, type LoggerLevelUnit, type LoggerMapping, type LoggerTimeFormat, type SiteRecord,
 } from '../../../core';
 import { Field } from '../../components/Field';
@@ -36,7 +36,7 @@ export function offsetLabel(offset_min: number): string {
 
 /** The site zone's standard offset (the smaller of its January and July offsets), minutes east. */
 export function standardOffsetOf(timeZone: string, year: number): number {
-  return Math.min(zoneOffset_min(Date.UTC(year, 0, 1), timeZone), zoneOffset_min(Date.UTC(year, 6, 1), timeZone));
+  return Math.min(zoneOffset_min(utcOfCivil(year, 1, 1), timeZone), zoneOffset_min(utcOfCivil(year, 7, 1), timeZone));
 }
 
 /** The full mapping, or undefined while the clock is not chosen. */

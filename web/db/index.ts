@@ -22,9 +22,9 @@ export {
   importLoggerRecord, listLoggerDays, type LoggerImportInput, type LoggerImportResult, type LoggerImportDuplicate,
   type LoggerImportProgress, type LoggerImportOptions,
 } from './logger-days';
-export { saveGauging, getGauging, deleteGauging, restoreGauging, listGaugings } from './gaugings';
-export { saveRating, getRating, deleteRating, restoreRating, listRatings, ratingInForceAt, ratingsAndGaugings } from './ratings';
-export { saveAnalysis, getAnalysis, deleteAnalysis, restoreAnalysis, listAnalyses } from './analyses';
+export { saveGauging, getGauging, deleteGauging, listGaugings } from './gaugings';
+export { saveRating, deleteRating, restoreRating, listRatings, ratingInForceAt, ratingsAndGaugings } from './ratings';
+export { saveAnalysis, deleteAnalysis, listAnalyses } from './analyses';
 export { saveDraft, getDraft, discardDraft, listDrafts } from './drafts';
 export { saveConflict, dismissConflict, listConflicts } from './conflicts';
 export { getMeta } from './meta';

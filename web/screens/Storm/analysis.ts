@@ -3,7 +3,6 @@
 import {
   seriesFromReadings as coreSeriesFromReadings,
   findEventPointsDetailed,
-  inflectionByNewtonPolynomial,
   separateBaseflowDetailed,
   summarizeEvent,
   type EventPoints,
@@ -80,11 +79,6 @@ export function attempt<T>(fn: () => T): Outcome<T> {
 /** Key points found by the core (UTC ms) with its notes. */
 export function findPoints(series: StormSeries, area_km2: number | undefined): Outcome<{ points: EventPoints; notes: string[] }> {
   return attempt(() => findEventPointsDetailed(series, area_km2 === undefined ? undefined : { area_km2 }));
-}
-
-/** The Newton-polynomial inflection (UTC ms) between the peak and the end of runoff, as a cross-check. */
-export function polynomialInflection(series: StormSeries, points: EventPoints): Outcome<number> {
-  return attempt(() => inflectionByNewtonPolynomial(series, points.peak_ms, points.runoffEnd_ms).inflection_ms);
 }
 
 /** Everything the results show: baseflow (m³/s per reading), the summary and the notes of every step. */

@@ -1,26 +1,26 @@
 // Never called: writes that only each store's writer (web/db/stores.ts) may make, written the ways a
 // module might slip them in. test/db/one-writer.test.ts checks that its detector finds every one here.
 import { unwrap, type IDBPTransaction, type StoreNames } from 'idb';
-import type { FreshetDb } from '../../web/db/index';
+import type { FreshetConnection } from '../../web/db/index';
 import type { FreshetDB } from '../../web/db/schema';
 
 /** A readwrite transaction on readings by name. */
-export function byName(db: FreshetDb): unknown {
+export function byName(db: FreshetConnection): unknown {
   return db.transaction('readings', 'readwrite');
 }
 
 /** A readwrite transaction whose store list includes readings. */
-export function inList(db: FreshetDb): unknown {
+export function inList(db: FreshetConnection): unknown {
   return db.transaction(['sites', 'readings'], 'readwrite');
 }
 
 /** A readwrite transaction over a store chosen at run time that may be readings. */
-export function generic<S extends StoreNames<FreshetDB>>(db: FreshetDb, store: S): unknown {
+export function generic<S extends StoreNames<FreshetDB>>(db: FreshetConnection, store: S): unknown {
   return db.transaction([store, 'meta'], 'readwrite');
 }
 
 /** idb's shortcut put, which opens its own readwrite transaction. */
-export function shortcut(db: FreshetDb, r: FreshetDB['readings']['value']): unknown {
+export function shortcut(db: FreshetConnection, r: FreshetDB['readings']['value']): unknown {
   return db.put('readings', r);
 }
 

@@ -1,6 +1,6 @@
 // web/db: the only way screens read and write stored records. Every save is validated, written in one
 // transaction and resolves only once durable; deletion is a tombstone that restore undoes.
-export { openFreshetDb, getDb, type FreshetDb } from './connection';
+export { openFreshetDb, getDb, type FreshetConnection } from './connection';
 export { DB_NAME, DB_VERSION, type FreshetDB, type MetaKey, type MetaValues, type SeriesChunk } from './schema';
 export { StorageError, storageMessage, toStorageError, type StorageFailure } from './errors';
 export { onDbEvent, onRecordsChanged, type DbEvent, type RecordsChange } from './events';

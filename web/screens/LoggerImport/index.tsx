@@ -5,7 +5,7 @@ import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { driftCorrections, loggerValueAt, type SiteRecord } from '../../../core';
 import { importLoggerRecord, listReadings, listSites, StorageError, type LoggerImportResult } from '../../db';
 import type { ScreenProps } from '../../router';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../components/use-records';
 import { Field } from '../../components/Field';
 import { guessMapping } from '../../logger/guess-mapping';
 import { readInWorker, type WorkerRead } from '../../logger/parse-in-worker';

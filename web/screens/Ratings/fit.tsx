@@ -4,7 +4,7 @@
 import { useMemo, useState } from 'preact/hooks';
 import { fromLocalInput, johnsonOffset, toDisplay, toLocalInput, type SiteRecord } from '../../../core';
 import { ratingsAndGaugings, saveRating } from '../../db';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../components/use-records';
 import { Field } from '../../components/Field';
 import { formatQuantity, formatTime } from '../../format';
 import { href, navigate } from '../../router';

@@ -3,7 +3,7 @@
 import { useMemo, useState } from 'preact/hooks';
 import { dischargeAtTime, toLocalInput, type DatedShift, type RatingRecord, type SiteRecord } from '../../../core';
 import { latestReading, saveRating } from '../../db';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../components/use-records';
 import { describedBy, Field } from '../../components/Field';
 import { formatQuantity, formatTime } from '../../format';
 import { errorOf } from './entry';

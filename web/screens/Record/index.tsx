@@ -10,7 +10,7 @@ import {
 import {
   deleteReading, getReading, getSite, listRatings, readingBefore, saveReading, StorageError,
 } from '../../db';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../components/use-records';
 import { Cautions } from '../../components/Cautions';
 import { TimeChoice } from '../../components/TimeChoice';
 import { locationProblem, plainError } from '../../plain-words';

@@ -5,7 +5,7 @@ import type { SiteRecord } from '../../../core';
 import {
   deleteReading, getSite, listGaugings, ratingInForceAt, readingsWithDischarge, restoreReading, seriesWithDischarge, type ReadingWithDischarge,
 } from '../../db';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../components/use-records';
 import { Hydrograph } from '../../components/Hydrograph';
 import { formatAgo, formatQuantity, formatTime } from '../../format';
 import { href, type ScreenProps } from '../../router';

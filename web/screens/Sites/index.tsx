@@ -2,7 +2,7 @@
 // a site's readings, to a new site, and (from the empty state) to the demo site.
 import { useState } from 'preact/hooks';
 import type { ScreenProps } from '../../router';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../components/use-records';
 import { loadDemoSite } from '../../app/demo';
 import { listSites, readingsWithDischarge, latestReadings, type ReadingWithDischarge } from '../../db';
 import { formatAgo, formatQuantity } from '../../format';

@@ -4,7 +4,7 @@ import type { AnalysisRecord, UnitSystem } from '../../../core';
 import { METHOD_LABELS, METHOD_KINDS, type MethodKind } from '../../components/SeparationPicker';
 import { deleteAnalysis, listAnalyses } from '../../db';
 import { formatQuantity, formatTime } from '../../format';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../components/use-records';
 import { draftFromAnalysis, type StormDraft } from './draft';
 import { plainError } from '../../plain-words';
 

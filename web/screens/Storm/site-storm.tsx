@@ -6,7 +6,7 @@ import { Plot, type PlotApi, type PlotBand, type PlotDrawView, type PlotGeometry
 import { SeparationPicker } from '../../components/SeparationPicker';
 import { latestReading, listRatings, seriesWithDischarge } from '../../db';
 import { formatQuantity, formatTime, parseDecimal } from '../../format';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../components/use-records';
 import { analyse, findPoints, seriesFromReadings } from './analysis';
 import { initialDraft, stormReducer, type TimeWindow } from './draft';
 import { KeyPointHandles } from './handles';

@@ -7,7 +7,7 @@ import {
   settleConflict, syncedVersion, waitingCount, type IncomingResult, type SyncStatusRecord,
 } from '../../db';
 import type { ScreenProps } from '../../router';
-import { useRecords } from '../../app/use-records';
+import { useRecords } from '../../components/use-records';
 import { describedBy, Field } from '../../components/Field';
 import { formatAgo } from '../../format';
 import { useStore } from '../../store';

@@ -6,6 +6,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseIsoWithOffset, parseStamp, utcOfCivil } from '../../core';
 import { ROOT, sources } from '../support/store-writes';
+import { parseTableCsv } from '../../web/screens/Ratings/table-csv';
 
 const CODE = [...sources('core'), ...sources('web'), ...sources('office'), ...sources('sw')];
 /** "file:line" of every line of the code (outside `home`) that matches. */
@@ -28,6 +29,21 @@ describe('calendar arithmetic', () => {
     // 2100 is not a leap year, 2000 is (Gregorian rule).
     expect(typeof parseStamp('2100-02-29 00:00', 'year-month-day')).toBe('string');
     expect(parseIsoWithOffset('2000-02-29T12:00:00+12:00')).toBe(utcOfCivil(2000, 2, 29, 0));
+  });
+});
+
+describe('reading CSV', () => {
+  it('has two readers: core/exchange/csv-read.ts for whole texts, papaparse only in the streaming logger reader', () => {
+    expect(linesMatching(/from 'papaparse'/, ['web/logger/read-logger.ts'])).toEqual([]);
+    // The mark of a hand-written splitter: looking ahead for a doubled quote (RFC 4180 §2 rule 7).
+    expect(linesMatching(/\[\w+ \+ 1\] === '"'/, ['core/exchange/csv-read.ts'])).toEqual([]);
+  });
+
+  it("the rating-table import reads quoted fields by core's reader (RFC 4180 §2 rules 5-7) and names the line", () => {
+    // A quoted discharge with a decimal comma holds the delimiter; an open quote is refused with its line.
+    const table = parseTableCsv('stage (m),discharge (m3/s)\n0.5,"1,5"\n0.6,2.5\n0.7,"3.5"\n', 'metric');
+    expect(table.rows.map((r) => r.discharge_m3s)).toEqual([1.5, 2.5, 3.5]);
+    expect(() => parseTableCsv('stage,discharge\n0.5,1\n0.6,"2\n', 'metric')).toThrow(/^Line 3: /);
   });
 });
 

@@ -3,7 +3,8 @@
 // Before the table, loggerDays was missing from the list and settling threw NotFoundError.
 import { describe, expect, it } from 'vitest';
 import { formatRev, toSyncRecord, type SyncRecord } from '../../core';
-import { applyIncoming, importLoggerRecord, listConflicts, listLoggerDays, saveSite, settleConflict } from '../../web/db/index';
+import { applyIncoming, importLoggerRecord, listConflicts, saveSite, settleConflict } from '../../web/db/index';
+import { listLoggerDays } from '../../web/db/logger-days';
 import { useFreshDb } from '../support/db';
 import { QUARTER_HOUR_MS, site, T0 } from '../support/records';
 

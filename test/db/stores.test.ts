@@ -2,13 +2,15 @@
 // the current rating, discharges of a window, latest reading per site, change notifications.
 import { describe, expect, it } from 'vitest';
 import { compareRev, parseRev, RecordValidationError } from '../../core/records/index';
-import {
-  ratingInForceAt, deleteRating, deleteReading, deleteSite, deviceId, discardDraft, dismissConflict, getDraft, getGauging, getMeta,
-  getReading, getSite, latestReadings, readingBefore, listAnalyses, listConflicts, listDrafts, listGaugings, listRatings,
-  listReadings, listSites, observeRev, onRecordsChanged, readingsWithDischarge, restoreReading, restoreSite,
-  saveAnalysis, saveConflict, saveDraft, saveGauging, saveRating, saveReading, saveSite, storageState,
-  changedSince, type RecordsChange,
-} from '../../web/db/index';
+import { ratingInForceAt, deleteRating, deleteReading, deleteSite, discardDraft, getReading, getSite, latestReadings, readingBefore, listAnalyses, listConflicts, listDrafts, listGaugings, listRatings, listReadings, listSites, onRecordsChanged, readingsWithDischarge, restoreReading, saveAnalysis, saveDraft, saveGauging, saveRating, saveReading, saveSite, storageState } from '../../web/db/index';
+import { deviceId, observeRev } from '../../web/db/clock';
+import { dismissConflict, saveConflict } from '../../web/db/conflicts';
+import { getDraft } from '../../web/db/drafts';
+import { getGauging } from '../../web/db/gaugings';
+import { getMeta } from '../../web/db/meta';
+import { restoreSite } from '../../web/db/sites';
+import { changedSince } from '../../web/db/records';
+import { type RecordsChange } from '../../web/db/events';
 import { useFreshDb } from '../support/db';
 import { gauging, rating, reading, site, T0 } from '../support/records';
 

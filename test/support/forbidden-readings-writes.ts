@@ -1,7 +1,7 @@
 // Never called: writes that only each store's writer (web/db/stores.ts) may make, written the ways a
 // module might slip them in. test/db/one-writer.test.ts checks that its detector finds every one here.
 import { unwrap, type IDBPTransaction, type StoreNames } from 'idb';
-import type { FreshetConnection } from '../../web/db/index';
+import type { FreshetConnection } from '../../web/db/connection';
 import type { FreshetDB } from '../../web/db/schema';
 
 /** A readwrite transaction on readings by name. */

@@ -24,4 +24,12 @@ describe('imports point down', () => {
     expect(importsInto('office', ['web'])).toEqual([]);
     expect(importsInto('sw', ['web/app', 'web/screens', 'web/components'])).toEqual([]);
   });
+
+  it("web/db's public surface is what the app uses: every name it exports is used outside the storage folder", () => {
+    const index = readFileSync(join(ROOT, 'web/db/index.ts'), 'utf8');
+    const names = [...index.matchAll(/export\s*(?:type\s*)?\{([^}]*)\}/g)].flatMap((m) => m[1].split(',').map((n) => n.replace('type ', '').trim()).filter(Boolean));
+    const app = [...sources('web'), ...sources('sw')].filter((f) => !f.startsWith('web/db/')).map((f) => readFileSync(join(ROOT, f), 'utf8')).join('\n');
+    expect(names.length).toBeGreaterThan(20);
+    expect(names.filter((n) => !new RegExp(`\\b${n}\\b`).test(app))).toEqual([]);
+  });
 });

@@ -7,6 +7,9 @@ export default defineConfig({
     include: ['test/**/*.test.ts'],
     exclude: [...configDefaults.exclude, 'test/browser/**', 'test/support/**'],
     environment: 'node',
+    // Property tests: one seed a run, fixed in CI, printed at the start (test/support/property-seed.ts).
+    globalSetup: ['test/support/property-seed.ts'],
+    setupFiles: ['test/support/property-seed-setup.ts'],
     pool: 'threads',
     testTimeout: 30_000,
   },

@@ -1,7 +1,7 @@
 // Finds a Chromium or Chrome for the browser tests; installs Debian's `chromium` when none is found
 // and this is Debian or Ubuntu run as root; otherwise stops with the one line that installs it.
-import { existsSync, readFileSync } from 'node:fs';
-import { spawnSync } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import { aptInstall, canAptInstall } from './apt-install.mjs';
 
 const CANDIDATES = ['/usr/bin/chromium', '/usr/bin/chromium-browser', '/usr/bin/google-chrome', '/usr/bin/google-chrome-stable'];
 
@@ -14,20 +14,13 @@ export function ensureChromium() {
     process.exit(1);
   }
   let found = CANDIDATES.find((p) => existsSync(p));
+  if (!found && canAptInstall()) {
+    console.log('No Chromium found: installing Debian’s chromium with apt-get…');
+    if (aptInstall('chromium')) found = CANDIDATES.find((p) => existsSync(p));
+  }
   if (!found) {
-    const osRelease = existsSync('/etc/os-release') ? readFileSync('/etc/os-release', 'utf8') : '';
-    const debianLike = /^(ID|ID_LIKE)=.*\b(debian|ubuntu)\b/m.test(osRelease);
-    const root = typeof process.getuid === 'function' && process.getuid() === 0;
-    if (debianLike && root) {
-      console.log('No Chromium found: installing Debian’s chromium with apt-get…');
-      const update = spawnSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
-      const install = update.status === 0 && spawnSync('apt-get', ['install', '-y', '-qq', 'chromium'], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
-      if (install && install.status === 0) found = CANDIDATES.find((p) => existsSync(p));
-    }
-    if (!found) {
-      console.error('The browser tests need Chromium. Install it with:  sudo apt-get install -y chromium   (or set CHROMIUM_PATH)');
-      process.exit(1);
-    }
+    console.error('The browser tests need Chromium. Install it with:  sudo apt-get install -y chromium   (or set CHROMIUM_PATH)');
+    process.exit(1);
   }
   process.env.CHROMIUM_PATH = found;
   return found;

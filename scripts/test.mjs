@@ -4,6 +4,7 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync } from 'node:fs';
 import { ensureInstall } from './ensure-install.mjs';
 import { ensureChromium } from './find-chromium.mjs';
+import { ensureXmllint } from './find-xmllint.mjs';
 
 function step(title, cmd, args) {
   console.log(`\n▶ ${title}`);
@@ -16,6 +17,7 @@ function step(title, cmd, args) {
 const node = process.execPath;
 ensureInstall();
 step('Type-check (core without DOM, web, sw, tests)', 'npm', ['run', '--silent', 'typecheck']);
+ensureXmllint();
 const report = (name) => ['--reporter=default', '--reporter=json', `--outputFile.json=test-results/${name}.json`];
 step('Unit tests (core, storage)', node, ['node_modules/vitest/vitest.mjs', 'run', ...report('unit')]);
 step('Build', node, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn']);

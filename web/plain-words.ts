@@ -8,6 +8,10 @@ export interface PlainContext {
   doing?: 'save' | 'read';
   units?: UnitSystem;
   timeZone?: string;
+  /** Words of the screen for terms in a message (e.g. a method's kind → its name), applied first. */
+  terms?: Readonly<Record<string, string>>;
+  /** The sentence when a message still holds an internal name after translation (a screen's own wording). */
+  fallback?: string;
 }
 
 /** Names of fields (the last part of a record path) as the forms label them, with their quantity for units. */
@@ -59,6 +63,8 @@ const CALCULATIONS: Record<string, string> = {
   summarizeEvent: 'The storm summary',
   unitHydrograph: 'The unit hydrograph',
   fitRating: 'The rating fit',
+  fitSegments: 'The rating fit',
+  ratingFromTable: 'The rating table',
   midSection: 'The discharge measurement',
   checkReading: 'The reading check',
   dischargeAt: 'The discharge',
@@ -126,9 +132,11 @@ export function plainError(err: unknown, ctx: PlainContext = {}): string {
     return `${capital(label)} ${needs(err.expected, quantity, ctx.units ?? 'metric')}.`;
   }
   if (err instanceof Error && err.name === 'NotFoundError') return 'That record is not on this phone.';
-  const message = err instanceof Error ? err.message : String(err);
+  let message = err instanceof Error ? err.message : String(err);
+  for (const [term, words] of Object.entries(ctx.terms ?? {})) message = message.split(term).join(words);
   const plain = plainCoreSentence(message, ctx);
   if (plain) return /[.?!]$/.test(plain) ? plain : `${plain}.`;
+  if (ctx.fallback) return ctx.fallback;
   return ctx.doing === 'read'
     ? 'Freshet could not read its stored data just now; nothing was changed. Reload the page and try again.'
     : 'This could not be worked out from the values given; nothing was changed. Check the times and numbers, then try again.';

@@ -11,9 +11,10 @@ export interface CsvRecord {
 export class CsvSyntaxError extends RangeError {
   constructor(
     readonly line: number,
-    message: string,
+    /** The sentence about the problem, without its line. */
+    readonly reason: string,
   ) {
-    super(`Line ${line}: ${message}`);
+    super(`Line ${line}: ${reason}`);
     this.name = 'CsvSyntaxError';
   }
 }

@@ -1,7 +1,7 @@
 // ISO 8601 times with a zone's UTC offset, fast enough for whole records: the zone's offset is looked
 // up about twice per UTC day (through core/time's Intl-based wallTimeAt, which costs tens of
 // microseconds a call) and the text is built from UTC fields.
-import { wallTimeAt } from '../time/index';
+import { utcOfCivil, wallTimeAt } from '../time/index';
 
 const HOUR_MS = 3_600_000;
 const DAY_MS = 86_400_000;
@@ -10,9 +10,7 @@ const pad2 = (n: number) => (n < 10 ? `0${n}` : String(n));
 /** The zone's offset from UTC at whole-second instant t (UTC ms), in seconds (old local mean times have seconds). */
 function offset_s(t: number, timeZone: string): number {
   const w = wallTimeAt(t, timeZone);
-  const d = new Date(Date.UTC(2000, w.month - 1, w.day, w.hour, w.minute, w.second));
-  d.setUTCFullYear(w.year);
-  return (d.getTime() - t) / 1000;
+  return (utcOfCivil(w.year, w.month, w.day, w.hour, w.minute, w.second) - t) / 1000;
 }
 
 /**

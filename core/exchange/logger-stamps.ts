@@ -1,6 +1,6 @@
 // Reading one logger time stamp: its wall-clock fields in the chosen format and an offset if the stamp
 // carries one; then the UTC instants a wall time can mean in a zone that changes its clocks.
-import { wallTimeAt, zoneOffset_min } from '../time/index';
+import { daysInMonth, utcOfCivil, wallTimeAt, zoneOffset_min } from '../time/index';
 import type { LoggerTimeFormat } from './logger-mapping';
 
 /** A stamp as written: naive wall time as if it were UTC (ms) and the offset written in it, if any (minutes east). */
@@ -12,12 +12,6 @@ export interface ParsedStamp {
 const YMD_DATE = /^(\d{4})[-/](\d{1,2})[-/](\d{1,2})$/;
 const DMY_DATE = /^(\d{1,2})[/.-](\d{1,2})[/.-](\d{4})$/;
 const TIME = /^(\d{1,2}):(\d{2})(?::(\d{2})(?:[.,](\d{1,3})\d*)?)?\s*(Z|[+-]\d{2}(?::?\d{2})?)?$/i;
-const CUMULATIVE_DAYS = [0, 31, 59, 90, 120, 151, 181, 212, 243, 273, 304, 334];
-
-function daysInMonth(year: number, month: number): number {
-  if (month === 2) return (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0 ? 29 : 28;
-  return month === 4 || month === 6 || month === 9 || month === 11 ? 30 : 31;
-}
 
 /** A reader of stamps in one format; it remembers the last date seen, since a logger writes many stamps a day. */
 export function stampParser(format: LoggerTimeFormat): (text: string) => ParsedStamp | string {
@@ -40,7 +34,7 @@ export function stampParser(format: LoggerTimeFormat): (text: string) => ParsedS
       y = Number(m[3]);
     }
     if (mo < 1 || mo > 12 || day < 1 || day > daysInMonth(y, mo)) return 'real';
-    return Date.UTC(y, 0, 1) + (CUMULATIVE_DAYS[mo - 1] + (mo > 2 && daysInMonth(y, 2) === 29 ? 1 : 0) + day - 1) * 86_400_000;
+    return utcOfCivil(y, mo, day);
   };
   return (text) => {
     const s = text.trim();
@@ -109,7 +103,7 @@ export function zoneResolver(timeZone: string): (naive_ms: number) => number[] {
     for (const off of offsets) {
       const t = naive_ms - off * 60_000;
       const w = wallTimeAt(t, timeZone);
-      const shown = Date.UTC(w.year, w.month - 1, w.day, w.hour, w.minute, w.second) + (naive_ms % 1000);
+      const shown = utcOfCivil(w.year, w.month, w.day, w.hour, w.minute, w.second) + (naive_ms % 1000);
       if (shown === naive_ms && !out.includes(t)) out.push(t);
     }
     return out.sort((a, b) => a - b);

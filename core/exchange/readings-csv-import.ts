@@ -2,6 +2,7 @@
 // (ISO 8601 with a UTC offset), the stage (and its unit), and optionally the quality and a note. Every
 // problem is reported with its line; one bad line means nothing is imported.
 import { M_PER_FT } from '../units';
+import { daysInMonth, utcOfCivil } from '../time/index';
 import { MAX_ABS_STAGE_M, MAX_TEXT_LENGTH, READING_QUALITIES, validateReadingBody, type ReadingBody, type ReadingQuality, type ReadingSource } from '../records/index';
 import { readCsvRecords, CsvSyntaxError } from './csv-read';
 import { looksLikeFormula } from './csv-write';
@@ -46,7 +47,6 @@ export const MAX_CSV_PROBLEMS = 20;
 
 const STAGE_PER_UNIT_M: Record<CsvStageUnit, number> = { m: 1, cm: 0.01, ft: M_PER_FT };
 const ISO = /^(\d{4})-(\d{2})-(\d{2})[T ](\d{2}):(\d{2})(?::(\d{2})(?:\.(\d{1,9}))?)?\s*(Z|[+-]\d{2}:?\d{2})$/i;
-const DAYS = [31, 29, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
 
 /** UTC ms of an ISO 8601 time with offset ("2026-12-01T10:15:00+13:00"); a sentence when it is not one. */
 export function parseIsoWithOffset(text: string): number | string {
@@ -57,18 +57,14 @@ export function parseIsoWithOffset(text: string): number | string {
       : `"${text.trim()}" is not a time like 2026-12-01T10:15:00+13:00`;
   }
   const [year, month, day, hour, minute, second] = m.slice(1, 7).map((v) => Number(v ?? 0));
-  const leap = year % 4 === 0 && (year % 100 !== 0 || year % 400 === 0);
-  if (month < 1 || month > 12 || day < 1 || day > (month === 2 && !leap ? 28 : DAYS[month - 1]) || hour > 23 || minute > 59 || second > 59) {
+  if (month < 1 || month > 12 || day < 1 || day > daysInMonth(year, month) || hour > 23 || minute > 59 || second > 59) {
     return `"${text.trim()}" is not a real date and time`;
   }
   const ms = Number(((m[7] ?? '') + '000').slice(0, 3));
   const z = m[8].toUpperCase();
   const offset_min = z === 'Z' ? 0 : (z[0] === '-' ? -1 : 1) * (Number(z.slice(1, 3)) * 60 + Number(z.slice(-2)));
   if (Math.abs(offset_min) > 18 * 60) return `the UTC offset of "${text.trim()}" is beyond ±18:00`;
-  // setUTCFullYear keeps years 0–99 as they are (Date.UTC would read them as 1900–1999).
-  const d = new Date(Date.UTC(2000, month - 1, day, hour, minute, second, ms));
-  d.setUTCFullYear(year);
-  return d.getTime() - offset_min * 60_000;
+  return utcOfCivil(year, month, day, hour, minute, second) + ms - offset_min * 60_000;
 }
 
 /** A number typed in a cell: optional sign, digits, one decimal mark; spaces inside are refused. */

@@ -19,6 +19,7 @@ export { shiftFor } from './shift';
 export { constantShift, shiftFromCurve, type ShiftCurve } from './shift-curve';
 export { shiftAt, type DatedShift } from './shift-schedule';
 export { checksRating, gradeOf, GRADE_LIMITS_PCT, type MeasurementGrade } from './grade';
+export { gaugingCheck, type GaugedPoint, type GaugingCheck } from './gauging-check';
 export { validateRating } from './validate';
 export { fitSegments, type FitSegmentsOptions, type SegmentsFit } from './fit-segments';
 export { ratingFromTable, type TableRow } from './from-table';

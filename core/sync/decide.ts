@@ -4,6 +4,7 @@
 import type { ConflictReason, SyncRecord } from '../records/types';
 import { descends, stampOf } from './ancestry';
 import { AHEAD_TOLERANCE_MS, isAhead } from './ahead';
+import { winsOver } from './winner';
 
 /** The outcome for one incoming version against the stored one (stored may be absent). */
 export type Decision =
@@ -31,7 +32,7 @@ export function decide(stored: SyncRecord | undefined, incoming: SyncRecord, opt
   }
   if (stored === undefined) return { winner: 'incoming', ahead: isAhead(incoming.rev, options.now_ms, tolerance) };
   if (stored.rev === incoming.rev) return { winner: 'same' };
-  const incomingWins = incoming.rev > stored.rev;
+  const incomingWins = winsOver(incoming, stored);
   const [winner, loser] = incomingWins ? [incoming, stored] : [stored, incoming];
   const ahead = isAhead(winner.rev, options.now_ms, tolerance);
   const keepLoser: ConflictReason | undefined = !descends(stampOf(winner), stampOf(loser)) ? 'concurrent' : ahead ? 'ahead' : undefined;

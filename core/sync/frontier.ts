@@ -4,8 +4,9 @@
 // and the order in which versions arrive does not change the result.
 import type { SyncRecord } from '../records/types';
 import { descends, stampOf } from './ancestry';
+import { byRevision } from './winner';
 
-/** The kept versions of one record: the winner (highest revision) and concurrent versions, by revision. */
+/** The kept versions of one record: the winner (winningVersion: highest revision) and concurrent versions, by revision. */
 export interface Frontier {
   winner: SyncRecord;
   /** Concurrent versions that lost to the winner, oldest revision first: the conflicts to review. */
@@ -37,6 +38,6 @@ export function mergeIntoFrontier(f: Frontier | undefined, v: SyncRecord): Front
   const kept = [f.winner, ...f.others];
   const sv = stampOf(v);
   if (kept.some((k) => descends(stampOf(k), sv))) return f;
-  const members = [v, ...kept.filter((k) => !descends(sv, stampOf(k)))].sort((a, b) => (a.rev < b.rev ? -1 : a.rev > b.rev ? 1 : 0));
+  const members = [v, ...kept.filter((k) => !descends(sv, stampOf(k)))].sort(byRevision);
   return { winner: members[members.length - 1], others: members.slice(0, -1) };
 }

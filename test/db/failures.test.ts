@@ -3,11 +3,12 @@
 import { describe, expect, it, vi } from 'vitest';
 import { openDB } from 'idb';
 import type { SiteRecord } from '../../core/records/index';
-import {
-  DB_NAME, DB_VERSION, getDb, getMeta, getSite, listReadings, onDbEvent, READING_SOURCE_CODES, saveReading, saveSite,
-  StorageError,
-  type DbEvent, type FreshetDB, type SeriesChunk,
-} from '../../web/db/index';
+import { getSite, listReadings, saveReading, saveSite, StorageError } from '../../web/db/index';
+import { DB_NAME, DB_VERSION, type FreshetDB, type SeriesChunk } from '../../web/db/schema';
+import { getDb } from '../../web/db/connection';
+import { getMeta } from '../../web/db/meta';
+import { onDbEvent, type DbEvent } from '../../web/db/events';
+import { READING_SOURCE_CODES } from '../../core/records/index';
 import { upgradeFreshetDb } from '../../web/db/upgrade';
 import { closeDbForTests } from '../../web/db/testing';
 import { useFreshDb } from '../support/db';

@@ -1,7 +1,9 @@
 // Saving a gauging from its form: the kept draft goes in the same transaction as the gauging, so a crash
 // right after Save can never offer a saved gauging again (and a second Save cannot double it).
 import { describe, expect, it } from 'vitest';
-import { getDraft, getGauging, listGaugings, saveDraft, saveGauging, saveSite } from '../../web/db/index';
+import { listGaugings, saveDraft, saveGauging, saveSite } from '../../web/db/index';
+import { getDraft } from '../../web/db/drafts';
+import { getGauging } from '../../web/db/gaugings';
 import { useFreshDb } from '../support/db';
 import { gauging, site, T0 } from '../support/records';
 

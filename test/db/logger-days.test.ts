@@ -4,10 +4,12 @@
 import { describe, expect, it } from 'vitest';
 import { openDB } from 'idb';
 import { driftCorrections, loggerDayId } from '../../core';
-import {
-  DB_NAME, DB_VERSION, getDb, importLoggerRecord, importReadings, listLoggerDays, onRecordsChanged, readingSeries, READING_SOURCE_CODES,
-  saveReading, saveSite, seriesWithDischarge, saveRating, StorageError, type FreshetDB,
-} from '../../web/db/index';
+import { importLoggerRecord, importReadings, onRecordsChanged, saveReading, saveSite, seriesWithDischarge, saveRating, StorageError } from '../../web/db/index';
+import { DB_NAME, DB_VERSION, type FreshetDB } from '../../web/db/schema';
+import { getDb } from '../../web/db/connection';
+import { listLoggerDays } from '../../web/db/logger-days';
+import { readingSeries } from '../../web/db/series-read';
+import { READING_SOURCE_CODES } from '../../core/records/index';
 import { upgradeFreshetDb } from '../../web/db/upgrade';
 import { closeDbForTests } from '../../web/db/testing';
 import { useFreshDb } from '../support/db';

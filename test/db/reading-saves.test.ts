@@ -2,7 +2,8 @@
 // (a crash right after Save cannot offer a saved reading again), a stale edit is refused instead of
 // silently winning, and a saved reading cannot move to another site.
 import { describe, expect, it } from 'vitest';
-import { deleteReading, getDraft, getReading, latestReading, listReadings, saveDraft, saveReading, saveSite } from '../../web/db/index';
+import { deleteReading, getReading, latestReading, listReadings, saveDraft, saveReading, saveSite } from '../../web/db/index';
+import { getDraft } from '../../web/db/drafts';
 import { useFreshDb } from '../support/db';
 import { reading, site, T0 } from '../support/records';
 

@@ -4,11 +4,11 @@
 import { describe, expect, it, vi } from 'vitest';
 import fc from 'fast-check';
 import { nextRev, READING_SOURCES, type ReadingBody, type ReadingRecord, type ReadingSource } from '../../core/records/index';
-import {
-  deleteRating, deleteReading, getDb, importReadings, listReadings, READING_SOURCE_CODES, readingSeries, readingSourceOfCode,
-  putReadingsInTx, readingsWithDischarge, restoreReading, saveRating, saveReading, saveSite, seriesWithDischarge, StorageError,
-  withReadingsWrite,
-} from '../../web/db/index';
+import { deleteRating, deleteReading, importReadings, listReadings, readingsWithDischarge, restoreReading, saveRating, saveReading, saveSite, seriesWithDischarge, StorageError } from '../../web/db/index';
+import { getDb } from '../../web/db/connection';
+import { READING_SOURCE_CODES, readingSourceOfCode } from '../../core/records/index';
+import { readingSeries } from '../../web/db/series-read';
+import { putReadingsInTx, withReadingsWrite } from '../../web/db/readings-write';
 import { resetDbForTests, setClockForTests } from '../../web/db/testing';
 import { useFreshDb } from '../support/db';
 import { loggerSeries, QUARTER_HOUR_MS, rating, reading, site, T0 } from '../support/records';

@@ -2,10 +2,10 @@
 // conflicts kept, all or nothing, cursor with the merge), settling conflicts, the outbox and its marks.
 import { describe, expect, it } from 'vitest';
 import { DEMO_SITE_ID, formatRev, parseRev, toSyncRecord, type SyncRecord } from '../../core/index';
-import {
-  acknowledge, applyIncoming, exportBundle, getDb, getMeta, getReading, getSite, getSyncValue, listConflicts, markExported,
-  nextOutgoing, previewIncoming, readingSeries, saveReading, saveSite, settleConflict, waitingCount,
-} from '../../web/db/index';
+import { acknowledge, applyIncoming, exportBundle, getReading, getSite, getSyncValue, listConflicts, markExported, nextOutgoing, previewIncoming, saveReading, saveSite, settleConflict, waitingCount } from '../../web/db/index';
+import { getDb } from '../../web/db/connection';
+import { getMeta } from '../../web/db/meta';
+import { readingSeries } from '../../web/db/series-read';
 import { reading, site, T0 } from '../support/records';
 import { useFreshDb } from '../support/db';
 

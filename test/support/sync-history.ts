@@ -2,7 +2,7 @@
 // one another, and sometimes settle a conflict; every version with the versions it was built on.
 import fc from 'fast-check';
 import { maxRev, nextRev, type SyncRecord } from '../../core/records/index';
-import { mergeIntoFrontier, recordKey, seenAfter, type Frontier } from '../../core/sync/index';
+import { mergeIntoFrontier, ownKeptBases, recordKey, seenAfter, stampOf, type Frontier } from '../../core/sync/index';
 
 export const DEVICES = ['dev-a', 'dev-b', 'dev-c'] as const;
 export const RECORD_IDS = ['0b5a1c9e-3f0e-4c55-8a3e-1d2f00000001', '0b5a1c9e-3f0e-4c55-8a3e-1d2f00000002'] as const;
@@ -62,7 +62,9 @@ export function runHistory(steps: readonly Step[]): History {
       const bases = f ? (s.settle ? [f.winner, ...f.others] : [f.winner]) : [];
       const rev = nextRev(clock[s.device], now, device);
       clock[s.device] = rev;
-      const seen = seenAfter(device, bases.map((b) => ({ rev: b.rev, seen: b.body.seen })));
+      // As the app does: `seen` also covers this device's own versions of the record still kept.
+      const own = f && !s.settle ? ownKeptBases(device, f.others.map(stampOf)) : [];
+      const seen = seenAfter(device, [...bases.map(stampOf), ...own]);
       const v = { kind: 'site', id, rev, body: body(versions.length, now, seen) } as SyncRecord;
       versions.push(v);
       parents.set(rev, bases.map((b) => b.rev));
@@ -81,7 +83,12 @@ export function runHistory(steps: readonly Step[]): History {
   return { versions, parents };
 }
 
-/** True ancestry: b is a, or reachable from a through parents or an earlier version of a's own device. */
+/**
+ * True ancestry, by the definition in core/sync/ancestry.ts: b is a, or reachable from a through parents
+ * (the versions each was built on) or an earlier version of the same record by the same device. A
+ * device's order across different records is not followed: editing one record says nothing about which
+ * versions of another the device had reviewed.
+ */
 export function isAncestor(h: History, a: SyncRecord, b: SyncRecord): boolean {
   const device = (rev: string) => rev.slice(21);
   const goal = b.rev;
@@ -93,7 +100,7 @@ export function isAncestor(h: History, a: SyncRecord, b: SyncRecord): boolean {
     if (visited.has(r)) continue;
     visited.add(r);
     stack.push(...(h.parents.get(r) ?? []));
-    for (const v of h.versions) if (device(v.rev) === device(r) && v.rev < r) stack.push(v.rev);
+    for (const v of h.versions) if (v.id === a.id && device(v.rev) === device(r) && v.rev < r) stack.push(v.rev);
   }
   return false;
 }

@@ -1,8 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { dischargeAt, type GaugingRecord, type Rating } from '../../core';
+import { constantShift, dischargeAt, type DatedRating, type GaugingRecord } from '../../core';
+import { gaugingCheck } from '../../web/screens/Gaugings/check';
 import { ratingPlotData } from '../../web/screens/Ratings/plot-data';
 
-const rating: Rating = { segments: [{ fromStage_m: 0.1, offset_m: 0.1, coefficient: 5, exponent: 2 }], gaugedRange_m: [0.3, 0.9] };
+const rating: DatedRating = {
+  id: 'r1', validFrom_ms: 0, shifts: [], segments: [{ fromStage_m: 0.1, offset_m: 0.1, coefficient: 5, exponent: 2 }], gaugedRange_m: [0.3, 0.9],
+};
 const g = (h: number, f: number, i: number) => ({ id: `g${i}`, time_ms: i, meanStage_m: h, discharge_m3s: dischargeAt(rating, h) * f, grade: 'good' }) as GaugingRecord;
 const gaugings = [g(0.5, 1.01, 2), g(0.35, 1.2, 1), g(0.8, 0.97, 3)];
 
@@ -27,9 +30,21 @@ describe('ratingPlotData', () => {
     const both = d.x.filter((_, i) => Number.isFinite(d.gauged[i]) && Number.isFinite(d.extrapolated[i]));
     expect(both.length).toBeGreaterThanOrEqual(2);
   });
+  // exact: with a constant shift s in force, Q = C·(h + s − e)^b; a gauging on the shifted curve checks, one on
+  // the base curve is off by more than the grade allows; the plot and the gauging list say the same (one home).
+  it('marks a gauging as checking the rating with the shift in force at its time, as the gauging list does', () => {
+    const shifted: DatedRating = { ...rating, shifts: [{ time_ms: 0, curve: constantShift(0.05), toNext: 'hold' }] };
+    const onShifted = { id: 's1', time_ms: 10, meanStage_m: 0.5, discharge_m3s: 5 * (0.5 + 0.05 - 0.1) ** 2, grade: 'good' } as GaugingRecord;
+    const onBase = { ...onShifted, id: 's2', time_ms: 11, discharge_m3s: 5 * (0.5 - 0.1) ** 2 };
+    const d = ratingPlotData(shifted, [onShifted, onBase], 'arithmetic', 'metric');
+    expect(d.points.map((p) => [p.gauging.id, p.checks])).toEqual([['s1', true], ['s2', false]]);
+    for (const p of d.points) expect(p.checks).toBe(gaugingCheck(p.gauging, [shifted])!.checks);
+    expect(gaugingCheck(onShifted, [shifted])!.deviation_pct).toBeCloseTo(0, 10);
+    expect(gaugingCheck(onShifted, [shifted])!.appliedShift_m).toBeCloseTo(0.05, 12);
+  });
   // exact: on log axes a power law Q = C·(h − e)^b is a straight line of slope 1/b in (ln Q, ln(h − e))
   it('plots stage above the offset on log axes, where the curve is straight', () => {
-    const d = ratingPlotData({ segments: rating.segments }, [], 'log', 'metric');
+    const d = ratingPlotData({ ...rating, gaugedRange_m: undefined }, [], 'log', 'metric');
     expect(d.offset).toBe(0.1);
     const i = 10;
     const j = d.x.length - 10;

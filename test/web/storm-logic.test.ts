@@ -219,6 +219,6 @@ describe('the draft', () => {
   });
   it('never lets an internal name or a raw millisecond time through to the screen', () => {
     expect(plainMessage('separateBaseflow needs key points in order; runoffEnd_ms (1795536000000) is before peak_ms')).not.toMatch(/separateBaseflow|_ms|\d{10}/);
-    expect(plainMessage('smoothed-minima found no turning point')).toBe('smoothed minima found no turning point');
+    expect(plainMessage('smoothed-minima found no turning point')).toBe('Smoothed minima found no turning point.');
   });
 });

@@ -4,13 +4,20 @@ import { MainNav } from '../components/MainNav';
 import { UpdateNotice } from '../components/UpdateNotice';
 import { useRoute } from '../router';
 import { useStore } from '../store';
+import { AREAS } from './areas';
 import { online } from './online';
 import { screenFor } from './routes';
+import { acceptUpdate, updateStatus } from './updates';
+
+const acceptNow = () => void acceptUpdate();
+const later = () => updateStatus.set({ kind: 'current' });
+const failureSeen = () => updateStatus.set({ kind: 'ready' });
 
 /** The whole app. */
 export function App() {
   const route = useRoute();
   const isOnline = useStore(online);
+  const update = useStore(updateStatus);
   const mainRef = useRef<HTMLElement>(null);
   const { area, title, Screen, params } = screenFor(route);
   useEffect(() => {
@@ -32,8 +39,8 @@ export function App() {
       <main id="main" ref={mainRef} tabIndex={-1}>
         <Screen route={route} params={params} />
       </main>
-      <UpdateNotice />
-      <MainNav current={area} />
+      <UpdateNotice status={update} onAccept={acceptNow} onLater={later} onFailureSeen={failureSeen} />
+      <MainNav items={AREAS} current={area} />
     </div>
   );
 }

@@ -2,16 +2,12 @@
 // calls clientsClaim). A later version waits; the app shows that an update is ready, and only when the
 // user accepts do we save what is open, let the new worker take over and reload this page. A page that
 // did not ask is never reloaded: it is told that a newer version is running in another tab.
+import type { UpdateNoticeState } from '../components/UpdateNotice';
 import { createStore } from '../store';
 import { noteRequest, online } from './online';
 
-/** Where the update flow stands, for the notice at the bottom of the screen. */
-export type UpdateStatus =
-  | { kind: 'current' }
-  | { kind: 'ready' }
-  | { kind: 'applying' }
-  | { kind: 'failed'; message: string }
-  | { kind: 'changed-elsewhere' };
+/** Where the update flow stands: the states the notice at the bottom of the screen shows. */
+export type UpdateStatus = UpdateNoticeState;
 
 export const updateStatus = createStore<UpdateStatus>({ kind: 'current' });
 

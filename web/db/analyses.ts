@@ -1,15 +1,11 @@
 // Storm analyses saved by the technician or the office.
 import type { AnalysisRecord } from '../../core/records/index';
-import { getIn, listRange, restoreIn, saveIn, tombstoneIn, type ReadOptions, type SaveInput } from './records';
+import { listRange, saveIn, tombstoneIn, type ReadOptions, type SaveInput } from './records';
 
 /** Validates and saves a storm analysis (new id when absent); resolves once it is durable. */
 export const saveAnalysis = (analysis: SaveInput<AnalysisRecord>): Promise<AnalysisRecord> => saveIn('analyses', analysis);
-/** The analysis with this id, or undefined (tombstones only with includeDeleted). */
-export const getAnalysis = (id: string, options?: ReadOptions): Promise<AnalysisRecord | undefined> => getIn('analyses', id, options);
-/** Deletes an analysis by tombstone; returns the tombstone (undo with restoreAnalysis). */
+/** Deletes an analysis by tombstone; returns the tombstone. */
 export const deleteAnalysis = (id: string): Promise<AnalysisRecord | undefined> => tombstoneIn('analyses', id);
-/** Undoes deleteAnalysis under a new revision. */
-export const restoreAnalysis = (id: string): Promise<AnalysisRecord | undefined> => restoreIn('analyses', id);
 
 /** Analyses of a site whose window starts within [from_ms, to_ms] (UTC ms; all by default), oldest first. */
 export function listAnalyses(siteId: string, from_ms = -Infinity, to_ms = Infinity, options?: ReadOptions): Promise<AnalysisRecord[]> {

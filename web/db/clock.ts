@@ -61,6 +61,18 @@ export function deviceId(): Promise<string> {
   });
 }
 
+/**
+ * Moves the revision clock in meta past `highest` (a revision seen from another device) inside an open
+ * transaction that holds meta, so later local revisions sort above it; nothing when undefined or lower.
+ */
+export async function observeRevsInTx(tx: MetaTx, highest: string | undefined): Promise<void> {
+  if (highest === undefined) return;
+  const meta = tx.objectStore('meta');
+  const stored = await meta.get('lastRev');
+  const next = maxRev(typeof stored === 'string' ? stored : undefined, highest);
+  if (next !== stored && next !== undefined) quietly(meta.put(next, 'lastRev'));
+}
+
 /** Records a revision seen from another device, so every later local revision sorts above it. */
 export function observeRev(rev: string): Promise<void> {
   return withDb(async (db) => {

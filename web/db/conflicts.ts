@@ -1,14 +1,21 @@
 // Conflicts: losing versions kept after a merge for the user to review. Local only, never synced.
 // Settling one writes a new version of the record that knows both sides (so the choice reaches the office
 // and the same conflict never comes back), in one transaction with the removal of the conflict.
-import { fromSyncRecord, parseRev, toSyncRecord, type ConflictRecord, type ReadingRecord } from '../../core/records/index';
+import {
+  fromSyncRecord, parseRev, toSyncRecord, type ConflictRecord, type LoggerDayRecord, type ReadingRecord,
+} from '../../core/records/index';
 import { seenAfter, stampOf } from '../../core/sync/index';
 import { now_ms, stampInTx } from './clock';
 import { StorageError, storageMessage } from './errors';
-import { afterWrite, listAll, listRange, removeIn, saveIn, type SaveInput } from './records';
-import { quietly } from './quietly';
+import { putLoggerDaysInTx } from './logger-days';
+import { afterWrite, listAll, listRange, putRecordsInTx, removeIn, removeInTx, saveIn, type PlainStore, type SaveInput } from './records';
 import { putReadingsInTx, withReadingsWrite } from './readings-write';
-import { STORE_OF_KIND } from './sync-merge';
+import { STORE_OF_KIND, SYNCED_STORES, type StoreName } from './stores';
+
+/** What settling holds besides the readings writer's own stores: every other synced store and conflicts. */
+const SETTLE_ALSO = [...SYNCED_STORES, 'conflicts'].filter(
+  (s): s is Exclude<StoreName, 'readings' | 'series' | 'meta'> => s !== 'readings',
+);
 
 /** Keeps a losing version for review; resolves once it is durable. */
 export const saveConflict = (conflict: SaveInput<ConflictRecord>): Promise<ConflictRecord> => saveIn('conflicts', conflict);
@@ -29,12 +36,12 @@ export async function listConflicts(recordId?: string): Promise<ConflictRecord[]
 export async function settleConflict(id: string, useKept: boolean): Promise<void> {
   const at = now_ms();
   // The one readings writer opens the transaction, so a settled reading and its series are written its way.
-  const kind = await withReadingsWrite(['sites', 'gaugings', 'ratings', 'analyses', 'conflicts'], async (tx) => {
+  const kind = await withReadingsWrite(SETTLE_ALSO, async (tx) => {
     const conflict = await tx.objectStore('conflicts').get(id);
     if (!conflict) throw new StorageError('not-found', storageMessage('not-found'));
     const store = tx.objectStore(STORE_OF_KIND[conflict.kind]);
     const current = await store.get(conflict.recordId);
-    quietly(tx.objectStore('conflicts').delete(id));
+    removeInTx(tx, 'conflicts', [id]);
     const notice = conflict.reason === 'ahead' && !useKept;
     if (!notice) {
       const inUse = current ? toSyncRecord(conflict.kind, current as never) : undefined;
@@ -45,7 +52,8 @@ export async function settleConflict(id: string, useKept: boolean): Promise<void
       const { seen: _old, ...body } = chosen.body as typeof chosen.body & { seen?: string[] };
       const record = fromSyncRecord({ ...chosen, rev, body: { ...body, updated_ms: at, ...(seen ? { seen } : {}) } } as typeof chosen);
       if (conflict.kind === 'reading') await putReadingsInTx(tx, [record as ReadingRecord]);
-      else quietly(store.put(record as never));
+      else if (conflict.kind === 'logger-day') putLoggerDaysInTx(tx, [record as LoggerDayRecord]);
+      else putRecordsInTx(tx, STORE_OF_KIND[conflict.kind] as PlainStore, [record as never]);
     }
     return conflict.kind;
   });

@@ -7,13 +7,13 @@ import { StorageError, storageMessage, toStorageError } from './errors';
 import { emitDbEvent } from './events';
 
 /** An open Freshet database. */
-export type FreshetDb = IDBPDatabase<FreshetDB>;
+export type FreshetConnection = IDBPDatabase<FreshetDB>;
 
-let connection: Promise<FreshetDb> | undefined;
+let connection: Promise<FreshetConnection> | undefined;
 let reloadNeeded = false;
 
 /** Opens (or returns the already open) Freshet database, upgrading it to DB_VERSION when needed. */
-export function openFreshetDb(): Promise<FreshetDb> {
+export function openFreshetDb(): Promise<FreshetConnection> {
   if (reloadNeeded) return Promise.reject(new StorageError('version', storageMessage('version')));
   if (typeof indexedDB === 'undefined') return Promise.reject(new StorageError('unavailable', storageMessage('unavailable')));
   if (!connection) {
@@ -29,7 +29,7 @@ export function openFreshetDb(): Promise<FreshetDb> {
 /** The open database (same as openFreshetDb). */
 export const getDb = openFreshetDb;
 
-async function open(): Promise<FreshetDb> {
+async function open(): Promise<FreshetConnection> {
   try {
     const db = await openDB<FreshetDB>(DB_NAME, DB_VERSION, {
       upgrade: (database, oldVersion, _newVersion, tx) => upgradeFreshetDb(database, oldVersion, tx),
@@ -65,7 +65,7 @@ function forget(): void {
  * starting a transaction, so nothing was written), reopens it and runs fn once more. Anything thrown
  * comes out as a StorageError (or the RecordValidationError fn threw).
  */
-export async function withDb<T>(fn: (db: FreshetDb) => Promise<T>): Promise<T> {
+export async function withDb<T>(fn: (db: FreshetConnection) => Promise<T>): Promise<T> {
   const db = await openFreshetDb();
   try {
     return await fn(db);
@@ -75,7 +75,7 @@ export async function withDb<T>(fn: (db: FreshetDb) => Promise<T>): Promise<T> {
       const current = await connection.catch(() => undefined);
       if (current === db) forget();
     }
-    let again: FreshetDb;
+    let again: FreshetConnection;
     try {
       again = await openFreshetDb();
     } catch (openError) {

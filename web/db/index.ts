@@ -1,38 +1,25 @@
 // web/db: the only way screens read and write stored records. Every save is validated, written in one
-// transaction and resolves only once durable; deletion is a tombstone that restore undoes.
-export { openFreshetDb, getDb, type FreshetDb } from './connection';
-export { DB_NAME, DB_VERSION, type FreshetDB, type MetaKey, type MetaValues, type SeriesChunk } from './schema';
-export { StorageError, storageMessage, toStorageError, type StorageFailure } from './errors';
-export { onDbEvent, onRecordsChanged, type DbEvent, type RecordsChange } from './events';
+// transaction and resolves only once durable; deletion is a tombstone that restore undoes. This surface
+// is what the app uses (test/web/layers.test.ts holds it to that); tests import the internal modules.
+export { StorageError } from './errors';
+export { onRecordsChanged } from './events';
 export { storageState, type StorageState } from './persist';
-export { deviceId, observeRev } from './clock';
-export { changedSince, type ReadOptions, type SaveInput } from './records';
-export { saveSite, getSite, deleteSite, restoreSite, listSites } from './sites';
+export { deviceId } from './clock';
+export { saveSite, getSite, deleteSite, listSites } from './sites';
 export { getReading, listReadings, latestReading, latestReadings, readingBefore } from './readings';
-export {
-  saveReading, deleteReading, restoreReading, importReadings, withReadingsWrite, putReadingsInTx, addReadingsInTx,
-  DEFAULT_IMPORT_BATCH, type SaveReadingOptions, type ImportOptions, type ImportProgress, type ImportDuplicate, type ImportResult,
-  type OtherStore, type ReadingsTx,
-} from './readings-write';
+export { saveReading, deleteReading, restoreReading, importReadings, type ImportProgress } from './readings-write';
 export { readingsWithDischarge, seriesWithDischarge, stageRecordIn, type SeriesWithDischarge } from './discharge-read';
 export { latestStageTime, readingSeries, type ReadingSeries } from './series-read';
 export type { ReadingWithDischarge } from '../../core/readings/index';
-export { READING_SOURCE_CODES, readingSourceOfCode, type ReadingSourceCode } from '../../core/records/index';
-export {
-  importLoggerRecord, listLoggerDays, type LoggerImportInput, type LoggerImportResult, type LoggerImportDuplicate,
-  type LoggerImportProgress, type LoggerImportOptions,
-} from './logger-days';
-export { saveGauging, getGauging, deleteGauging, restoreGauging, listGaugings } from './gaugings';
-export { saveRating, getRating, deleteRating, restoreRating, listRatings, ratingInForceAt, ratingsAndGaugings } from './ratings';
-export { saveAnalysis, getAnalysis, deleteAnalysis, restoreAnalysis, listAnalyses } from './analyses';
-export { saveDraft, getDraft, discardDraft, listDrafts } from './drafts';
-export { saveConflict, dismissConflict, listConflicts } from './conflicts';
-export { getMeta, setMeta } from './meta';
+export { importLoggerRecord, type LoggerImportResult } from './logger-days';
+export { saveGauging, deleteGauging, listGaugings } from './gaugings';
+export { saveRating, deleteRating, restoreRating, listRatings, ratingInForceAt, ratingsAndGaugings } from './ratings';
+export { saveAnalysis, deleteAnalysis, listAnalyses } from './analyses';
+export { saveDraft, discardDraft, listDrafts } from './drafts';
+export { listConflicts } from './conflicts';
 export { settleConflict } from './conflicts';
-export { applyIncoming, previewIncoming, STORE_OF_KIND, syncedVersion, type IncomingResult } from './sync-merge';
-export {
-  acknowledge, exportBundle, markExported, markOf, MAX_BUNDLE_RECORDS, nextOutgoing, noteAttempt, waitingCount, type ExportFile,
-} from './outbox';
+export { applyIncoming, previewIncoming, syncedVersion, type IncomingResult } from './sync-merge';
+export { acknowledge, exportBundle, markExported, nextOutgoing, noteAttempt, waitingCount } from './outbox';
 export { getSyncValue, setSyncValue, updateSyncStatus } from './sync-store';
 export { onSyncChanged } from './sync-events';
-export type { OutboxEntry, SyncKey, SyncProblem, SyncSettings, SyncStatusRecord, SyncValues } from './schema';
+export type { SyncSettings, SyncStatusRecord } from './schema';

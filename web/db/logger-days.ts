@@ -9,6 +9,7 @@ import { withDb } from './connection';
 import { now_ms, stampInTx } from './clock';
 import { StorageError } from './errors';
 import { afterWrite } from './records';
+import { quietly } from './quietly';
 import { withReadingsWrite } from './readings-write';
 
 /** A corrected logger record to store at one site: times (UTC ms, strictly ascending), raw values and corrections (m). */
@@ -130,6 +131,18 @@ export async function importLoggerRecord(input: LoggerImportInput, options: Logg
   });
   if (result.days > 0) afterWrite(['logger-day']);
   return result;
+}
+
+/**
+ * Puts whole logger-day records as given (each with its own id and rev: merged from another device, or a
+ * settled conflict) inside an open transaction that holds loggerDays.
+ */
+export function putLoggerDaysInTx(
+  tx: { objectStore(name: 'loggerDays'): { put(value: LoggerDayRecord): Promise<unknown> } },
+  records: readonly LoggerDayRecord[],
+): void {
+  const store = tx.objectStore('loggerDays');
+  for (const r of records) quietly(store.put(r));
 }
 
 /** The day without the times held by single logger readings (reported as duplicates). */

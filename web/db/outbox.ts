@@ -8,8 +8,9 @@ import { parseRev, toSyncRecord, type SyncKind, type SyncRecord } from '../../co
 import { withDb } from './connection';
 import { now_ms } from './clock';
 import type { OutboxEntry, SyncStatusRecord } from './schema';
-import { STORE_OF_KIND, SYNCED_STORES } from './sync-merge';
+import { STORE_OF_KIND, SYNCED_STORES } from './stores';
 import { notifySyncChanged } from './sync-events';
+import { putSyncInTx } from './sync-store';
 
 /** Most records in one bundle sent to the office (the protocol page states it). */
 export const MAX_BUNDLE_RECORDS = 500;
@@ -106,10 +107,9 @@ export async function acknowledge(id: string): Promise<boolean> {
       await tx.done;
       return false;
     }
-    const sync = tx.objectStore('sync');
     const next = typeof acked === 'string' && acked > entry.through ? acked : entry.through;
     const { lastProblem: _cleared, ...rest } = (status as SyncStatusRecord | undefined) ?? {};
-    await Promise.all([sync.put(next, 'acked'), sync.put({ ...rest, lastSuccess_ms: at }, 'status'), tx.objectStore('outbox').delete(id), tx.done]);
+    await Promise.all([putSyncInTx(tx, 'acked', next), putSyncInTx(tx, 'status', { ...rest, lastSuccess_ms: at }), tx.objectStore('outbox').delete(id), tx.done]);
     return true;
   });
   notifySyncChanged();
@@ -172,8 +172,8 @@ export async function markExported(through: string | undefined): Promise<void> {
     const [exported, status] = await Promise.all([tx.store.get('exported'), tx.store.get('status')]);
     const next = through !== undefined && (typeof exported !== 'string' || through > exported) ? through : undefined;
     await Promise.all([
-      next !== undefined ? tx.store.put(next, 'exported') : undefined,
-      tx.store.put({ ...((status as SyncStatusRecord | undefined) ?? {}), lastExport_ms: at }, 'status'),
+      next !== undefined ? putSyncInTx(tx, 'exported', next) : undefined,
+      putSyncInTx(tx, 'status', { ...((status as SyncStatusRecord | undefined) ?? {}), lastExport_ms: at }),
       tx.done,
     ]);
   });

@@ -2,12 +2,10 @@
 import { ratingInForce } from '../../core/rating/index';
 import type { GaugingRecord, RatingRecord } from '../../core/records/index';
 import { withDb } from './connection';
-import { getIn, listRange, restoreIn, saveIn, tombstoneIn, type ReadOptions, type SaveInput } from './records';
+import { listRange, restoreIn, saveIn, tombstoneIn, type ReadOptions, type SaveInput } from './records';
 
 /** Validates and saves a rating (new id when absent); resolves with the stored record once it is durable. */
 export const saveRating = (rating: SaveInput<RatingRecord>): Promise<RatingRecord> => saveIn('ratings', rating);
-/** The rating with this id, or undefined (tombstones only with includeDeleted). */
-export const getRating = (id: string, options?: ReadOptions): Promise<RatingRecord | undefined> => getIn('ratings', id, options);
 /** Deletes a rating by tombstone; returns the tombstone (undo with restoreRating). */
 export const deleteRating = (id: string): Promise<RatingRecord | undefined> => tombstoneIn('ratings', id);
 /** Undoes deleteRating under a new revision. */

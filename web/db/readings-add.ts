@@ -1,11 +1,10 @@
-// Adding many new readings inside a transaction of the readings writer (readings-write.ts): validated
-// first, then written in batches with progress after each; (site, source, time) duplicates, already
-// stored or repeated in the input, are reported and skipped. The series (series-edit.ts) of the days
-// added is merged in memory and each day's chunk put once, in the same transaction.
-import { unwrap } from 'idb';
+// Planning the addition of many new readings inside a transaction of the readings writer: validated first;
+// (site, source, time) duplicates, already stored or repeated in the input, are reported and skipped; the
+// series (series-edit.ts) of the days added is merged in memory. Nothing is written here: the readings
+// writer (readings-write.ts, addReadingsInTx) writes the readings in batches and each day's chunk once.
 import { RecordValidationError, validateReadingBody, type ReadingBody, type ReadingRecord, type ReadingSource } from '../../core/records/index';
 import { stampInTx } from './clock';
-import { StorageError, storageMessage } from './errors';
+import { StorageError } from './errors';
 import type { ReadingsTx, SeriesChunk } from './schema';
 import { dayOf, mergeIntoChunks } from './series-edit';
 
@@ -55,23 +54,30 @@ interface Group {
   times: Map<number, number>;
 }
 
-function abortError(): StorageError {
+/** The error of an import stopped by its signal. */
+export function abortError(): StorageError {
   return new StorageError('aborted', 'The import was stopped and nothing was written.');
 }
 
+/** What planReadingsAdd found: the records to write, the series chunks after them, and the result to report. */
+export interface ReadingsAddPlan {
+  toWrite: ReadingRecord[];
+  chunks: SeriesChunk[];
+  result: ImportResult;
+}
+
 /**
- * Adds new readings inside tx (which holds readings, series and meta): each gets a new id and one new
- * revision stamped at at_ms (UTC ms). Readings whose (site, source, time) is already stored, or appears
- * earlier in the input, are reported in `duplicates` and not written. Throws a RecordValidationError
- * naming the first bad field ("readings[12].stage_m") before writing anything. The caller awaits tx.done.
+ * Plans adding new readings inside tx (which holds readings, series and meta): each gets a new id and one
+ * new revision stamped at at_ms (UTC ms). Readings whose (site, source, time) is already stored, or
+ * appears earlier in the input, are reported in `duplicates` and left out. Throws a RecordValidationError
+ * naming the first bad field ("readings[12].stage_m") before anything is written.
  */
-export async function addReadingsInTx(
+export async function planReadingsAdd(
   tx: ReadingsTx,
   readings: readonly ReadingBody[],
   at: number,
   options: ImportOptions = {},
-): Promise<ImportResult> {
-  const batch = Math.max(1, Math.floor(options.batchSize ?? DEFAULT_IMPORT_BATCH));
+): Promise<ReadingsAddPlan> {
   const groups = new Map<string, Group>();
   const duplicates: ImportDuplicate[] = [];
   const keep: number[] = [];
@@ -131,38 +137,5 @@ export async function addReadingsInTx(
   const storedChunks = new Map<string, SeriesChunk>();
   for (const c of chunks.flat()) storedChunks.set(`${c.siteId}\u0000${c.day}`, c);
   const merged = mergeIntoChunks(toWrite, storedChunks);
-  await writeInBatches(unwrap(tx.objectStore('readings')), toWrite, batch, options);
-  const rawSeries = unwrap(series);
-  for (const c of merged) rawSeries.put(c);
-  return { imported: toWrite.length, duplicates: duplicates.sort((a, b) => a.index - b.index), rev };
-}
-
-/**
- * Puts the records batch by batch on the raw store (no promise per put: the hot loop of the import),
- * keeping two batches in flight so the next is queued while the previous completes.
- */
-async function writeInBatches(store: IDBObjectStore, records: ReadingRecord[], batch: number, options: ImportOptions): Promise<void> {
-  const total = records.length;
-  const inFlight: { done: Promise<void>; end: number }[] = [];
-  const settle = async (): Promise<void> => {
-    const next = inFlight.shift();
-    if (!next) return;
-    await next.done;
-    options.onProgress?.({ written: next.end, total });
-    if (options.signal?.aborted) throw abortError();
-  };
-  for (let start = 0; start < total; start += batch) {
-    const end = Math.min(total, start + batch);
-    let last!: IDBRequest;
-    for (let i = start; i < end; i++) last = store.put(records[i]);
-    const done = new Promise<void>((resolve, reject) => {
-      last.onsuccess = () => resolve();
-      last.onerror = () => reject(last.error ?? new StorageError('aborted', storageMessage('aborted')));
-    });
-    done.catch(() => undefined);
-    inFlight.push({ done, end });
-    if (inFlight.length >= 2) await settle();
-  }
-  while (inFlight.length > 0) await settle();
-  if (total === 0) options.onProgress?.({ written: 0, total: 0 });
+  return { toWrite, chunks: merged, result: { imported: toWrite.length, duplicates: duplicates.sort((a, b) => a.index - b.index), rev } };
 }

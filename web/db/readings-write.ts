@@ -3,22 +3,22 @@
 // device) goes through here and keeps the readings, the derived series (series-edit.ts) and meta (the
 // revision clock) in step in the same transaction. Callers that must write other stores in that same
 // transaction (sync merge, logger import) use withReadingsWrite and the *InTx functions.
-import type { StoreNames } from 'idb';
+import { unwrap, type StoreNames } from 'idb';
 import {
   isUuid, maxRev, RecordValidationError, validateReadingBody, validateRecord, type ReadingBody, type ReadingRecord,
 } from '../../core/records/index';
 import { withDb } from './connection';
-import { now_ms, stampInTx } from './clock';
+import { now_ms, observeRevsInTx, stampInTx } from './clock';
 import { StorageError, storageMessage } from './errors';
-import { afterWrite, DURABLE, inTx, withSeen, type SaveInput } from './records';
+import { afterWrite, DURABLE, inTx, keptInTx, removeInTx, withSeen, type SaveInput } from './records';
 import { isAhead } from '../../core/sync/index';
 import type { FreshetDB, ReadingsStores, ReadingsTx } from './schema';
-import { updateSeriesInTx } from './series-edit';
-import { addReadingsInTx, type ImportOptions, type ImportResult } from './readings-add';
+import { putChunksInTx, updateSeriesInTx } from './series-edit';
+import { abortError, DEFAULT_IMPORT_BATCH, planReadingsAdd, type ImportOptions, type ImportResult } from './readings-add';
 import { quietly } from './quietly';
 
 export { DEFAULT_IMPORT_BATCH, type ImportDuplicate, type ImportOptions, type ImportProgress, type ImportResult } from './readings-add';
-export { addReadingsInTx, type ReadingsStores, type ReadingsTx };
+export { type ReadingsStores, type ReadingsTx };
 
 /** Other stores a caller may write in the same transaction as readings. */
 export type OtherStore = Exclude<StoreNames<FreshetDB>, ReadingsStores>;
@@ -65,13 +65,11 @@ export async function putReadingsInTx(tx: ReadingsTx, records: readonly ReadingR
   for (const r of records) last.set(r.id, r);
   const unique = [...last.values()];
   const store = tx.objectStore('readings');
-  const meta = tx.objectStore('meta');
-  const [befores, storedRev] = await Promise.all([Promise.all(unique.map((r) => store.get(r.id))), meta.get('lastRev')]);
+  const befores = await Promise.all(unique.map((r) => store.get(r.id)));
   for (const r of unique) quietly(store.put(r));
   // Revisions dated ahead of this device's clock (a wrong date elsewhere) do not move it (core/sync/ahead.ts).
   const at = now_ms();
-  const highest = unique.reduce<string | undefined>((m, r) => (isAhead(r.rev, at) ? m : maxRev(m, r.rev)), typeof storedRev === 'string' ? storedRev : undefined);
-  if (highest !== undefined && highest !== storedRev) quietly(meta.put(highest, 'lastRev'));
+  await observeRevsInTx(tx, unique.reduce<string | undefined>((m, r) => (isAhead(r.rev, at) ? m : maxRev(m, r.rev)), undefined));
   await updateSeriesInTx(tx, unique.map((after, i) => ({ before: befores[i], after })));
   const byId = new Map(unique.map((r, i) => [r.id, befores[i]]));
   return records.map((r) => byId.get(r.id));
@@ -102,20 +100,22 @@ export async function saveReading(input: SaveInput<ReadingRecord>, options: Save
   const { id: given, body } = splitReading(input);
   const id = given ?? crypto.randomUUID();
   const at = now_ms();
-  const also: OtherStore[] = options.draftId !== undefined ? ['drafts'] : [];
+  const also: OtherStore[] = options.draftId !== undefined ? ['conflicts', 'drafts'] : ['conflicts'];
   const saved = await withDb(async (db) => {
     const tx = db.transaction(['readings', 'series', 'meta', ...also], 'readwrite', DURABLE);
     return inTx(tx, async () => {
-      // The new revision sorts above the one it replaces, and carries its `seen` list on (core/sync).
+      // The new revision sorts above the one it replaces, and carries its `seen` list on (core/sync) with
+      // what this device's own kept versions of the reading knew.
       const before = await tx.objectStore('readings').get(id);
+      const kept = await keptInTx(tx, 'reading', id);
       const rev = await stampInTx(tx, at, before?.rev);
       if (options.expectedRev !== undefined && (!before || before.deleted || before.rev !== options.expectedRev)) {
         throw new StorageError('stale', storageMessage('stale'));
       }
       if (before && !before.deleted && before.siteId !== body.siteId) throw new StorageError('moved', storageMessage('moved'));
-      const record: ReadingRecord = withSeen({ ...body, id, rev, updated_ms: at }, rev, before);
+      const record: ReadingRecord = withSeen({ ...body, id, rev, updated_ms: at }, rev, before, kept);
       quietly(tx.objectStore('readings').put(record));
-      if (options.draftId !== undefined) quietly(tx.objectStore('drafts').delete(options.draftId));
+      if (options.draftId !== undefined) removeInTx(tx, 'drafts', [options.draftId]);
       await updateSeriesInTx(tx, [{ before, after: record }]);
       await tx.done;
       return record;
@@ -128,17 +128,18 @@ export async function saveReading(input: SaveInput<ReadingRecord>, options: Save
 async function setDeleted(id: string, deleted: boolean): Promise<ReadingRecord | undefined> {
   const at = now_ms();
   const changed = await withDb(async (db) => {
-    const tx = db.transaction(['readings', 'series', 'meta'], 'readwrite', DURABLE);
+    const tx = db.transaction(['readings', 'series', 'meta', 'conflicts'], 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const existing = await tx.objectStore('readings').get(id);
       if (!existing) throw new StorageError('not-found', storageMessage('not-found'));
+      const kept = await keptInTx(tx, 'reading', id);
       if ((existing.deleted === true) === deleted) {
         await tx.done;
         return undefined;
       }
       const rev = await stampInTx(tx, at, existing.rev);
       const { deleted: _was, seen: _seen, ...rest } = existing;
-      const fields = withSeen({ ...rest, rev, updated_ms: at }, rev, existing);
+      const fields = withSeen({ ...rest, rev, updated_ms: at }, rev, existing, kept);
       const record: ReadingRecord = deleted ? { ...fields, deleted: true } : fields;
       quietly(tx.objectStore('readings').put(record));
       await updateSeriesInTx(tx, [{ before: existing, after: record }]);
@@ -179,3 +180,52 @@ export async function importReadings(readings: readonly ReadingBody[], options: 
   return result;
 }
 
+/**
+ * Adds new readings inside tx (which holds readings, series and meta): each gets a new id and one new
+ * revision stamped at at_ms (UTC ms). Readings whose (site, source, time) is already stored, or appears
+ * earlier in the input, are reported in `duplicates` and not written. Throws a RecordValidationError
+ * naming the first bad field ("readings[12].stage_m") before writing anything. The caller awaits tx.done.
+ */
+export async function addReadingsInTx(
+  tx: ReadingsTx,
+  readings: readonly ReadingBody[],
+  at: number,
+  options: ImportOptions = {},
+): Promise<ImportResult> {
+  const batch = Math.max(1, Math.floor(options.batchSize ?? DEFAULT_IMPORT_BATCH));
+  const plan = await planReadingsAdd(tx, readings, at, options);
+  await writeInBatches(tx, plan.toWrite, batch, options);
+  putChunksInTx(tx, plan.chunks);
+  return plan.result;
+}
+
+/**
+ * Puts the records batch by batch on the raw store (no promise per put: the hot loop of the import),
+ * keeping two batches in flight so the next is queued while the previous completes.
+ */
+async function writeInBatches(tx: ReadingsTx, records: ReadingRecord[], batch: number, options: ImportOptions): Promise<void> {
+  const store = unwrap(tx.objectStore('readings'));
+  const total = records.length;
+  const inFlight: { done: Promise<void>; end: number }[] = [];
+  const settle = async (): Promise<void> => {
+    const next = inFlight.shift();
+    if (!next) return;
+    await next.done;
+    options.onProgress?.({ written: next.end, total });
+    if (options.signal?.aborted) throw abortError();
+  };
+  for (let start = 0; start < total; start += batch) {
+    const end = Math.min(total, start + batch);
+    let last!: IDBRequest;
+    for (let i = start; i < end; i++) last = store.put(records[i]);
+    const done = new Promise<void>((resolve, reject) => {
+      last.onsuccess = () => resolve();
+      last.onerror = () => reject(last.error ?? new StorageError('aborted', storageMessage('aborted')));
+    });
+    done.catch(() => undefined);
+    inFlight.push({ done, end });
+    if (inFlight.length >= 2) await settle();
+  }
+  while (inFlight.length > 0) await settle();
+  if (total === 0) options.onProgress?.({ written: 0, total: 0 });
+}

@@ -1,30 +1,21 @@
 // The operations every record store shares: save, get, tombstone, restore, list by index range.
 // Each write is one transaction over the store and meta (for the revision), awaited to tx.done.
 import type { IndexNames, StoreNames } from 'idb';
-import { isUuid, parseRev, RecordValidationError, validateBody, type RecordKind, type StoredRecords } from '../../core/records/index';
-import { seenAfter } from '../../core/sync/index';
-import type { FreshetDB, RecordStore } from './schema';
+import {
+  isSyncKind, isUuid, parseRev, RecordValidationError, validateBody, type ConflictRecord, type RecordKind, type StoredRecords,
+} from '../../core/records/index';
+import { ownKeptBases, seenAfter, stampOf, type VersionStamp } from '../../core/sync/index';
+import type { FreshetDB } from './schema';
+import { KIND_OF_STORE, type RecordStore } from './stores';
 
-/** Stores written through saveIn and its kin: every record store but readings (readings-write.ts is their one writer). */
-export type PlainStore = Exclude<RecordStore, 'readings'>;
+/** Stores this module writes (saveIn and its kin): every record store but readings and loggerDays (stores.ts). */
+export type PlainStore = Exclude<RecordStore, 'readings' | 'loggerDays'>;
 import { withDb } from './connection';
 import { now_ms, stampInTx } from './clock';
 import { StorageError, storageMessage } from './errors';
 import { notifyRecordsChanged } from './events';
 import { requestPersistenceOnce } from './persist';
 import { quietly } from './quietly';
-
-/** The record kind kept in each store. */
-export const KIND_OF_STORE = {
-  sites: 'site',
-  readings: 'reading',
-  gaugings: 'gauging',
-  ratings: 'rating',
-  analyses: 'analysis',
-  loggerDays: 'logger-day',
-  drafts: 'draft',
-  conflicts: 'conflict',
-} as const satisfies Record<RecordStore, RecordKind>;
 
 /** The record type kept in store S. */
 export type RecordOf<S extends RecordStore> = StoredRecords[(typeof KIND_OF_STORE)[S]];
@@ -72,10 +63,36 @@ function splitInput(kind: RecordKind, input: object): { id: string | undefined; 
   return { id: id as string | undefined, body };
 }
 
-/** The record with the `seen` list of a new version `rev` written on top of `before` (none for a first version). */
-export function withSeen<T extends object>(record: T, rev: string, before: { rev: string; seen?: string[] } | undefined): T & { seen?: string[] } {
-  const seen = before ? seenAfter(parseRev(rev).deviceId, [before]) : undefined;
+/**
+ * The record with the `seen` list of a new version `rev` written on top of `before` (none for a first
+ * version) and `kept`, the record's versions kept for review (its conflicts): those this device wrote are
+ * known to the new version by device order, so it carries what they knew (core/sync/ancestry.ts).
+ */
+export function withSeen<T extends object>(
+  record: T,
+  rev: string,
+  before: VersionStamp | undefined,
+  kept: readonly ConflictRecord[] = [],
+): T & { seen?: string[] } {
+  const deviceId = parseRev(rev).deviceId;
+  const bases = [...(before ? [before] : []), ...ownKeptBases(deviceId, kept.map((c) => stampOf(c.losing)))];
+  const seen = bases.length > 0 ? seenAfter(deviceId, bases) : undefined;
   return seen ? { ...record, seen } : record;
+}
+
+/** Store names without repeats (a transaction over `conflicts` itself names it once). */
+function uniqueStores<T extends string>(names: readonly T[]): T[] {
+  return [...new Set(names)];
+}
+
+/** The versions of record `id` of `kind` kept for review, read inside a transaction that holds `conflicts`. */
+export async function keptInTx(
+  tx: { objectStore(name: 'conflicts'): { index(name: 'by-record'): { getAll(key: string): Promise<ConflictRecord[]> } } },
+  kind: RecordKind,
+  id: string,
+): Promise<ConflictRecord[]> {
+  const all = await tx.objectStore('conflicts').index('by-record').getAll(id);
+  return all.filter((c) => c.kind === kind);
 }
 
 /** Options of a save: the draft of the form the record came from, deleted in the same transaction. */
@@ -93,15 +110,16 @@ export async function saveIn<S extends PlainStore>(store: S, input: SaveInput<Re
   const id = given ?? crypto.randomUUID();
   const at = now_ms();
   const saved = await withDb(async (db) => {
-    const tx = db.transaction(options.draftId !== undefined ? [store, 'meta', 'drafts'] : [store, 'meta'], 'readwrite', DURABLE);
+    const tx = db.transaction(uniqueStores([store, 'meta', 'conflicts', ...(options.draftId !== undefined ? ['drafts' as const] : [])]), 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const s = tx.objectStore(store);
       if (options.draftId !== undefined) quietly(tx.objectStore('drafts').delete(options.draftId));
       // The earlier version: its revision and `seen` list carry over (sync tells edits from concurrent
-      // changes by them).
+      // changes by them), with what this device's own kept versions of the record knew.
       const before = (await s.get(id)) as RecordOf<S> | undefined;
+      const kept = isSyncKind(kind) ? await keptInTx(tx, kind, id) : [];
       const rev = await stampInTx(tx, at, before?.rev);
-      const record = withSeen({ ...body, id, rev, updated_ms: at }, rev, before) as unknown as RecordOf<S>;
+      const record = withSeen({ ...body, id, rev, updated_ms: at }, rev, before, kept) as unknown as RecordOf<S>;
       quietly(s.put(record as FreshetDB[S]['value']));
       await tx.done;
       return record;
@@ -123,18 +141,19 @@ async function setDeleted<S extends PlainStore>(store: S, id: string, deleted: b
   const kind = KIND_OF_STORE[store];
   const at = now_ms();
   const changed = await withDb(async (db) => {
-    const tx = db.transaction([store, 'meta'], 'readwrite', DURABLE);
+    const tx = db.transaction(uniqueStores([store, 'meta', 'conflicts']), 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const s = tx.objectStore(store);
       const existing = (await s.get(id)) as RecordOf<S> | undefined;
       if (!existing) throw new StorageError('not-found', storageMessage('not-found'));
+      const kept = isSyncKind(kind) ? await keptInTx(tx, kind, id) : [];
       if ((existing.deleted === true) === deleted) {
         await tx.done;
         return undefined;
       }
       const rev = await stampInTx(tx, at, existing.rev);
       const { deleted: _was, seen: _seen, ...rest } = existing as RecordOf<S> & { deleted?: true };
-      const fields = withSeen({ ...rest, rev, updated_ms: at }, rev, existing);
+      const fields = withSeen({ ...rest, rev, updated_ms: at }, rev, existing, kept);
       const record = (deleted ? { ...fields, deleted: true } : fields) as RecordOf<S>;
       quietly(s.put(record as FreshetDB[S]['value']));
       await tx.done;
@@ -153,6 +172,30 @@ export function tombstoneIn<S extends PlainStore>(store: S, id: string): Promise
 /** Undoes a deletion: writes the record again without the tombstone under a new rev; undefined when not deleted. */
 export function restoreIn<S extends PlainStore>(store: S, id: string): Promise<RecordOf<S> | undefined> {
   return setDeleted(store, id, false);
+}
+
+/**
+ * Puts whole records (each with its own id and rev: merged from another device, or a settled conflict)
+ * into store S inside an open transaction that holds it. The writers of readings and logger days have
+ * their own (putReadingsInTx, putLoggerDaysInTx).
+ */
+export function putRecordsInTx<S extends PlainStore>(
+  tx: { objectStore(name: S): { put(value: FreshetDB[S]['value']): Promise<unknown> } },
+  store: S,
+  records: readonly FreshetDB[S]['value'][],
+): void {
+  const s = tx.objectStore(store);
+  for (const r of records) quietly(s.put(r));
+}
+
+/** Deletes local-only records (drafts, conflicts) by id inside an open transaction that holds the store. */
+export function removeInTx<S extends 'drafts' | 'conflicts'>(
+  tx: { objectStore(name: S): { delete(key: string): Promise<unknown> } },
+  store: S,
+  ids: readonly string[],
+): void {
+  const s = tx.objectStore(store);
+  for (const id of ids) quietly(s.delete(id));
 }
 
 /** Removes a local-only record outright (drafts, conflicts: they never sync, so no tombstone is needed). */

@@ -10,14 +10,12 @@ export const DB_NAME = 'freshet';
 /** Current schema version: the highest step of the upgrade ladder in upgrade.ts. */
 export const DB_VERSION = 3;
 
-/** Values kept in the meta store, by key: device id, last revision issued, sync cursors. */
+/** Values kept in the meta store, by key: device id and last revision issued (the pull cursor is in `sync`). */
 export interface MetaValues {
   /** This browser profile's device id (a UUID), generated once. */
   deviceId: string;
   /** The highest revision this device has issued or seen; the clock continues from it. */
   lastRev: string;
-  /** Sync cursors, e.g. "cursor:office" → the last revision exchanged with that peer. */
-  [cursor: `cursor:${string}`]: string;
 }
 
 /**
@@ -125,9 +123,6 @@ export interface FreshetDB extends DBSchema {
   /** Logger records, one record per site and UTC day (since version 3); they sync as kind 'logger-day'. */
   loggerDays: { key: string; value: LoggerDayRecord; indexes: { 'by-site-day': [string, number]; 'by-rev': string } };
 }
-
-/** Stores that hold records with an envelope (all but meta). */
-export type RecordStore = 'sites' | 'readings' | 'gaugings' | 'ratings' | 'analyses' | 'loggerDays' | 'drafts' | 'conflicts';
 
 /** Stores every readings write holds: the readings, their series, and meta for the revision clock. */
 export type ReadingsStores = 'readings' | 'series' | 'meta';

@@ -3,7 +3,8 @@
 // transaction that writes the readings, so the series never disagrees with the readings store.
 import { MS_PER_DAY } from '../../core/time/index';
 import { READING_SOURCE_CODES, type ReadingRecord } from '../../core/records/index';
-import type { SeriesChunk } from './schema';
+import { unwrap } from 'idb';
+import type { ReadingsTx, SeriesChunk } from './schema';
 import { quietly } from './quietly';
 
 /** The UTC day index of a time (UTC ms): the chunk it belongs to. */
@@ -88,6 +89,13 @@ function chunkWithoutIds(chunk: SeriesChunk, ids: ReadonlySet<string>): SeriesCh
     source: Uint8Array.from(keep, (i) => chunk.source[i]),
     id: keep.map((i) => chunk.id[i]),
   };
+}
+
+/** Puts whole chunks (a bulk import's, from mergeIntoChunks) inside an open transaction that holds series. */
+export function putChunksInTx(tx: ReadingsTx, chunks: readonly SeriesChunk[]): void {
+  // The raw store: no promise per put in the import's hot path.
+  const series = unwrap(tx.objectStore('series'));
+  for (const c of chunks) series.put(c);
 }
 
 /**

@@ -1,35 +1,27 @@
 // Applying incoming records (an imported bundle file, or the bundles of a pull) in ONE transaction: the
 // record stores, the series of any reading, the conflicts kept for review, the revision clock and the
 // pull cursor are written together or not at all. The rules themselves are core/sync's.
-import type { IDBPTransaction, StoreNames } from 'idb';
+import type { IDBPTransaction } from 'idb';
 import {
   fromSyncRecord, maxRev, toSyncRecord, validateSyncRecord, RecordValidationError,
-  type ConflictRecord, type ReadingRecord, type SyncKind, type SyncRecord,
+  type ConflictRecord, type LoggerDayRecord, type ReadingRecord, type SyncKind, type SyncRecord,
 } from '../../core/records/index';
-import { isAhead, planMerge, recordKey, type Frontier, type MergePlan, type MergeSummary } from '../../core/sync/index';
+import { byRevision, isAhead, planMerge, recordKey, type Frontier, type MergePlan, type MergeSummary } from '../../core/sync/index';
 import { withDb } from './connection';
-import { now_ms, stampInTx } from './clock';
-import { afterWrite } from './records';
+import { now_ms, observeRevsInTx, stampInTx } from './clock';
+import { putLoggerDaysInTx } from './logger-days';
+import { afterWrite, putRecordsInTx, removeInTx, type PlainStore } from './records';
 import type { FreshetDB } from './schema';
-import { quietly } from './quietly';
 import { putReadingsInTx, withReadingsWrite } from './readings-write';
+import { STORE_OF_KIND, SYNCED_STORES, type StoreName } from './stores';
+import { putSyncInTx } from './sync-store';
 
-/** The store that keeps each kind of synced record. */
-export const STORE_OF_KIND = {
-  site: 'sites',
-  reading: 'readings',
-  gauging: 'gaugings',
-  rating: 'ratings',
-  analysis: 'analyses',
-  'logger-day': 'loggerDays',
-} as const satisfies Record<SyncKind, StoreNames<FreshetDB>>;
-
-/** The stores that hold synced records. */
-export const SYNCED_STORES = Object.values(STORE_OF_KIND);
-
-const SCOPE = [...SYNCED_STORES, 'series', 'conflicts', 'meta', 'sync'] as const;
-type MergeTx = IDBPTransaction<FreshetDB, (typeof SCOPE)[number][], 'readonly'>;
-type MergeWriteTx = IDBPTransaction<FreshetDB, (typeof SCOPE)[number][], 'readwrite'>;
+/** The stores a merge holds: every synced store (and series, written with readings), conflicts, meta, sync. */
+const SCOPE: StoreName[] = [...SYNCED_STORES, 'series', 'conflicts', 'meta', 'sync'];
+type MergeTx = IDBPTransaction<FreshetDB, StoreName[], 'readonly'>;
+type MergeWriteTx = IDBPTransaction<FreshetDB, StoreName[], 'readwrite'>;
+/** What the merge asks of the readings writer beyond its own stores (readings, series, meta). */
+const MERGE_ALSO = SCOPE.filter((s): s is Exclude<StoreName, 'readings' | 'series' | 'meta'> => s !== 'readings' && s !== 'series' && s !== 'meta');
 
 /** What a merge did (or would do): the counts for the screen and how many winners were dated ahead. */
 export interface IncomingResult {
@@ -60,7 +52,7 @@ async function readCurrent(tx: MergeTx | MergeWriteTx, records: readonly SyncRec
     const others = mine.filter((c) => (c.reason ?? 'concurrent') === 'concurrent').map((c) => c.losing);
     const all = [...(stored ? [toSyncRecord(r.kind, stored as never)] : []), ...others];
     if (all.length === 0) return;
-    const sorted = all.sort((a, b) => (a.rev < b.rev ? -1 : 1));
+    const sorted = all.sort(byRevision);
     current.frontiers.set(key, { winner: sorted[sorted.length - 1], others: sorted.slice(0, -1) });
   });
   return current;
@@ -96,7 +88,7 @@ export async function applyIncoming(records: readonly SyncRecord[], options: { c
   checkAll(records);
   const at = now_ms();
   // The one readings writer opens the transaction, so readings and their series are written its way.
-  const { plan, kinds } = await withReadingsWrite(['sites', 'gaugings', 'ratings', 'analyses', 'loggerDays', 'conflicts', 'sync'], async (rtx) => {
+  const { plan, kinds } = await withReadingsWrite(MERGE_ALSO, async (rtx) => {
     const tx = rtx as unknown as MergeWriteTx;
     {
       const current = await readCurrent(tx, records);
@@ -106,13 +98,8 @@ export async function applyIncoming(records: readonly SyncRecord[], options: { c
       // elsewhere must not drag every later local revision into the future).
       let highest: string | undefined;
       for (const r of records) if (!isAhead(r.rev, at)) highest = maxRev(highest, r.rev);
-      if (highest !== undefined) {
-        const meta = tx.objectStore('meta');
-        const last = await meta.get('lastRev');
-        const next = maxRev(typeof last === 'string' ? last : undefined, highest);
-        if (next !== last && next !== undefined) quietly(meta.put(next, 'lastRev'));
-      }
-      if (options.cursor !== undefined) quietly(tx.objectStore('sync').put(options.cursor, 'cursor'));
+      await observeRevsInTx(tx, highest);
+      if (options.cursor !== undefined) putSyncInTx(tx, 'cursor', options.cursor);
       return { plan, kinds };
     }
   });
@@ -123,27 +110,27 @@ export async function applyIncoming(records: readonly SyncRecord[], options: { c
 async function writePlan(tx: MergeWriteTx, plan: MergePlan, current: Current, at: number): Promise<Set<SyncKind | 'conflict'>> {
   const kinds = new Set<SyncKind | 'conflict'>();
   const newConflicts: Omit<ConflictRecord, 'id' | 'rev' | 'updated_ms'>[] = [];
-  const conflicts = tx.objectStore('conflicts');
   const readings: ReadingRecord[] = [];
+  const loggerDays: LoggerDayRecord[] = [];
   for (const [key, { before, after }] of plan.changes) {
     const kind = after.winner.kind;
     if (before?.winner.rev !== after.winner.rev) {
       const record = fromSyncRecord(after.winner);
       if (kind === 'reading') readings.push(record as ReadingRecord);
-      else quietly(tx.objectStore(STORE_OF_KIND[kind]).put(record as never));
+      else if (kind === 'logger-day') loggerDays.push(record as LoggerDayRecord);
+      else putRecordsInTx(tx, STORE_OF_KIND[kind] as PlainStore, [record as never]);
       kinds.add(kind);
     }
     const keep = new Set(after.others.map((o) => o.rev));
     const existing = (current.conflicts.get(key) ?? []).filter((c) => (c.reason ?? 'concurrent') === 'concurrent');
-    for (const c of existing) {
-      if (!keep.has(c.losing.rev)) quietly(conflicts.delete(c.id));
-      else if (c.winnerRev !== after.winner.rev) quietly(conflicts.put({ ...c, winnerRev: after.winner.rev }));
-    }
+    removeInTx(tx, 'conflicts', existing.filter((c) => !keep.has(c.losing.rev)).map((c) => c.id));
+    putRecordsInTx(tx, 'conflicts', existing.filter((c) => keep.has(c.losing.rev) && c.winnerRev !== after.winner.rev).map((c) => ({ ...c, winnerRev: after.winner.rev })));
     const had = new Set(existing.map((c) => c.losing.rev));
     for (const o of after.others) {
       if (!had.has(o.rev)) newConflicts.push({ kind, recordId: o.id, losing: o, winnerRev: after.winner.rev, found_ms: at, reason: 'concurrent' });
     }
   }
+  if (loggerDays.length > 0) putLoggerDaysInTx(tx, loggerDays);
   if (readings.length > 0) await putReadingsInTx(tx as unknown as Parameters<typeof putReadingsInTx>[0], readings);
   for (const flag of plan.ahead) {
     const losing = flag.displaced ?? flag.record;
@@ -151,7 +138,7 @@ async function writePlan(tx: MergeWriteTx, plan: MergePlan, current: Current, at
   }
   if (newConflicts.length > 0) {
     const rev = await stampInTx(tx, at);
-    for (const c of newConflicts) quietly(conflicts.put({ ...c, id: crypto.randomUUID(), rev, updated_ms: at }));
+    putRecordsInTx(tx, 'conflicts', newConflicts.map((c) => ({ ...c, id: crypto.randomUUID(), rev, updated_ms: at })));
     kinds.add('conflict');
   }
   return kinds;

@@ -8,6 +8,15 @@ export function getSyncValue<K extends SyncKey>(key: K): Promise<SyncValues[K] |
   return withDb(async (db) => (await db.get('sync', key)) as SyncValues[K] | undefined);
 }
 
+/** Puts a sync value inside an open transaction that holds the sync store (the merge's pull cursor, the outbox's marks). */
+export function putSyncInTx<K extends SyncKey>(
+  tx: { objectStore(name: 'sync'): { put(value: SyncValues[SyncKey], key: SyncKey): Promise<unknown> } },
+  key: K,
+  value: SyncValues[K],
+): Promise<unknown> {
+  return tx.objectStore('sync').put(value, key);
+}
+
 /** Stores a sync value; resolves once it is written. */
 export async function setSyncValue<K extends SyncKey>(key: K, value: SyncValues[K]): Promise<void> {
   await withDb(async (db) => {

@@ -2,6 +2,7 @@
 // cursor. Both cross origins with a bearer token (a preflighted CORS request, no cookies).
 import { parseBundle, readPushAnswer, retryAfter_ms, type Bundle, type PushOutcome } from '../../core';
 import { deviceId, type SyncSettings } from '../db';
+import { plainError } from '../plain-words';
 
 /** How long a request may take before it is given up and treated as a network failure, ms. */
 export const REQUEST_TIMEOUT_MS = 60_000;
@@ -73,7 +74,7 @@ export async function pullBundles(settings: SyncSettings, cursor: string | undef
     try {
       bundles.push(parseBundle(parsed.bundles[i]));
     } catch (e) {
-      return { kind: 'fix', message: `The office sent a bundle this phone cannot take (bundle ${i + 1}): ${(e as Error).message} Nothing from it was stored.` };
+      return { kind: 'fix', message: `The office sent a bundle this phone cannot take (bundle ${i + 1}): ${plainError(e, { fallback: 'its contents are not in the form this phone expects.' })} Nothing from it was stored.` };
     }
   }
   return { kind: 'bundles', bundles, cursor: parsed.cursor, more: parsed.more === true };

@@ -1,5 +1,5 @@
 // WaterML 2.0 exports: every document is validated against the OGC schemas by the offline kit
-// (../shared/standards/waterml2/validate, xmllint; WaterML 2.0 Part 1 OGC 10-126r4, Part 2 OGC 15-018r2),
+// (test/fixtures/waterml2, carried in the repository; xmllint; WaterML 2.0 Part 1 OGC 10-126r4, Part 2 OGC 15-018r2),
 // and read back with fast-xml-parser (a general-purpose XML parser, test-only oracle) to check the values.
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';

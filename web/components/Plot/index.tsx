@@ -5,6 +5,7 @@ import { useEffect, useRef, useState } from 'preact/hooks';
 import type { PlotEngine } from './engine';
 import type { PlotGeometry, PlotProps } from './types';
 import './style.css';
+import { plainError } from '../../plain-words';
 
 export type { PlotApi, PlotBand, PlotDrawView, PlotGeometry, PlotProps, PlotSeries, PlotXAxis } from './types';
 
@@ -30,7 +31,7 @@ export function Plot(props: PlotProps) {
     let live = true;
     loadEngine().then(
       (m) => live && setShape(m.shapeKey(latest.current)),
-      (e: unknown) => live && setFailed(e instanceof Error ? e.message : String(e)),
+      (e: unknown) => live && setFailed(plainError(e, { fallback: 'The plot could not be loaded. Reload the page and try again.' })),
     );
     return () => {
       live = false;

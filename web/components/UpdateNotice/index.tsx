@@ -1,10 +1,23 @@
-// The notice that a new version is ready. The new version takes over only when the user accepts.
-import { acceptUpdate, updateStatus } from '../../app/updates';
-import { useStore } from '../../store';
+// The notice that a new version is ready. The new version takes over only when the user accepts. The
+// shell (web/app/updates.ts) passes the state and what each button does; a component never imports it.
+
+/** Where an update stands, as the notice shows it. */
+export type UpdateNoticeState =
+  | { kind: 'current' }
+  | { kind: 'ready' }
+  | { kind: 'applying' }
+  | { kind: 'failed'; message: string }
+  | { kind: 'changed-elsewhere' };
+
+/** What the notice's buttons do: start the new version, put it off, acknowledge a failure. */
+export interface UpdateNoticeActions {
+  onAccept: () => void;
+  onLater: () => void;
+  onFailureSeen: () => void;
+}
 
 /** Shows the update state when there is something to say, and nothing otherwise. */
-export function UpdateNotice() {
-  const status = useStore(updateStatus);
+export function UpdateNotice({ status, onAccept, onLater, onFailureSeen }: { status: UpdateNoticeState } & UpdateNoticeActions) {
   switch (status.kind) {
     case 'current':
       return null;
@@ -12,8 +25,8 @@ export function UpdateNotice() {
       return (
         <div class="notice" role="status" data-testid="update-notice">
           <p>A new version of Freshet is ready. Your open form is saved before it starts.</p>
-          <button type="button" onClick={() => void acceptUpdate()}>Start new version</button>
-          <button type="button" onClick={() => updateStatus.set({ kind: 'current' })} aria-label="Later: keep working in this version">Later</button>
+          <button type="button" onClick={onAccept}>Start new version</button>
+          <button type="button" onClick={onLater} aria-label="Later: keep working in this version">Later</button>
         </div>
       );
     case 'applying':
@@ -22,7 +35,7 @@ export function UpdateNotice() {
       return (
         <div class="notice" role="alert">
           <p>{status.message}</p>
-          <button type="button" onClick={() => updateStatus.set({ kind: 'ready' })}>OK</button>
+          <button type="button" onClick={onFailureSeen}>OK</button>
         </div>
       );
     case 'changed-elsewhere':

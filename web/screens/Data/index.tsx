@@ -2,7 +2,7 @@
 // WaterML 2.0, by download or the phone's share sheet) and readings imported from CSV.
 import { useEffect, useState } from 'preact/hooks';
 import { listConflicts, listDrafts, listSites, storageState, type StorageState } from '../../db';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import { formatTime } from '../../format';
 import { href, type ScreenProps } from '../../router';
 import { CsvImportSection } from './csv-import-section';

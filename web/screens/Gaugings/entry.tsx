@@ -3,10 +3,10 @@
 // draft on every change and restored when the app reopens; saving shows the deviation from the rating.
 import { useEffect, useMemo, useReducer, useState } from 'preact/hooks';
 import {
-  GAUGING_GRADES, GAUGING_METHODS, MAX_SUBSECTION_SHARE, MIN_VERTICALS, RecordValidationError, toLocalInput,
+  GAUGING_GRADES, GAUGING_METHODS, MAX_SUBSECTION_SHARE, MIN_VERTICALS, toLocalInput,
   type GaugingMethod, type MeasurementGrade, type SiteRecord,
 } from '../../../core';
-import { ratingsAndGaugings, saveGauging, StorageError } from '../../db';
+import { ratingsAndGaugings, saveGauging } from '../../db';
 import { restorableDrafts, useKeptDraft } from '../../app/use-kept-draft';
 import { plainError } from '../../plain-words';
 import { Cautions } from '../../components/Cautions';
@@ -95,7 +95,7 @@ export function GaugingEntry({ site }: { site: SiteRecord }) {
       draft.markWritten(next);
       dispatch({ type: 'replace', form: next });
     } catch (err) {
-      setFailure(err instanceof RecordValidationError || err instanceof StorageError ? `Not saved: ${err.message}` : `Not saved: ${String(err)}`);
+      setFailure(`Not saved: ${plainError(err, { doing: 'save', units: u, timeZone: site.timeZone })}`);
     }
   }
 

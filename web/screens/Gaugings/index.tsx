@@ -2,7 +2,7 @@
 // in force at its time, whether it checks the rating within its grade, and the shift it implies.
 import type { SiteRecord } from '../../../core';
 import { deleteGauging, getSite, ratingsAndGaugings } from '../../db';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import { formatQuantity, formatTime } from '../../format';
 import { href, type ScreenProps } from '../../router';
 import { gaugingCheck } from './check';

@@ -5,7 +5,7 @@ import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { driftCorrections, loggerValueAt, type SiteRecord } from '../../../core';
 import { importLoggerRecord, listReadings, listSites, StorageError, type LoggerImportResult } from '../../db';
 import type { ScreenProps } from '../../router';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import { Field } from '../../components/Field';
 import { guessLoggerMapping } from '../../logger/guess-mapping';
 import { readInWorker, type WorkerRead } from '../../logger/parse-in-worker';
@@ -14,6 +14,7 @@ import { href } from '../../router';
 import { mappingOf, MappingStep, standardOffsetOf, type MappingDraft } from './mapping-step';
 import { ReviewStep, type CheckChoice } from './review-step';
 import './style.css';
+import { plainError } from '../../plain-words';
 
 const HEAD_BYTES = 64 * 1024;
 const HOUR_MS = 3_600_000;
@@ -80,7 +81,7 @@ function Importer({ sites, initialSiteId }: { sites: SiteRecord[]; initialSiteId
       setDraft({ base: guess.mapping, askDateOrder: guess.bothDateOrders, clock: '', standardOffset_min: standardOffsetOf(site.timeZone, new Date().getUTCFullYear()) });
       setPhase({ step: 'map', rows });
     } catch (err) {
-      setError(`The file could not be opened: ${(err as Error).message}`);
+      setError(`The file could not be opened: ${plainError(err, { fallback: 'it is not a text file of rows this import can read.' })}`);
     }
   }
 
@@ -99,7 +100,7 @@ function Importer({ sites, initialSiteId }: { sites: SiteRecord[]; initialSiteId
       setPhase({ step: 'review', rows, read, checks });
     } catch (err) {
       const stopped = err instanceof DOMException && err.name === 'AbortError';
-      setError(stopped ? 'Stopped: the file was not read and nothing was stored.' : (err as Error).message);
+      setError(stopped ? 'Stopped: the file was not read and nothing was stored.' : plainError(err, { fallback: 'The file could not be read.' }));
       setPhase({ step: 'map', rows });
     } finally {
       running.current = undefined;
@@ -122,7 +123,7 @@ function Importer({ sites, initialSiteId }: { sites: SiteRecord[]; initialSiteId
       );
       setPhase({ step: 'done', result });
     } catch (err) {
-      setError(err instanceof StorageError || err instanceof RangeError ? err.message : `Not stored: ${String(err)}`);
+      setError(err instanceof StorageError || err instanceof RangeError ? plainError(err, { doing: 'save', timeZone: site.timeZone }) : `Not stored: ${plainError(err, { doing: 'save' })}`);
       setPhase({ step: 'review', rows, read, checks });
     } finally {
       storing.current = undefined;

@@ -3,11 +3,12 @@
 // shown as they will be stored (stacked, so the stored time and stage fit a 360 px screen).
 import { useMemo } from 'preact/hooks';
 import {
-  displayUnit, LOGGER_LEVEL_UNITS, LOGGER_TIME_FORMATS, loggerReader, toDisplay, toIsoWithOffset, zoneOffset_min,
+  displayUnit, LOGGER_LEVEL_UNITS, LOGGER_TIME_FORMATS, loggerReader, toDisplay, toIsoWithOffset, utcOfCivil, zoneOffset_min,
   type LoggerClock, type LoggerLevelUnit, type LoggerMapping, type LoggerTimeFormat, type SiteRecord,
 } from '../../../core';
 import { Field } from '../../components/Field';
 import type { MappingWithoutClock } from '../../logger/guess-mapping';
+import { plainError } from '../../plain-words';
 
 /** The clock choices offered; '' until the user picks one. */
 export type ClockChoice = '' | 'utc' | 'standard' | 'zone' | 'in-stamp';
@@ -37,7 +38,7 @@ export function offsetLabel(offset_min: number): string {
 
 /** The site zone's standard offset (the smaller of its January and July offsets), minutes east. */
 export function standardOffsetOf(timeZone: string, year: number): number {
-  return Math.min(zoneOffset_min(Date.UTC(year, 0, 1), timeZone), zoneOffset_min(Date.UTC(year, 6, 1), timeZone));
+  return Math.min(zoneOffset_min(utcOfCivil(year, 1, 1), timeZone), zoneOffset_min(utcOfCivil(year, 7, 1), timeZone));
 }
 
 /** The full mapping, or undefined while the clock is not chosen. */
@@ -84,7 +85,7 @@ export function MappingStep({ site, rows, draft, onChange }: {
       for (const p of read.problems) byLine.set(p.line, { problem: p.message });
       return { byLine };
     } catch (err) {
-      return { error: (err as Error).message };
+      return { error: plainError(err) };
     }
   }, [rows, mapping && JSON.stringify(mapping), site.timeZone, u]);
 

@@ -2,7 +2,7 @@
 import { useState } from 'preact/hooks';
 import { ratingInForce, type SiteRecord } from '../../../core';
 import { deleteRating, ratingsAndGaugings, restoreRating } from '../../db';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import { formatTime } from '../../format';
 import { href } from '../../router';
 import { rangeText, segmentFormula } from './describe';

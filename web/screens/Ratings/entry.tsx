@@ -1,13 +1,14 @@
 // Entering a rating by hand: valid from (site's zone), segments, gauged range, note. While typing, the
 // discharge at a few stages and the continuity check at each breakpoint (a jump is shown, not refused).
 import { useMemo, useReducer, useState } from 'preact/hooks';
-import { dischargeAt, ratingContinuity, RecordValidationError, type SiteRecord } from '../../../core';
-import { saveRating, StorageError } from '../../db';
+import { dischargeAt, ratingContinuity, type SiteRecord } from '../../../core';
+import { saveRating } from '../../db';
 import { describedBy, Field } from '../../components/Field';
 import { formatQuantity } from '../../format';
 import { href, navigate } from '../../router';
 import { unitLabels } from './describe';
 import { blankRatingForm, blankSegment, parseRatingForm, previewStages, type FieldError, type RatingForm, type SegmentText } from './rating-form';
+import { plainError } from '../../plain-words';
 
 type Action =
   | { type: 'set'; field: 'validFromText' | 'rangeLowText' | 'rangeHighText' | 'note'; value: string }
@@ -82,7 +83,7 @@ export function RatingEntry({ site }: { site: SiteRecord }) {
       });
       navigate(href('sites', site.id, 'ratings', saved.id), true);
     } catch (err) {
-      setFailure(err instanceof RecordValidationError || err instanceof StorageError ? `Not saved: ${err.message}` : `Not saved: ${String(err)}`);
+      setFailure(`Not saved: ${plainError(err, { doing: 'save' })}`);
     } finally {
       setSaving(false);
     }

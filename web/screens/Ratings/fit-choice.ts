@@ -2,6 +2,7 @@
 // offset fitted or fixed, joined), and the core fit they lead to, or a refusal naming the field.
 import { fitSegments, fromDisplay, type GaugingRecord, type SegmentsFit, type UnitSystem } from '../../../core';
 import { parseDecimal } from '../../format';
+import { plainError } from '../../plain-words';
 import type { FieldError } from './rating-form';
 
 /** How many of the latest gaugings are ticked when the fit screen opens. */
@@ -70,14 +71,14 @@ export function runFit(gaugings: readonly GaugingRecord[], selected: ReadonlySet
     );
     return { ok: true, fit, used };
   } catch (err) {
-    if (err instanceof RangeError) return { ok: false, errors: [{ field: choices.segmentCount === 2 ? 'breakpoint' : 'gaugings', text: plainFitMessage(err.message) }] };
+    if (err instanceof RangeError) return { ok: false, errors: [{ field: choices.segmentCount === 2 ? 'breakpoint' : 'gaugings', text: plainFitMessage(err) }] };
     throw err;
   }
 }
 
-/** The core's refusal in words for the screen: internal function names dropped. */
-export function plainFitMessage(message: string): string {
-  return message.replace(/^fitSegments:\s*/, '').replace(/\bfitSegments\b|\bfitRating\b/g, 'the fit').replace(/^the fit needs/, 'The fit needs');
+/** The core's refusal of a fit in words for the screen (web/plain-words.ts, the one translator). */
+export function plainFitMessage(err: unknown): string {
+  return plainError(err, { fallback: 'These gaugings do not give a rating; check the ticked gaugings and the settings.' });
 }
 
 /** A fit warning in the screen's words: "the gauging at index 3" becomes "gauging 4 (counting from the oldest ticked)". */

@@ -4,13 +4,14 @@
 import { useMemo, useState } from 'preact/hooks';
 import { fromLocalInput, johnsonOffset, toDisplay, toLocalInput, type SiteRecord } from '../../../core';
 import { ratingsAndGaugings, saveRating } from '../../db';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import { Field } from '../../components/Field';
 import { formatQuantity, formatTime } from '../../format';
 import { href, navigate } from '../../router';
 import { rangeText, segmentFormula, unitLabels } from './describe';
 import { errorOf, NumberField } from './entry';
 import { DEFAULT_FIT_CHOICES, defaultSelection, plainFitWarning, runFit, type FitChoices } from './fit-choice';
+import { plainError } from '../../plain-words';
 
 /** The fit screen of one site. */
 export function FitRating({ site }: { site: SiteRecord }) {
@@ -65,7 +66,7 @@ function FitForm({ site, gaugings }: { site: SiteRecord; gaugings: Awaited<Retur
       });
       navigate(href('sites', site.id, 'ratings', saved.id), true);
     } catch (err) {
-      setFailure(`Not saved: ${err instanceof Error ? err.message : String(err)}`);
+      setFailure(`Not saved: ${plainError(err, { doing: 'save' })}`);
     }
   }
 

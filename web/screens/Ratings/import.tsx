@@ -8,7 +8,7 @@ import { formatQuantity, parseDecimal } from '../../format';
 import { href, navigate } from '../../router';
 import { segmentFormula, unitLabels } from './describe';
 import { NumberField } from './entry';
-import { plainFitMessage } from './fit-choice';
+import { plainError } from '../../plain-words';
 import { parseTableCsv, TableCsvError, type ParsedTable } from './table-csv';
 
 type Keep = 'fit1' | 'fit2' | 'table';
@@ -29,7 +29,7 @@ export function ImportTable({ site }: { site: SiteRecord }) {
     try {
       return { ok: true, t: parseTableCsv(text, u) };
     } catch (err) {
-      if (err instanceof TableCsvError) return { ok: false, error: err.message };
+      if (err instanceof TableCsvError) return { ok: false, error: plainError(err) };
       throw err;
     }
   }, [text, u]);
@@ -48,7 +48,7 @@ export function ImportTable({ site }: { site: SiteRecord }) {
       const fit = fitSegments(pts, bp === undefined ? {} : { breakpoint_m: fromDisplay('stage', bp, u), join: true });
       return { rating: { segments: fit.rating.segments }, se: fit.standardError_pct, warnings: fit.warnings.filter((w) => !/^(Lower segment: |Upper segment: )?Only \d+ gaugings/.test(w)) };
     } catch (err) {
-      return { field: keepAs === 'table' ? 'tableOffset' : keepAs === 'fit2' ? 'tableBreakpoint' : 'csv', error: plainFitMessage((err as Error).message).replace(/ratingFromTable/g, 'The table').replace(/offset_m/g, 'offset') };
+      return { field: keepAs === 'table' ? 'tableOffset' : keepAs === 'fit2' ? 'tableBreakpoint' : 'csv', error: plainError(err, { units: u, fallback: 'This table does not give a rating; check its stages, discharges and the offset.' }) };
     }
   }, [table, keepAs, breakpointText, offsetText, u, su]);
 
@@ -83,7 +83,7 @@ export function ImportTable({ site }: { site: SiteRecord }) {
       });
       navigate(href('sites', site.id, 'ratings', saved.id), true);
     } catch (err) {
-      setFailure(`Not saved: ${err instanceof Error ? err.message : String(err)}`);
+      setFailure(`Not saved: ${plainError(err, { doing: 'save' })}`);
     }
   }
 

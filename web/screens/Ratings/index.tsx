@@ -2,7 +2,7 @@
 // the ways to add one: by hand, fitted to gaugings, or from a table file. Sub-pages by route.
 import { ratingInForce, type RatingRecord, type SiteRecord } from '../../../core';
 import { getSite, ratingsAndGaugings } from '../../db';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import { formatTime } from '../../format';
 import { href, type ScreenProps } from '../../router';
 import { rangeText, segmentFormula } from './describe';

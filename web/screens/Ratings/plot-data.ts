@@ -1,7 +1,7 @@
 // What the rating plot shows, as plain arrays: the curve (gauged part solid, extrapolated parts dashed)
 // and the gaugings as points, on one ascending discharge axis (display units), stage up the side.
 // Arithmetic, or log–log with stage measured above the zero-flow stage. Pure: no DOM.
-import { checksRating, dischargeAt, stageAt, toDisplay, type GaugingRecord, type Rating, type UnitSystem } from '../../../core';
+import { dischargeAt, gaugingCheck, stageAt, toDisplay, type DatedRating, type GaugingRecord, type UnitSystem } from '../../../core';
 
 /** Arithmetic axes, or log–log of discharge against stage minus the offset. */
 export type PlotScale = 'arithmetic' | 'log';
@@ -14,7 +14,10 @@ export interface RatingPlotData {
   gaugings: number[];
   /** For each x index, the gauging drawn there (index into `points`), or −1. */
   gaugingAt: number[];
-  /** The gaugings shown, oldest first, with their plotted y, their number (1 = oldest) and whether they check the rating. */
+  /**
+   * The gaugings shown, oldest first, with their plotted y, their number (1 = oldest) and whether they check
+   * the rating: core's gaugingCheck, with the shift in force at each gauging's time (as the gauging list says).
+   */
   points: { gauging: GaugingRecord; x: number; y: number; label: number; checks: boolean }[];
   /** The gauged range of stage in plotted y units, if the rating has one. */
   band?: [number, number];
@@ -30,7 +33,7 @@ const SAMPLES = 160;
  * on log axes) from just above the zero-flow stage, or the lowest gauged or gauging stage, to 20 % past
  * the highest; gauging x values merged in, with the curve's stage there from stageAt so lines stay whole.
  */
-export function ratingPlotData(rating: Rating, gaugings: readonly GaugingRecord[], scale: PlotScale, units: UnitSystem): RatingPlotData {
+export function ratingPlotData(rating: DatedRating, gaugings: readonly GaugingRecord[], scale: PlotScale, units: UnitSystem): RatingPlotData {
   const e = rating.segments[0].offset_m;
   const range = rating.gaugedRange_m;
   const stages = gaugings.map((g) => g.meanStage_m);
@@ -56,8 +59,7 @@ export function ratingPlotData(rating: Rating, gaugings: readonly GaugingRecord[
     entries.push({ x: q(Q), stage_m: h, point: -1 });
   }
   const points = shown.map((g, i) => {
-    const rated = dischargeAt(rating, g.meanStage_m);
-    const checks = rated > 0 && checksRating((100 * (g.discharge_m3s - rated)) / rated, g.grade);
+    const checks = gaugingCheck(g, [rating])?.checks ?? false;
     entries.push({ x: q(g.discharge_m3s), stage_m: stageAt(rating, g.discharge_m3s), point: i });
     return { gauging: g, x: q(g.discharge_m3s), y: y(g.meanStage_m), label: i + 1, checks };
   });

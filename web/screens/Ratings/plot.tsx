@@ -2,7 +2,7 @@
 // log–log (stage above the zero-flow stage), the gauged range shaded, extrapolated parts dashed, the
 // gaugings as numbered points (a cross through those that do not check the rating), tap for figures.
 import { useCallback, useMemo, useRef, useState } from 'preact/hooks';
-import { displayUnit, type GaugingRecord, type Rating, type SiteRecord } from '../../../core';
+import { displayUnit, type GaugingRecord, type RatingRecord, type SiteRecord } from '../../../core';
 import { Plot, type PlotApi, type PlotDrawView, type PlotSeries } from '../../components/Plot';
 import { formatQuantity, formatTime } from '../../format';
 import { ratingPlotData, type PlotScale } from './plot-data';
@@ -11,7 +11,7 @@ import { ratingPlotData, type PlotScale } from './plot-data';
 const TAP_REACH_PX = 22;
 
 /** The rating plot of one rating with the site's gaugings. */
-export function RatingPlot({ site, rating, gaugings }: { site: SiteRecord; rating: Rating; gaugings: readonly GaugingRecord[] }) {
+export function RatingPlot({ site, rating, gaugings }: { site: SiteRecord; rating: RatingRecord; gaugings: readonly GaugingRecord[] }) {
   const u = site.displayUnits;
   const su = displayUnit('stage', u);
   const qu = displayUnit('discharge', u);

@@ -3,12 +3,13 @@
 import { useMemo, useState } from 'preact/hooks';
 import { dischargeAtTime, toLocalInput, type DatedShift, type RatingRecord, type SiteRecord } from '../../../core';
 import { latestReading, saveRating } from '../../db';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import { describedBy, Field } from '../../components/Field';
 import { formatQuantity, formatTime } from '../../format';
 import { errorOf } from './entry';
 import type { FieldError } from './rating-form';
 import { blankShiftForm, mergeShifts, parseShiftForm, type ShiftForm, type ShiftKind } from './shift-form';
+import { plainError } from '../../plain-words';
 
 function shiftWords(s: DatedShift, u: SiteRecord['displayUnits']): string {
   const pts = s.curve.points;
@@ -51,7 +52,7 @@ export function Shifts({ site, rating }: { site: SiteRecord; rating: RatingRecor
       setMessage('Shift saved: discharges of readings in its period follow it at once.');
       setForm(blankShiftForm(form.fromText));
     } catch (err) {
-      setMessage(`Not saved: ${err instanceof Error ? err.message : String(err)}`);
+      setMessage(`Not saved: ${plainError(err, { doing: 'save' })}`);
     }
   }
   async function remove(i: number) {

@@ -1,7 +1,7 @@
 // Rating tables as CSV: reading one the office hands out (stage, discharge). Writing one is core's
 // ratingTablesToCsv, the one writer for the export and the rating screen.
 // Pure: text in, rows out; every refusal names the line.
-import { M3S_PER_CFS, M_PER_FT, type TableRow, type UnitSystem } from '../../../core';
+import { CsvSyntaxError, M3S_PER_CFS, M_PER_FT, readCsvRecords, type CsvRecord, type TableRow, type UnitSystem } from '../../../core';
 import { parseDecimal } from '../../format';
 
 /** The rows of a table CSV in SI, and the units its header said (or the site's when it said none). */
@@ -19,29 +19,6 @@ export class TableCsvError extends RangeError {
     this.name = 'TableCsvError';
     this.line = line;
   }
-}
-
-/** Splits one CSV line (RFC 4180 quoting; a comma, semicolon or tab as the separator). */
-function cells(line: string, sep: string): string[] {
-  const out: string[] = [];
-  let cur = '';
-  let quoted = false;
-  for (let i = 0; i < line.length; i++) {
-    const ch = line[i];
-    if (quoted) {
-      if (ch === '"' && line[i + 1] === '"') {
-        cur += '"';
-        i++;
-      } else if (ch === '"') quoted = false;
-      else cur += ch;
-    } else if (ch === '"') quoted = true;
-    else if (ch === sep) {
-      out.push(cur);
-      cur = '';
-    } else cur += ch;
-  }
-  out.push(cur);
-  return out.map((c) => c.trim());
 }
 
 function stageUnitOf(header: string): 'm' | 'ft' | undefined {
@@ -66,13 +43,21 @@ function dischargeUnitOf(header: string): 'm³/s' | 'ft³/s' | undefined {
  * naming the line; needs at least 3 rows.
  */
 export function parseTableCsv(text: string, siteUnits: UnitSystem): ParsedTable {
-  const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/);
-  const firstIndex = lines.findIndex((l) => l.trim() !== '');
-  if (firstIndex < 0) throw new TableCsvError(1, 'the file is empty; a table needs a stage and a discharge on each line.');
-  const first = lines[firstIndex];
+  const body = text.replace(/^\uFEFF/, '');
+  const firstLine = body.split(/\r\n|\n|\r/).find((l) => l.trim() !== '');
+  if (firstLine === undefined) throw new TableCsvError(1, 'the file is empty; a table needs a stage and a discharge on each line.');
   // A semicolon file is the usual one where the decimal mark is a comma.
-  const sep = first.includes('\t') ? '\t' : first.includes(';') ? ';' : ',';
-  const head = cells(first, sep);
+  const sep = firstLine.includes('\t') ? '\t' : firstLine.includes(';') ? ';' : ',';
+  // Core's CSV reader (RFC 4180, the one reader of whole CSV texts); blank lines are skipped here.
+  let records: CsvRecord[];
+  try {
+    records = readCsvRecords(body, sep).map((r) => ({ line: r.line, fields: r.fields.map((f) => f.trim()) })).filter((r) => r.fields.some((f) => f !== ''));
+  } catch (e) {
+    if (e instanceof CsvSyntaxError) throw new TableCsvError(e.line, `${e.reason}.`);
+    throw e;
+  }
+  const head = records[0].fields;
+  const firstIndex = records[0].line - 1;
   const isHeader = head.some((c) => c !== '' && parseDecimal(c) === undefined);
   let stageCol = 0;
   let dischargeCol = 1;
@@ -91,9 +76,8 @@ export function parseTableCsv(text: string, siteUnits: UnitSystem): ParsedTable 
   }
   const rows: TableRow[] = [];
   const need = Math.max(stageCol, dischargeCol) + 1;
-  for (let i = isHeader ? firstIndex + 1 : firstIndex; i < lines.length; i++) {
-    if (lines[i].trim() === '') continue;
-    const c = cells(lines[i], sep);
+  for (const { line, fields: c } of isHeader ? records.slice(1) : records) {
+    const i = line - 1;
     if (c.length < need || c[stageCol] === '' || c[dischargeCol] === '') {
       throw new TableCsvError(i + 1, `a stage and a discharge are needed; this line has ${c.filter((x) => x !== '').length} value${c.filter((x) => x !== '').length === 1 ? '' : 's'}.`);
     }
@@ -111,6 +95,6 @@ export function parseTableCsv(text: string, siteUnits: UnitSystem): ParsedTable 
     }
     rows.push({ stage_m, discharge_m3s });
   }
-  if (rows.length < 3) throw new TableCsvError(lines.length, `a table needs at least 3 lines of stage and discharge; this one has ${rows.length}.`);
+  if (rows.length < 3) throw new TableCsvError(records.length > 0 ? records[records.length - 1].line : 1, `a table needs at least 3 lines of stage and discharge; this one has ${rows.length}.`);
   return { rows, stageUnit, dischargeUnit };
 }

@@ -1,7 +1,7 @@
 // Choosing the site to record at, nearest first once the phone's location is known.
 import { useMemo, useState } from 'preact/hooks';
 import { listSites } from '../../db';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import { href } from '../../router';
 import { locationProblem } from '../../plain-words';
 

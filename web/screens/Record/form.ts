@@ -4,6 +4,7 @@ import {
   type ReadingSource, type UnitSystem,
 } from '../../../core';
 import { parseDecimal, spaceInsideNumber } from '../../format';
+import { plainError } from '../../plain-words';
 
 /** What the technician has typed so far. `timeText` is empty while the time follows the clock. */
 export interface ReadingForm {
@@ -111,7 +112,7 @@ export function timeOf(form: ReadingForm, timeZone: string, now_ms: number, choi
     const picked = choice?.text === form.timeText && answer.candidates_ms.includes(choice.time_ms) ? choice.time_ms : undefined;
     return picked === undefined ? { ask: answer, followsClock: false } : { time_ms: picked, ask: answer, followsClock: false };
   } catch (err) {
-    return { error: err instanceof Error ? err.message : String(err) };
+    return { error: plainError(err, { timeZone }) };
   }
 }
 

@@ -9,7 +9,7 @@ import {
 import {
   deleteReading, getReading, getSite, listRatings, readingBefore, saveReading, StorageError,
 } from '../../db';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import { Cautions } from '../../components/Cautions';
 import { plainError } from '../../plain-words';
 import { LoggerCheck, loggerCheckValue } from '../../components/LoggerCheck';
@@ -216,7 +216,7 @@ function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?: strin
       await deleteReading(id);
       setSaved({ text: 'The reading just saved was taken back.' });
     } catch (err) {
-      setError({ text: err instanceof Error ? err.message : String(err) });
+      setError({ text: plainError(err, { doing: 'save', units: u, timeZone: site.timeZone }) });
     }
   }
 

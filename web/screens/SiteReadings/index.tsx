@@ -7,12 +7,13 @@ import {
 } from '../../db';
 import { listItems, type ListItem } from './list-items';
 import { LoggerDayRow, ReadingRow } from './rows';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import { Hydrograph } from '../../components/Hydrograph';
 import { formatQuantity, formatTime } from '../../format';
 import { href, type ScreenProps } from '../../router';
 import { displayUnit, hasDischarge, MS_PER_DAY, toDisplay } from '../../../core';
 import './style.css';
+import { plainError } from '../../plain-words';
 
 /** How many days the small hydrograph shows, ending at the latest reading. */
 const PLOT_DAYS = 7;
@@ -108,7 +109,7 @@ export default function SiteReadings({ params }: ScreenProps) {
       await deleteReading(r.reading.id);
       setUndo({ id: r.reading.id, text: `Reading of ${formatQuantity('stage', r.reading.stage_m, u)} at ${formatTime(r.reading.time_ms, site.timeZone)} deleted.` });
     } catch (err) {
-      setMessage(err instanceof Error ? err.message : String(err));
+      setMessage(plainError(err, { doing: 'save', units: u, timeZone: site.timeZone }));
     }
   }
 

@@ -2,11 +2,13 @@
 // a site's readings, to a new site, and (from the empty state) to the demo site.
 import { useState } from 'preact/hooks';
 import type { ScreenProps } from '../../router';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
+import { loadDemoSite } from '../../app/demo';
 import { listSites, readingsWithDischarge, latestReadings, type ReadingWithDischarge } from '../../db';
 import { formatAgo, formatQuantity } from '../../format';
 import { href, navigate } from '../../router';
 import { hasDischarge, type SiteRecord } from '../../../core';
+import { plainError } from '../../plain-words';
 
 interface SiteRow {
   site: SiteRecord;
@@ -44,7 +46,7 @@ function DemoButton({ label }: { label: string }) {
             const id = await loadDemoSite((p) => setProgress(`Writing readings: ${p.written.toLocaleString('en')} of ${p.total.toLocaleString('en')}`));
             navigate(href('sites', id));
           } catch (err) {
-            setError(err instanceof Error ? err.message : String(err));
+            setError(plainError(err, { doing: 'save' }));
           } finally {
             setProgress(undefined);
           }

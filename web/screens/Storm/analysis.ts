@@ -3,7 +3,6 @@
 import {
   seriesFromReadings as coreSeriesFromReadings,
   findEventPointsDetailed,
-  inflectionByNewtonPolynomial,
   separateBaseflowDetailed,
   summarizeEvent,
   type EventPoints,
@@ -13,6 +12,7 @@ import {
   type SeriesFromReadings as CoreSeriesFromReadings,
 } from '../../../core';
 import type { SeriesWithDischarge } from '../../db';
+import { plainError } from '../../plain-words';
 import { METHOD_KINDS, METHOD_LABELS } from '../../components/SeparationPicker';
 import { usesKeyPoints } from './method-choice';
 
@@ -58,21 +58,20 @@ export type Outcome<T> = { ok: true; value: T } | { ok: false; message: string }
  * A core message made fit for the screen: method kinds become their plain names; a message that still
  * holds a function or field name, or a raw millisecond time, is replaced by a plain sentence.
  */
-export function plainMessage(message: string): string {
-  let m = message;
-  for (const kind of METHOD_KINDS) m = m.split(kind).join(METHOD_LABELS[kind].toLowerCase());
-  if (/\b[a-z]+[A-Z]\w*|\w+_(ms|m3s|m|mm|days|km2)\b|\d{10,}/.test(m)) {
-    return 'These key points or settings do not give a storm the methods can work with. Move the points or reset them.';
-  }
-  return m;
+export function plainMessage(err: unknown): string {
+  return plainError(err, { terms: METHOD_TERMS, fallback: STORM_FALLBACK });
 }
+
+/** Method kinds in core messages, as the screen names them. */
+const METHOD_TERMS: Record<string, string> = Object.fromEntries(METHOD_KINDS.map((k) => [k, METHOD_LABELS[k].toLowerCase()]));
+const STORM_FALLBACK = 'These key points or settings do not give a storm the methods can work with. Move the points or reset them.';
 
 /** Runs fn, turning a RangeError into a plain message; other errors are bugs and propagate. */
 export function attempt<T>(fn: () => T): Outcome<T> {
   try {
     return { ok: true, value: fn() };
   } catch (e) {
-    if (e instanceof RangeError) return { ok: false, message: plainMessage(e.message) };
+    if (e instanceof RangeError) return { ok: false, message: plainMessage(e) };
     throw e;
   }
 }
@@ -80,11 +79,6 @@ export function attempt<T>(fn: () => T): Outcome<T> {
 /** Key points found by the core (UTC ms) with its notes. */
 export function findPoints(series: StormSeries, area_km2: number | undefined): Outcome<{ points: EventPoints; notes: string[] }> {
   return attempt(() => findEventPointsDetailed(series, area_km2 === undefined ? undefined : { area_km2 }));
-}
-
-/** The Newton-polynomial inflection (UTC ms) between the peak and the end of runoff, as a cross-check. */
-export function polynomialInflection(series: StormSeries, points: EventPoints): Outcome<number> {
-  return attempt(() => inflectionByNewtonPolynomial(series, points.peak_ms, points.runoffEnd_ms).inflection_ms);
 }
 
 /** Everything the results show: baseflow (m³/s per reading), the summary and the notes of every step. */

@@ -6,7 +6,7 @@ import { Cautions } from '../../components/Cautions';
 import { listSites } from '../../db';
 import { href, navigate } from '../../router';
 import { SiteStorm } from './site-storm';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import './style.css';
 
 /** The Storm runoff screen; '#/storm/<siteId>' opens it on that site. */

@@ -4,8 +4,9 @@ import type { AnalysisRecord, UnitSystem } from '../../../core';
 import { METHOD_LABELS, METHOD_KINDS, type MethodKind } from '../../components/SeparationPicker';
 import { deleteAnalysis, listAnalyses } from '../../db';
 import { formatQuantity, formatTime } from '../../format';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import { draftFromAnalysis, type StormDraft } from './draft';
+import { plainError } from '../../plain-words';
 
 function methodName(kind: string): string {
   return (METHOD_KINDS as readonly string[]).includes(kind) ? METHOD_LABELS[kind as MethodKind] : kind;
@@ -31,7 +32,7 @@ export function SavedAnalyses({ siteId, units, timeZone, openId, onOpen }: Saved
     try {
       await deleteAnalysis(a.id);
     } catch (e) {
-      setProblem(e instanceof Error ? e.message : String(e));
+      setProblem(plainError(e, { doing: 'save' }));
     } finally {
       setBusy(undefined);
     }

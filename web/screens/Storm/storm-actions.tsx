@@ -12,6 +12,7 @@ import { KEY_NAMES, KEY_ORDER } from './key-point-order';
 import { rangeText } from './results-strip';
 import type { RunoffRange } from './runoff-range';
 import { canvasToPng, composePicture, shareOrDownload } from './share';
+import { plainError } from '../../plain-words';
 
 function resultsOf(s: EventSummary): AnalysisResults {
   const { notes: _notes, ...figures } = s;
@@ -48,7 +49,7 @@ export function StormActions(p: StormActionsProps) {
     try {
       setStatus({ kind: 'done', text: await fn() });
     } catch (e) {
-      setStatus({ kind: 'failed', text: e instanceof Error ? e.message : String(e) });
+      setStatus({ kind: 'failed', text: plainError(e, { doing: 'save' }) });
     }
   };
 

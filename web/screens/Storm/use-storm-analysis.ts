@@ -4,7 +4,7 @@
 import { useMemo } from 'preact/hooks';
 import { displayUnit, fromDisplay, type SiteRecord } from '../../../core';
 import { listRatings, seriesWithDischarge } from '../../db';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import { parseDecimal } from '../../format';
 import { analyse, findPoints, seriesFromReadings } from './analysis';
 import type { StormDraft, TimeWindow } from './draft';

@@ -5,7 +5,7 @@
 import { useMemo } from 'preact/hooks';
 import { findStorms, type SeparationMethod, type SiteRecord } from '../../../core';
 import { latestStageTime, seriesWithDischarge } from '../../db';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import { seriesFromReadings } from './analysis';
 import { defaultMethodChoice, methodFor } from './method-choice';
 

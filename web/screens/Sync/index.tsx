@@ -7,7 +7,7 @@ import {
   settleConflict, syncedVersion, waitingCount, type IncomingResult, type SyncStatusRecord,
 } from '../../db';
 import type { ScreenProps } from '../../router';
-import { useRecords } from '../../db/use-records';
+import { useRecords } from '../../components/use-records';
 import { describedBy, Field } from '../../components/Field';
 import { formatAgo } from '../../format';
 import { useStore } from '../../store';
@@ -17,6 +17,7 @@ import { readBundleFile, shareOrDownload } from '../../sync/files';
 import { loadSettings, saveSettings } from '../../sync/settings';
 import { describeVersion, KIND_WORDS, reasonWords } from './describe';
 import './style.css';
+import { plainError } from '../../plain-words';
 
 function useSyncState() {
   const [tick, setTick] = useState(0);
@@ -91,7 +92,7 @@ function SettingsCard() {
       setSaved(true);
       void syncNow();
     } catch (err) {
-      setError((err as Error).message);
+      setError(plainError(err, { doing: 'save' }));
     }
   }
   return (
@@ -122,7 +123,7 @@ function ReviewCard({ sites }: { sites: Map<string, SiteRecord> }) {
   if (conflicts.state !== 'ready' || conflicts.value.length === 0) return null;
   const settle = (id: string, useKept: boolean) => {
     setError(undefined);
-    settleConflict(id, useKept).catch((e: unknown) => setError((e as Error).message));
+    settleConflict(id, useKept).catch((e: unknown) => setError(plainError(e, { doing: 'save' })));
   };
   return (
     <section class="card" aria-labelledby="review-heading">
@@ -187,7 +188,7 @@ function FilesCard() {
       const n = file.bundle.records.length;
       setStatus({ ok: true, text: `${n} record${n === 1 ? '' : 's'} ${out.kind === 'shared' ? 'shared as' : 'saved to'} ${out.name}.` });
     } catch (e) {
-      setStatus({ ok: false, text: (e as Error).message });
+      setStatus({ ok: false, text: plainError(e, { doing: 'save' }) });
     }
   }
 
@@ -202,7 +203,7 @@ function FilesCard() {
       const { summary } = await previewIncoming(bundle.records);
       setPending({ bundle, name: file.name, summary });
     } catch (e) {
-      setStatus({ ok: false, text: `${(e as Error).message} Nothing was changed.` });
+      setStatus({ ok: false, text: `${plainError(e, { fallback: 'This file is not a bundle this phone can take.' })} Nothing was changed.` });
     }
   }
 
@@ -214,7 +215,7 @@ function FilesCard() {
       setStatus({ ok: true, text: `Added from ${pending.name}: ${summaryWords(summary)}.` });
       setPending(undefined);
     } catch (e) {
-      setStatus({ ok: false, text: `${(e as Error).message} Nothing was changed.` });
+      setStatus({ ok: false, text: `${plainError(e, { fallback: 'This file is not a bundle this phone can take.' })} Nothing was changed.` });
     } finally {
       setBusy(false);
     }

@@ -1,10 +1,10 @@
 // Test-only page: exposes web/db to page.evaluate in the Chromium test and benchmark.
 import { unwrap } from 'idb';
 import type { ReadingBody, ReadingRecord } from '../../../../core/records/index';
-import {
-  getDb, getSite, importReadings, listReadings, READING_SOURCE_CODES, readingSeries, readingsWithDischarge, saveRating, saveSite,
-  seriesWithDischarge, storageState,
-} from '../../../../web/db/index';
+import { getSite, importReadings, listReadings, readingsWithDischarge, saveRating, saveSite, seriesWithDischarge, storageState } from '../../../../web/db/index';
+import { getDb } from '../../../../web/db/connection';
+import { READING_SOURCE_CODES } from '../../../../core/records/index';
+import { readingSeries } from '../../../../web/db/series-read';
 import { deleteFreshetDbForTests } from '../../../../web/db/testing';
 
 const T0 = Date.UTC(2026, 2, 1);

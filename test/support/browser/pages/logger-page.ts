@@ -2,7 +2,8 @@
 // floor it is measured against, a bare put loop of the same day records in one transaction.
 import { unwrap } from 'idb';
 import { driftCorrections, loggerDayId, splitLoggerDays, type LoggerMapping } from '../../../../core/index';
-import { getDb, importLoggerRecord, saveSite } from '../../../../web/db/index';
+import { importLoggerRecord, saveSite } from '../../../../web/db/index';
+import { getDb } from '../../../../web/db/connection';
 import { deleteFreshetDbForTests } from '../../../../web/db/testing';
 import { readInWorker } from '../../../../web/logger/parse-in-worker';
 

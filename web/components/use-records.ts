@@ -1,9 +1,9 @@
-// A Preact hook beside the db layer it reads: reads records for a screen and reads them again whenever records of the given kinds change (in this
+// A Preact hook for the screens (kept out of the storage folder, which holds no UI): reads records for a screen and reads them again whenever records of the given kinds change (in this
 // tab or another). A late answer for an older request is dropped, never shown over a newer one; the
 // previous answer stays shown while a new one is read.
 import { useEffect, useState } from 'preact/hooks';
 import type { RecordKind } from '../../core';
-import { onRecordsChanged } from './events';
+import { onRecordsChanged } from '../db';
 import { plainError } from '../plain-words';
 
 /** The state of a read: loading, the value, or an error in plain words (never a save message or an internal name). */

@@ -4,6 +4,7 @@ import { createServer, type IncomingMessage, type Server, type ServerResponse } 
 import { performance } from 'node:perf_hooks';
 import { BundleError, parseBundle, type Bundle } from '../../core/index';
 import type { Database } from './db';
+import { createPushGate, type PushGate } from './admission';
 import { authenticate, type AuthenticatedDevice } from './devices';
 import { IntegrityError, pullBundles, storeBundle, type StoreOptions } from './store';
 
@@ -20,6 +21,8 @@ export interface ReceiverOptions {
   /** Where the one line per request goes (default: stdout). */
   log?: (line: string) => void;
   store?: StoreOptions;
+  /** Most pushes held at once (reading, waiting for the database, storing); more are answered 503 (admission.ts). */
+  maxPushes?: number;
 }
 
 // A refusal answered as JSON: status, a short machine reason and a sentence for people.
@@ -41,6 +44,7 @@ export function createReceiver(options: ReceiverOptions): Server {
   const origins = new Set(options.origins);
   const maxBytes = options.maxBundleBytes ?? DEFAULT_MAX_BUNDLE_BYTES;
   const log = options.log ?? ((line: string) => process.stdout.write(line + '\n'));
+  const gate = createPushGate(options.maxPushes);
   return createServer((req, res) => {
     const t0 = performance.now();
     const fields: LogFields = {};
@@ -52,7 +56,7 @@ export function createReceiver(options: ReceiverOptions): Server {
           `records=${fields.records ?? '-'} outcome=${status}${fields.outcome ? ` ${fields.outcome}` : ''} ${ms}ms`,
       );
     };
-    handle(req, res, url, fields, { ...options, origins, maxBytes })
+    handle(req, res, url, fields, { ...options, origins, maxBytes, gate })
       .then((status) => finish(status))
       .catch((err: unknown) => {
         const refusal = err instanceof Refusal ? err : null;
@@ -71,7 +75,7 @@ export function createReceiver(options: ReceiverOptions): Server {
   });
 }
 
-type Ctx = Omit<ReceiverOptions, 'origins'> & { origins: Set<string>; maxBytes: number };
+type Ctx = Omit<ReceiverOptions, 'origins'> & { origins: Set<string>; maxBytes: number; gate: PushGate };
 
 async function handle(req: IncomingMessage, res: ServerResponse, url: URL, fields: LogFields, ctx: Ctx): Promise<number> {
   const origin = req.headers.origin;
@@ -106,6 +110,7 @@ async function handle(req: IncomingMessage, res: ServerResponse, url: URL, field
       res.setHeader('Connection', 'close');
       throw tooLarge(ctx.maxBytes);
     }
+    admit(res, ctx.gate);
   }
   // The body is read before the token is looked up: the lookup may wait behind other pushes, and a
   // request whose body sits unread that long would be cut off by the server's request timeout.
@@ -126,6 +131,17 @@ async function authorise(db: Database, header: string | undefined): Promise<Auth
   }[a.reason];
   // The protocol (core/exchange/README.md): 401 for no token or an unknown one, 403 for a revoked one.
   throw new Refusal(a.reason === 'revoked' ? 403 : 401, `token-${a.reason}`, message);
+}
+
+// Back-pressure (admission.ts): a push beyond the cap is refused before its body is read; an admitted
+// push keeps its place until its answer is sent or its connection closes.
+function admit(res: ServerResponse, gate: PushGate): void {
+  const leave = gate.tryEnter();
+  if (leave === null) {
+    res.setHeader('Retry-After', String(gate.retryAfterSeconds()));
+    throw new Refusal(503, 'busy', 'The office is busy storing bundles from other devices; nothing of this bundle was stored. Send it again after the wait given.');
+  }
+  res.once('close', leave);
 }
 
 function tooLarge(maxBytes: number): Refusal {

@@ -2,6 +2,7 @@
 import { parseArgs } from 'node:util';
 import { isIP } from 'node:net';
 import { createReceiver, DEFAULT_MAX_BUNDLE_BYTES } from './http';
+import { DEFAULT_MAX_PUSHES } from './admission';
 import { createDevice, listDevices, revokeDevice } from './devices';
 import { openOfficeDatabase, OfficeSetupError, type StoreLocation } from './open';
 import { importBundle } from './import-files';
@@ -23,8 +24,9 @@ export const OFFICE_HELP = `freshet office: the office end of sync. Phones push 
 version in PostgreSQL (embedded in a folder by default, or a server).
 
   freshet office --data <folder> [--port 8787] [--host 127.0.0.1] [--origin <app origin>]…
-                 [--database <postgres URL>] [--behind-proxy] [--max-bundle-mb 16]
+                 [--database <postgres URL>] [--behind-proxy] [--max-bundle-mb 16] [--max-pushes 64]
       Start the receiver. Pushes: POST /bundles; pulls: GET /bundles?after=<cursor>.
+      --max-pushes: pushes taken at once; more are told to come back later (503 with Retry-After).
       --origin may be given several times: the web addresses the app is served from (CORS).
       Listening anywhere but this machine (127.0.0.1, ::1, localhost) needs --behind-proxy:
       HTTPS is the reverse proxy's job.
@@ -49,6 +51,7 @@ const OPTIONS = {
   origin: { type: 'string', multiple: true },
   'behind-proxy': { type: 'boolean' },
   'max-bundle-mb': { type: 'string' },
+  'max-pushes': { type: 'string' },
   help: { type: 'boolean', short: 'h' },
 } as const;
 
@@ -178,7 +181,7 @@ export function isLoopback(host: string): boolean {
 }
 
 async function serve(
-  values: { port?: string; host?: string; origin?: string[]; 'behind-proxy'?: boolean; 'max-bundle-mb'?: string },
+  values: { port?: string; host?: string; origin?: string[]; 'behind-proxy'?: boolean; 'max-bundle-mb'?: string; 'max-pushes'?: string },
   where: StoreLocation,
   out: { write: (text: string) => void },
 ): Promise<number> {
@@ -202,8 +205,12 @@ async function serve(
   }
   const mb = Number(values['max-bundle-mb'] ?? DEFAULT_MAX_BUNDLE_BYTES / 1024 / 1024);
   if (!Number.isFinite(mb) || mb <= 0 || mb > 1024) throw new OfficeSetupError(`--max-bundle-mb needs a size in MiB from above 0 to 1024; got ${values['max-bundle-mb']}`);
+  const maxPushes = Number(values['max-pushes'] ?? DEFAULT_MAX_PUSHES);
+  if (!Number.isInteger(maxPushes) || maxPushes < 1 || maxPushes > 10_000) {
+    throw new OfficeSetupError(`--max-pushes needs a whole number of pushes from 1 to 10000; got ${values['max-pushes']}`);
+  }
   const db = await openOfficeDatabase(where);
-  const server = createReceiver({ db, origins, maxBundleBytes: Math.round(mb * 1024 * 1024) });
+  const server = createReceiver({ db, origins, maxBundleBytes: Math.round(mb * 1024 * 1024), maxPushes });
   await new Promise<void>((resolveListen, reject) => {
     server.once('error', reject);
     server.listen(port, host, () => resolveListen());

@@ -6,6 +6,7 @@ import { createServer, type IncomingMessage, type Server, type ServerResponse } 
 import { performance } from 'node:perf_hooks';
 import { BundleError, parseBundle, type Bundle } from '../../core/index';
 import type { Database } from './db';
+import { createPushGate, type PushGate } from './admission';
 import { authenticate, type AuthenticatedDevice } from './devices';
 import { IntegrityError, pullBundles, storeBundle, type StoreOptions } from './store';
 import { BODY_BUDGET_BUNDLES, BODY_READ_LIMIT_MS, BodyBudget, DEFAULT_MAX_CONNECTIONS, readBody, tooLarge } from './intake';
@@ -32,6 +33,8 @@ export interface ReceiverOptions {
   maxConnections?: number;
   /** Longest a push may take to send its body, ms (default BODY_READ_LIMIT_MS); then 408. */
   bodyReadLimit_ms?: number;
+  /** Most pushes held at once (reading, waiting for the database, storing); more are answered 503 (admission.ts). */
+  maxPushes?: number;
 }
 
 interface LogFields {
@@ -47,6 +50,7 @@ export function createReceiver(options: ReceiverOptions): Server {
   const maxBytes = options.maxBundleBytes ?? DEFAULT_MAX_BUNDLE_BYTES;
   const log = options.log ?? ((line: string) => process.stdout.write(line + '\n'));
   const budget = new BodyBudget(BODY_BUDGET_BUNDLES * maxBytes);
+  const gate = createPushGate(options.maxPushes);
   const server = createServer((req, res) => {
     const t0 = performance.now();
     const fields: LogFields = {};
@@ -58,7 +62,7 @@ export function createReceiver(options: ReceiverOptions): Server {
           `records=${fields.records ?? '-'} outcome=${status}${fields.outcome ? ` ${fields.outcome}` : ''} ${ms}ms`,
       );
     };
-    handle(req, res, url, fields, { ...options, origins, maxBytes, budget })
+    handle(req, res, url, fields, { ...options, origins, maxBytes, budget, gate })
       .then((status) => finish(status))
       .catch((err: unknown) => finish(answerFailure(res, err, fields)));
   });
@@ -88,7 +92,7 @@ function limitConnections(server: Server, max: number): void {
   server.requestTimeout = 180_000;
 }
 
-type Ctx = Omit<ReceiverOptions, 'origins'> & { origins: Set<string>; maxBytes: number; budget: BodyBudget };
+type Ctx = Omit<ReceiverOptions, 'origins'> & { origins: Set<string>; maxBytes: number; budget: BodyBudget; gate: PushGate };
 
 // CORS headers on every answer to a page, refusals included, so the app can read what is wrong. A page
 // from an origin not in the list is let through the preflight and then refused (403 'origin') with a
@@ -126,7 +130,11 @@ async function handle(req: IncomingMessage, res: ServerResponse, url: URL, field
   if (req.method === 'POST') {
     // Refuse an announced oversized body before reading it or touching the database.
     const announced = Number(req.headers['content-length'] ?? NaN);
-    if (Number.isFinite(announced) && announced > ctx.maxBytes) throw tooLarge(ctx.maxBytes);
+    if (Number.isFinite(announced) && announced > ctx.maxBytes) {
+      res.setHeader('Connection', 'close');
+      throw tooLarge(ctx.maxBytes);
+    }
+    admit(res, ctx.gate);
   }
   // The token is checked before a byte of the body is read: a stranger's post is never held in memory.
   const device = await authorise(ctx.db, req.headers.authorization);
@@ -146,6 +154,16 @@ async function authorise(db: Database, header: string | undefined): Promise<Auth
   }[a.reason];
   // The protocol (core/exchange/README.md): 401 for no token or an unknown one, 403 for a revoked one.
   throw new Refusal(a.reason === 'revoked' ? 403 : 401, `token-${a.reason}`, message);
+}
+
+// Back-pressure (admission.ts): a push beyond the cap is refused before its body is read; an admitted
+// push keeps its place until its answer is sent or its connection closes.
+function admit(res: ServerResponse, gate: PushGate): void {
+  const leave = gate.tryEnter();
+  if (leave === null) {
+    throw new Refusal(503, 'busy', 'The office is busy storing bundles from other devices; nothing of this bundle was stored. Send it again after the wait given.', undefined, gate.retryAfterSeconds());
+  }
+  res.once('close', leave);
 }
 
 async function push(

@@ -5,14 +5,14 @@
 // PostgreSQL releases that lock only after the commit is visible. So pushes draw numbers and commit one at
 // a time, in number order: whenever a reader's snapshot holds bundle N, every bundle below N has already
 // committed (or rolled back, leaving a gap no one will ever fill). A pull may then hand out the highest
-// number it sees as the cursor without skipping a bundle that commits later with a lower number. The
-// price is that pushes are stored one at a time; the expensive parts (reading the body, JSON, checksum,
-// record validation) happen before the transaction, and one bundle's inserts are a few statements, so
-// the lock is held for milliseconds (see `npm run bench` for the figures). PGlite is one connection and
-// runs transactions one at a time anyway; the lock makes a PostgreSQL server behave the same.
-import type { Bundle, SyncRecord } from '../../core/index';
+// number it sees as the cursor without skipping a bundle that commits later with a lower number. This holds
+// across processes too: several receivers on one server share the lock, so one cursor order serves every
+// pull from any of them. The price is that pushes are stored one at a time; the expensive parts (reading
+// the body, JSON, checksum, record validation) happen before the transaction, and a bundle is one
+// set-based statement, so the lock is held for milliseconds (see `npm run bench` for the figures). PGlite
+// is one connection and runs transactions one at a time anyway, so it takes no lock.
+import type { Bundle } from '../../core/index';
 import type { Database, Queryable } from './db';
-import { winningRecord } from './merge';
 
 /** Advisory lock key held by each push from drawing its number to its commit ("frsh-bnd"). */
 const PUSH_LOCK = 0x66726e64;
@@ -41,14 +41,6 @@ interface Clash {
   rev: string;
 }
 
-interface HeldRow {
-  kind: string;
-  id: string;
-  rev: string;
-  deleted: boolean;
-  body: SyncRecord['body'];
-}
-
 /**
  * Stores a parsed bundle pushed by device `deviceNo` in one transaction: the bundle, every record version
  * it brings (a version the office already has with the same body is not doubled) and the current version
@@ -62,59 +54,22 @@ export async function storeBundle(
 ): Promise<StoreOutcome> {
   const document = JSON.stringify(bundle);
   return db.transaction(async (tx) => {
-    await tx.query('select pg_advisory_xact_lock($1)', [PUSH_LOCK]);
-    const had = await tx.query<{ seq: string; checksum: string }>(
-      'select seq::text as seq, checksum from office_bundles where id = $1',
-      [bundle.id],
-    );
-    if (had.length > 0) {
-      if (had[0].checksum !== bundle.checksum) {
+    // The lock is its own statement: a statement's snapshot is taken when it starts, so everything read
+    // below must come after the lock is held (it then sees every push committed before this one). PGlite
+    // is one connection that runs one transaction at a time: there the lock would only cost a statement.
+    if (db.engine === 'postgres') await tx.query('select pg_advisory_xact_lock($1)', [PUSH_LOCK]);
+    const [written] = await tx.query<{
+      had_seq: string | null; had_checksum: string | null; seq: string | null; inserted: string; clashes: Clash[] | null;
+    }>(INGEST_SQL, [document, bundle.id, deviceNo, bundle.device, bundle.created, bundle.checksum, bundle.records.length]);
+    if (written.had_seq !== null) {
+      if (written.had_checksum !== bundle.checksum) {
         throw new IntegrityError(
           'bundle-id-reused',
           `The office already has a different bundle with id ${bundle.id}; a bundle id must never be reused for other records.`,
         );
       }
-      return { status: 'had', seq: Number(had[0].seq) };
+      return { status: 'had', seq: Number(written.had_seq) };
     }
-    // One statement does the rest of the writing (fewer round trips: each costs more than the work on a
-    // busy machine): the bundle with its number, every version not already held, the device's last push,
-    // any clash with a stored revision, and the current versions of the records the bundle touches. A
-    // clash throws below and rolls the whole transaction back, so nothing of the bundle stays.
-    // jsonb equality compares values, not key order or spacing, so a re-sent identical record passes.
-    // No row locks are needed on current_records: PUSH_LOCK already keeps other pushes out.
-    const [written] = await tx.query<{ seq: string; inserted: string; clashes: Clash[] | null; held: HeldRow[] | null }>(
-      `with x as materialized (
-         select r.kind, r.id, r.rev, coalesce(r.deleted, false) as deleted, r.body
-           from jsonb_to_recordset($1::text::jsonb -> 'records') as r(kind text, id uuid, rev text, deleted boolean, body jsonb)),
-       b as (
-         insert into office_bundles (seq, id, device_no, bundle_device, created, checksum, record_count, document)
-         values (nextval('office_bundle_seq'), $2, $3, $4, $5, $6, $7, $1::text)
-         returning seq),
-       clash as (
-         select v.kind, v.id::text as id, v.rev from x
-           join record_versions v on v.kind = x.kind and v.id = x.id and v.rev = x.rev
-          where v.body <> x.body or v.deleted <> x.deleted
-          limit 5),
-       ins as (
-         insert into record_versions (kind, id, rev, deleted, body, device, bundle_id, received_at, seq)
-         select x.kind, x.id, x.rev, x.deleted, x.body, $4, $2, now(), (select seq from b) from x
-         on conflict (kind, id, rev) do nothing
-         returning 1),
-       dev as (
-         update office_devices set last_push_at = now(), last_bundle_id = $2, app_device_id = $4
-          where device_no = $3 returning 1),
-       held as (
-         select c.kind, c.id::text as id, c.rev, c.deleted, c.body from current_records c
-          where (c.kind, c.id) in (select kind, id from x))
-       select (select seq from b)::text as seq,
-              (select count(*) from ins)::text as inserted,
-              (select json_agg(clash) from clash) as clashes,
-              (select json_agg(held) from held) as held,
-              (select count(*) from dev) as dev`,
-      // The document is sent once: the rows are read out of it by the database (large parameters are
-      // the slow part of a query on PGlite).
-      [document, bundle.id, deviceNo, bundle.device, bundle.created, bundle.checksum, bundle.records.length],
-    );
     const clashes = written.clashes ?? [];
     if (clashes.length > 0) {
       const c = clashes[0];
@@ -124,44 +79,71 @@ export async function storeBundle(
           (clashes.length > 1 ? ` (${clashes.length - 1} more like it in this bundle)` : ''),
       );
     }
-    const seq = written.seq;
-    await updateCurrent(tx, bundle.records, written.held ?? [], seq);
     if (options.beforeCommit) await options.beforeCommit(tx);
-    return { status: 'stored', seq: Number(seq), newVersions: Number(written.inserted) };
+    return { status: 'stored', seq: Number(written.seq), newVersions: Number(written.inserted) };
   });
 }
 
-// The current version of each record the bundle touches, chosen by core's merge rule between what the
-// office holds (`held`) and every version in the bundle; only winners that differ from the held one are written.
-async function updateCurrent(tx: Queryable, records: readonly SyncRecord[], held: readonly HeldRow[], seq: string): Promise<void> {
-  const best = new Map<string, SyncRecord>();
-  for (const h of held) {
-    const rec = { kind: h.kind, id: h.id, rev: h.rev, body: h.body, ...(h.deleted ? { deleted: true } : {}) } as SyncRecord;
-    best.set(`${h.kind}/${h.id}`, rec);
-  }
-  const changed = new Map<string, SyncRecord>();
-  for (const r of records) {
-    const key = `${r.kind}/${r.id}`;
-    const before = best.get(key);
-    const winner = before === undefined ? r : winningRecord(before, r);
-    if (winner !== before) {
-      best.set(key, winner);
-      changed.set(key, winner);
-    }
-  }
-  if (changed.size === 0) return;
-  // Winners are versions already in record_versions (this bundle's were inserted above): name them by key.
-  const keys = [...changed.values()].map((r) => ({ kind: r.kind, id: r.id, rev: r.rev }));
-  await tx.query(
-    `insert into current_records (kind, id, rev, deleted, body, seq)
-     select v.kind, v.id, v.rev, v.deleted, v.body, $2
-       from jsonb_to_recordset($1::jsonb) as k(kind text, id uuid, rev text)
-       join record_versions v on v.kind = k.kind and v.id = k.id and v.rev = k.rev
-     on conflict (kind, id) do update
-       set rev = excluded.rev, deleted = excluded.deleted, body = excluded.body, seq = excluded.seq`,
-    [JSON.stringify(keys), seq],
-  );
-}
+// The whole bundle in one set-based statement (one round trip; on a busy machine each costs more than the
+// work): $1 the bundle document, $2 its id, $3 the device number, $4 the bundle's device, $5 created,
+// $6 checksum, $7 record count.
+//  - had: the bundle id already stored; then nothing is written and the caller compares checksums.
+//  - x: the bundle's records, read out of the document by the database (the document is sent once; large
+//    parameters are the slow part of a query on PGlite).
+//  - ins: every version not already held (append-only, unique on kind, id, rev).
+//  - clash: among the versions `ins` skipped as already held, one whose stored body differs; the caller
+//    throws and the transaction rolls back. Only skipped versions are looked up (usually none). jsonb
+//    equality compares values, not key order or spacing, so a re-sent identical record passes.
+//  - cur: the merge decision, as one upsert. It is core/sync's `decide` winner rule for one record: the
+//    higher revision wins and the same revision is the same record. Revisions are fixed-width ASCII made to
+//    sort as strings (core/records/hlc.ts), so they are compared byte by byte (collation "C"), never by the
+//    database's language collation. Within the bundle the highest revision of each record is taken first
+//    (an upsert may touch a row once per statement).
+// Every lookup is by primary key, so the cost per bundle does not grow with the database. Every CTE sees
+// the snapshot from before the statement, so `clash` never sees this bundle's own versions. No row locks are
+// needed: PUSH_LOCK keeps other pushes out until this one commits.
+const INGEST_SQL = `
+with had as (select seq, checksum from office_bundles where id = $2),
+x as materialized (
+  select r.kind, r.id, r.rev, coalesce(r.deleted, false) as deleted, r.body
+    from jsonb_to_recordset($1::text::jsonb -> 'records') as r(kind text, id uuid, rev text, deleted boolean, body jsonb)
+   where not exists (select 1 from had)),
+b as (
+  insert into office_bundles (seq, id, device_no, bundle_device, created, checksum, record_count, document)
+  select nextval('office_bundle_seq'), $2, $3, $4, $5, $6, $7, $1::text
+   where not exists (select 1 from had)
+  returning seq),
+ins as (
+  insert into record_versions (kind, id, rev, deleted, body, device, bundle_id, received_at, seq)
+  select x.kind, x.id, x.rev, x.deleted, x.body, $4, $2, now(), b.seq from x cross join b
+  on conflict (kind, id, rev) do nothing
+  returning kind, id, rev),
+clash as (
+  select v.kind, v.id::text as id, v.rev
+    from (select kind, id, rev from x except all select kind, id, rev from ins) held
+    join record_versions v using (kind, id, rev)
+    join x using (kind, id, rev)
+   where v.body <> x.body or v.deleted <> x.deleted
+   limit 5),
+cur as (
+  insert into current_records (kind, id, rev, deleted, body, seq)
+  select distinct on (x.kind, x.id) x.kind, x.id, x.rev, x.deleted, x.body, b.seq from x cross join b
+   order by x.kind, x.id, x.rev collate "C" desc
+  on conflict (kind, id) do update
+    set rev = excluded.rev, deleted = excluded.deleted, body = excluded.body, seq = excluded.seq
+    where excluded.rev collate "C" > current_records.rev collate "C"
+  returning 1),
+dev as (
+  update office_devices set last_push_at = now(), last_bundle_id = $2, app_device_id = $4
+   where device_no = $3 and exists (select 1 from b)
+  returning 1)
+select (select seq from had)::text as had_seq,
+       (select checksum from had) as had_checksum,
+       (select seq from b)::text as seq,
+       (select count(*) from ins)::text as inserted,
+       (select json_agg(clash) from clash) as clashes,
+       (select count(*) from cur) as cur,
+       (select count(*) from dev) as dev`;
 
 /** One page of a pull: the bundle documents (JSON text, in cursor order), the next cursor, and whether more wait. */
 export interface PullPage {

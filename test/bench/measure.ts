@@ -23,3 +23,29 @@ export function medianMs(fn: () => unknown, runs = 15, warmup = 3): number {
 export function sig3(x: number): number {
   return Number(x.toPrecision(3));
 }
+
+/** One benchmark figure with its floor measured in the same run: value, floor, value / floor and the target. */
+export interface Figure {
+  /** Stable name of the figure. */
+  name: string;
+  value: number;
+  unit: string;
+  /** The same kind of work done the plainest way, measured in the same run (same unit). */
+  floor: number;
+  /** What the floor is, in a few words. */
+  floor_is: string;
+  /** The target as text, e.g. "ratio <= 2" or "value < 5 ms". */
+  target: string;
+  [extra: string]: unknown;
+}
+
+/** Prints a figure as one JSON line: name, value, unit, floor, what the floor is, ratio (value / floor), target, extras. */
+export function figure(f: Figure): void {
+  const { name, value, unit, floor, floor_is, target, ...extra } = f;
+  emit({ name, value: sig3(value), unit, floor: sig3(floor), floor_is, ratio: sig3(value / floor), target, ...extra });
+}
+
+/** Prints a line naming a figure that was not measured in this run, and why. */
+export function skipped(name: string, reason: string): void {
+  emit({ name, skipped: reason });
+}

@@ -1,7 +1,7 @@
 // The bundle: the one unit of exchange between phones and the office, by file and by HTTP. A JSON
 // document with its own id, the device, the creation time, the records ({ kind, id, rev, deleted?, body })
 // and a SHA-256 checksum of the records. The format is described for other implementers in README.md here.
-import { isUuid, validateSyncRecord, RecordValidationError, type SyncRecord } from '../records/index';
+import { isUuid, jsonTextProblem, textProblem, textProblemWords, validateSyncRecord, RecordValidationError, type SyncRecord } from '../records/index';
 import { sha256Hex, utf8Bytes } from './sha256';
 
 /** The `format` field every bundle carries. */
@@ -93,7 +93,7 @@ export function parseBundle(x: unknown): Bundle {
     throw new BundleError('version', `The bundle was made by a newer version of Freshet (bundle version ${o.version}; this one reads up to ${BUNDLE_VERSION}). Update the app, then try again.`);
   }
   if (!isUuid(o.id)) throw new BundleError('shape', `The bundle's id must be a lower-case UUID; got ${describe(o.id)}.`);
-  if (typeof o.device !== 'string' || o.device.trim() === '' || o.device.length > 200) {
+  if (typeof o.device !== 'string' || o.device.trim() === '' || o.device.length > 200 || textProblem(o.device)) {
     throw new BundleError('shape', `The bundle must name the device that made it; got ${describe(o.device)}.`);
   }
   if (typeof o.created !== 'string' || !RFC3339.test(o.created) || Number.isNaN(Date.parse(o.created))) {
@@ -108,6 +108,11 @@ export function parseBundle(x: unknown): Bundle {
   }
   const seen = new Map<string, string>();
   o.records.forEach((r, i) => {
+    // The text rule (core/records/text.ts) over every string of the record, field names included.
+    const bad = jsonTextProblem(r);
+    if (bad) {
+      throw new BundleError('record', `Record ${i + 1} of the bundle holds text that cannot be stored: ${textProblemWords(bad.problem)} in ${bad.path || 'the record'}.`, i);
+    }
     try {
       validateSyncRecord(r);
     } catch (e) {

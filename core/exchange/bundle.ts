@@ -108,17 +108,8 @@ export function parseBundle(x: unknown): Bundle {
   }
   const seen = new Map<string, string>();
   o.records.forEach((r, i) => {
-    // The text rule (core/records/text.ts) over every string of the record, field names included.
-    const bad = jsonTextProblem(r);
-    if (bad) {
-      throw new BundleError('record', `Record ${i + 1} of the bundle holds text that cannot be stored: ${textProblemWords(bad.problem)} in ${bad.path || 'the record'}.`, i);
-    }
-    try {
-      validateSyncRecord(r);
-    } catch (e) {
-      const why = e instanceof RecordValidationError || e instanceof RangeError ? e.message : String(e);
-      throw new BundleError('record', `Record ${i + 1} of the bundle is not valid: ${why}.`, i);
-    }
+    const problem = bundleRecordProblem(r);
+    if (problem) throw new BundleError('record', `Record ${i + 1} of the bundle ${problem}.`, i);
     const key = `${r.kind}\u0000${r.id}\u0000${r.rev}`;
     const body = JSON.stringify(r);
     const before = seen.get(key);
@@ -128,6 +119,31 @@ export function parseBundle(x: unknown): Bundle {
     seen.set(key, body);
   });
   return o as unknown as Bundle;
+}
+
+/**
+ * Why one record cannot travel in a bundle, as the end of a sentence ("is not valid: …", "holds text that
+ * cannot be stored: …"), or undefined when it can: the text rule (core/records/text.ts) over every string,
+ * field names included, then core's validators. parseBundle and the phone's outbox both use it.
+ */
+export function bundleRecordProblem(r: unknown): string | undefined {
+  const bad = jsonTextProblem(r);
+  if (bad) return `holds text that cannot be stored: ${textProblemWords(bad.problem)} in ${fieldWords(bad.path)}`;
+  try {
+    validateSyncRecord(r);
+  } catch (e) {
+    const why = e instanceof RecordValidationError || e instanceof RangeError ? e.message : String(e);
+    return `is not valid: ${why}`;
+  }
+  return undefined;
+}
+
+/** A record path such as "body.checks[0].readingId" in words: "the reading id". */
+function fieldWords(path: string): string {
+  const last = path.replace(/ \(a field name\)$/, '').replace(/\[\d+\]/g, '').split('.').pop() ?? '';
+  if (last === '' || last === 'body') return 'the record';
+  const words = last.replace(/_[a-z0-9]+$/, '').replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase();
+  return `${path.endsWith('(a field name)') ? 'a field name under ' : ''}the ${words}`;
 }
 
 function describe(x: unknown): string {

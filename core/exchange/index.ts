@@ -4,7 +4,8 @@ export { readingsToCsv, type ReadingCsvOptions, type ReadingExportRow } from './
 export { gaugingsToCsv, type SiteCsvOptions } from './gaugings-csv';
 export { ratingSegmentsToCsv, ratingTablesToCsv, RATING_TABLE_HEADROOM_M } from './ratings-csv';
 export { stormToCsv, type SeparatedStorm } from './storm-csv';
-export { BUNDLE_FORMAT, BUNDLE_VERSION, BundleError, bundleChecksum, makeBundle, parseBundle, type Bundle, type BundleErrorReason, type BundleInput } from './bundle';
+export { DEFAULT_BUNDLE_BYTES, MIN_BUNDLE_BYTES, MAX_BUNDLE_BYTES_HEADER, bundleBudget, recordsThatFit, statedLimit_bytes, utf8Length, type BundleLimits } from './bundle-size';
+export { BUNDLE_FORMAT, BUNDLE_VERSION, BundleError, bundleChecksum, bundleRecordProblem, makeBundle, parseBundle, type Bundle, type BundleErrorReason, type BundleInput } from './bundle';
 export { sha256Hex, utf8Bytes } from './sha256';
 export { escapeXml, gmlId } from './xml-write';
 export { watermlTimeseries, WATERML_QUALITY, type TimeseriesDocumentInput } from './waterml-timeseries';

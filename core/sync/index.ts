@@ -5,3 +5,4 @@ export { decide, type Decision, type DecideOptions } from './decide';
 export { frontierOf, mergeIntoFrontier, recordKey, type Frontier } from './frontier';
 export { readPushAnswer, retryAfter_ms, retryDelay_ms, RETRY_FIRST_MS, RETRY_MAX_MS, type PushAnswer, type PushOutcome } from './answer';
 export { applyPlan, planMerge, type AheadFlag, type FrontierChange, type MergePlan, type MergeSummary } from './plan';
+export { readRefusal, type PushRefusal } from './refusal';

@@ -33,6 +33,9 @@ export { applyIncoming, previewIncoming, STORE_OF_KIND, syncedVersion, type Inco
 export {
   acknowledge, exportBundle, markExported, markOf, MAX_BUNDLE_RECORDS, nextOutgoing, noteAttempt, waitingCount, type ExportFile,
 } from './outbox';
+export { bundleBytes } from './outbox';
+export { dropSetAside, listSetAside, noteStatedLimit, refusedAsTooLarge, searchRefused, setAsideRefused, type SetAsideView } from './outbox-refusals';
+export type { OutboxLimits, SetAsideEntry } from './outbox-state';
 export { getSyncValue, setSyncValue, updateSyncStatus } from './sync-store';
 export { onSyncChanged } from './sync-events';
 export type { OutboxEntry, SyncKey, SyncProblem, SyncSettings, SyncStatusRecord, SyncValues } from './schema';

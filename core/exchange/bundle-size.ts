@@ -4,8 +4,8 @@
 
 /** The budget when the receiver states no limit, bytes of bundle JSON (UTF-8): 4 MiB, a quarter of the receiver's default 16 MiB. */
 export const DEFAULT_BUNDLE_BYTES = 4 * 1024 * 1024;
-/** The smallest budget a refusal as too large can bring the phone down to, bytes (64 KiB). */
-export const MIN_BUNDLE_BYTES = 64 * 1024;
+/** The smallest budget a refusal as too large can bring the phone down to, bytes (1 KiB; a larger record then travels alone). */
+export const MIN_BUNDLE_BYTES = 1024;
 /** The answer header in which a receiver states the largest bundle it takes, in bytes (decimal digits). */
 export const MAX_BUNDLE_BYTES_HEADER = 'Freshet-Max-Bundle-Bytes';
 
@@ -37,12 +37,12 @@ export interface BundleLimits {
   lowered_bytes?: number;
 }
 
-/** The byte budget of the next bundle: 4 MiB, at most ¾ of the stated limit and at most a lowered budget, never under 64 KiB. */
+/** The byte budget of the next bundle: 4 MiB, at most ¾ of the stated limit, at most a lowered budget (itself never under 1 KiB). */
 export function bundleBudget(limits: BundleLimits): number {
   let budget = DEFAULT_BUNDLE_BYTES;
   if (limits.stated_bytes !== undefined) budget = Math.min(budget, Math.floor((limits.stated_bytes * 3) / 4));
-  if (limits.lowered_bytes !== undefined) budget = Math.min(budget, limits.lowered_bytes);
-  return Math.max(MIN_BUNDLE_BYTES, budget);
+  if (limits.lowered_bytes !== undefined) budget = Math.min(budget, Math.max(MIN_BUNDLE_BYTES, limits.lowered_bytes));
+  return budget;
 }
 
 /**

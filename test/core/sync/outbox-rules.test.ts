@@ -52,12 +52,14 @@ describe('packing records by bytes', () => {
     expect(recordsThatFit([], 300, 1000, 500)).toBe(0);
   });
 
-  it('keeps the budget at 4 MiB, ¾ of a stated limit, a lowered budget, and never under 64 KiB', () => {
+  it('keeps the budget at 4 MiB, ¾ of a stated limit, a lowered budget, and a lowered one never under 1 KiB', () => {
     expect(bundleBudget({})).toBe(DEFAULT_BUNDLE_BYTES);
     expect(bundleBudget({ stated_bytes: 16 * 1024 * 1024 })).toBe(DEFAULT_BUNDLE_BYTES);
     expect(bundleBudget({ stated_bytes: 1024 * 1024 })).toBe(786_432);
     expect(bundleBudget({ lowered_bytes: 200_000 })).toBe(200_000);
     expect(bundleBudget({ lowered_bytes: 10 })).toBe(MIN_BUNDLE_BYTES);
+    expect(MIN_BUNDLE_BYTES).toBe(1024);
+    expect(bundleBudget({ stated_bytes: 4096, lowered_bytes: 100_000 })).toBe(3072);
   });
 
   it('reads the stated limit header as whole bytes from 1 KiB, ignoring anything else', () => {

@@ -15,6 +15,7 @@ import { syncNow, syncRunning } from '../../sync/engine';
 import { readBundleFile, shareOrDownload } from '../../sync/files';
 import { loadSettings, saveSettings } from '../../sync/settings';
 import { describeVersion, KIND_WORDS, reasonWords } from './describe';
+import { SetAsideCard } from './SetAside';
 import './style.css';
 
 function useSyncState() {
@@ -257,6 +258,7 @@ export default function Sync(_props: ScreenProps) {
       <div class="sync-grid">
         <div>
           <StatusCard />
+          {sites.state === 'ready' && <SetAsideCard sites={sites.value} />}
           {sites.state === 'ready' && <ReviewCard sites={sites.value} />}
         </div>
         <div>

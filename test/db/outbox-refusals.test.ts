@@ -5,7 +5,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { DEFAULT_BUNDLE_BYTES, parseBundle, type Bundle } from '../../core/index';
 import {
-  acknowledge, deleteReading, dropSetAside, getDb, getReading, getSyncValue, listSetAside, nextOutgoing, noteStatedLimit, saveReading, saveSite,
+  acknowledge, deleteReading, exportBundle, dropSetAside, getDb, getReading, getSyncValue, listSetAside, nextOutgoing, noteStatedLimit, saveReading, saveSite,
   setAsideRefused, waitingCount,
 } from '../../web/db/index';
 import { importLoggerRecord } from '../../web/db/logger-days';
@@ -137,6 +137,10 @@ describe('set aside', () => {
     const db = await getDb();
     const old = (await getReading(readings[1].id))!;
     await db.put('readings', { ...old, note: 'logger export \u0000\u0000 junk' });
+    // A bundle file of every record leaves it out (and says how many), so the file itself is never refused.
+    const file = await exportBundle(false);
+    expect(file.leftOut).toBe(1);
+    expect(parseBundle(JSON.parse(JSON.stringify(file.bundle))).records).toHaveLength(3);
     const e = await nextOutgoing();
     expect(e!.bundle.records.map((r) => r.id)).not.toContain(readings[1].id);
     const [v] = await listSetAside();

@@ -219,6 +219,8 @@ export interface ExportFile {
   bundle: Bundle;
   /** Mark of the last record of this device in it; pass to markExported after the file was saved. */
   through?: string;
+  /** Records left out because a bundle cannot carry them (core's bundleRecordProblem): no file is refused for one record. */
+  leftOut: number;
 }
 
 /**
@@ -247,7 +249,8 @@ export function exportBundle(changesOnly: boolean): Promise<ExportFile> {
       const all = await Promise.all(kinds.map((k) => tx.objectStore(STORE_OF_KIND[k]).getAll()));
       records = kinds.flatMap((k, i) => all[i].map((r) => toSyncRecord(k, r as never))).filter((r) => !isDemo(r));
     }
-    return { bundle: makeBundle({ id: crypto.randomUUID(), device, created_ms: at, records }), through };
+    const carried = records.filter((r) => bundleRecordProblem(r) === undefined);
+    return { bundle: makeBundle({ id: crypto.randomUUID(), device, created_ms: at, records: carried }), through, leftOut: records.length - carried.length };
   });
 }
 

@@ -181,7 +181,8 @@ function FilesCard() {
       }
       if (changesOnly) await markExported(file.through);
       const n = file.bundle.records.length;
-      setStatus({ ok: true, text: `${n} record${n === 1 ? '' : 's'} ${out.kind === 'shared' ? 'shared as' : 'saved to'} ${out.name}.` });
+      const left = file.leftOut === 0 ? '' : ` ${file.leftOut} record${file.leftOut === 1 ? ' was' : 's were'} left out: ${file.leftOut === 1 ? 'it holds' : 'they hold'} text or values a bundle cannot carry (fix them in their forms).`;
+      setStatus({ ok: true, text: `${n} record${n === 1 ? '' : 's'} ${out.kind === 'shared' ? 'shared as' : 'saved to'} ${out.name}.${left}` });
     } catch (e) {
       setStatus({ ok: false, text: (e as Error).message });
     }

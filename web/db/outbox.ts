@@ -147,13 +147,17 @@ export async function nextOutgoing(): Promise<OutboxEntry | undefined> {
     const records = chosen.slice(0, n);
     const bundle = records.length ? makeBundle({ id, device, created_ms: at, records: records.map((w) => w.record) }) : undefined;
     const entry = bundle && ({ id, bundle, through: records[records.length - 1].mark, created_ms: at, attempts: 0, nextAttempt_ms: at } satisfies OutboxEntry);
-    return { entry, setAside: refused.length ? withSetAside(aside, refused) : undefined };
+    return { entry, refused };
   });
-  if (!made || (!made.entry && !made.setAside)) return undefined;
+  if (!made || (!made.entry && made.refused.length === 0)) return undefined;
   const entry = await withDb(async (db) => {
     const tx = db.transaction(['outbox', 'sync'], 'readwrite');
     const outbox = tx.objectStore('outbox');
-    if (made.setAside) void tx.objectStore('sync').put(made.setAside, 'setAside');
+    if (made.refused.length) {
+      // Merged with the list as it is now (another tab may have added to it since it was read).
+      const sync = tx.objectStore('sync');
+      void sync.get('setAside').then((now) => sync.put(withSetAside(now as SetAsideEntry[] | undefined, made.refused), 'setAside'));
+    }
     const other = await outbox.index('by-created').openCursor();
     if (other || !made.entry) {
       await tx.done;

@@ -103,6 +103,8 @@ function needs(expected: string, quantity: DisplayQuantity | undefined, units: U
     if (atMost !== undefined) return `must be a number of at most ${show(atMost)}${u}`;
     return 'must be a number';
   }
+  const bad = /^text without .* pairs; it holds (.+)$/.exec(expected);
+  if (bad) return `holds ${bad[1]}; remove it (tab and new line are fine)`;
   const text = /(non-empty )?text of at most (\d+) characters/.exec(expected);
   if (text) return `${text[1] ? 'is needed and ' : ''}must be at most ${Number(text[2]).toLocaleString('en')} characters long`;
   if (/^one of /.test(expected)) return 'must be one of the choices offered';

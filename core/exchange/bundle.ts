@@ -1,7 +1,7 @@
 // The bundle: the one unit of exchange between phones and the office, by file and by HTTP. A JSON
 // document with its own id, the device, the creation time, the records ({ kind, id, rev, deleted?, body })
 // and a SHA-256 checksum of the records. The format is described for other implementers in README.md here.
-import { isUuid, validateSyncRecord, RecordValidationError, type SyncRecord } from '../records/index';
+import { isUuid, jsonTextProblem, textProblem, textProblemWords, validateSyncRecord, RecordValidationError, type SyncRecord } from '../records/index';
 import { MAX_BUNDLE_DEPTH, nestedDeeperThan } from './nesting';
 import { sha256Hex, utf8Bytes } from './sha256';
 
@@ -94,7 +94,7 @@ export function parseBundle(x: unknown): Bundle {
     throw new BundleError('version', `The bundle was made by a newer version of Freshet (bundle version ${o.version}; this one reads up to ${BUNDLE_VERSION}). Update the app, then try again.`);
   }
   if (!isUuid(o.id)) throw new BundleError('shape', `The bundle's id must be a lower-case UUID; got ${describe(o.id)}.`);
-  if (typeof o.device !== 'string' || o.device.trim() === '' || o.device.length > 200) {
+  if (typeof o.device !== 'string' || o.device.trim() === '' || o.device.length > 200 || textProblem(o.device)) {
     throw new BundleError('shape', `The bundle must name the device that made it; got ${describe(o.device)}.`);
   }
   if (typeof o.created !== 'string' || !RFC3339.test(o.created) || Number.isNaN(Date.parse(o.created))) {
@@ -110,12 +110,8 @@ export function parseBundle(x: unknown): Bundle {
   }
   const seen = new Map<string, string>();
   o.records.forEach((r, i) => {
-    try {
-      validateSyncRecord(r);
-    } catch (e) {
-      const why = e instanceof RecordValidationError || e instanceof RangeError ? e.message : String(e);
-      throw new BundleError('record', `Record ${i + 1} of the bundle is not valid: ${why}.`, i);
-    }
+    const problem = bundleRecordProblem(r);
+    if (problem) throw new BundleError('record', `Record ${i + 1} of the bundle ${problem}.`, i);
     const key = `${r.kind}\u0000${r.id}\u0000${r.rev}`;
     const body = JSON.stringify(r);
     const before = seen.get(key);
@@ -135,6 +131,31 @@ function checkNesting(bundle: object, records: unknown[]): void {
   const why = `objects and lists may nest at most ${MAX_BUNDLE_DEPTH} levels deep, counting the bundle itself`;
   if (i < 0) throw new BundleError('shape', `The bundle is nested too deeply: ${why}.`);
   throw new BundleError('record', `Record ${i + 1} of the bundle is nested too deeply: ${why}.`, i);
+}
+
+/**
+ * Why one record cannot travel in a bundle, as the end of a sentence ("is not valid: …", "holds text that
+ * cannot be stored: …"), or undefined when it can: the text rule (core/records/text.ts) over every string,
+ * field names included, then core's validators. parseBundle and the phone's outbox both use it.
+ */
+export function bundleRecordProblem(r: unknown): string | undefined {
+  const bad = jsonTextProblem(r);
+  if (bad) return `holds text that cannot be stored: ${textProblemWords(bad.problem)} in ${fieldWords(bad.path)}`;
+  try {
+    validateSyncRecord(r);
+  } catch (e) {
+    const why = e instanceof RecordValidationError || e instanceof RangeError ? e.message : String(e);
+    return `is not valid: ${why}`;
+  }
+  return undefined;
+}
+
+/** A record path such as "body.checks[0].readingId" in words: "the reading id". */
+function fieldWords(path: string): string {
+  const last = path.replace(/ \(a field name\)$/, '').replace(/\[\d+\]/g, '').split('.').pop() ?? '';
+  if (last === '' || last === 'body') return 'the record';
+  const words = last.replace(/_[a-z0-9]+$/, '').replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase();
+  return `${path.endsWith('(a field name)') ? 'a field name under ' : ''}the ${words}`;
 }
 
 function describe(x: unknown): string {

@@ -1,6 +1,6 @@
 // A corrected logger record cut into per-site, per-UTC-day records of compact arrays (the 'logger-day'
 // sync kind), merged with a day already stored without doubling a time, and read back as stages.
-import type { LoggerDayBody, LoggerDayCheck } from '../records/index';
+import { cleanText, type LoggerDayBody, type LoggerDayCheck } from '../records/index';
 
 /** Milliseconds in a UTC day: the width of one logger-day record. */
 export const LOGGER_DAY_MS = 86_400_000;
@@ -51,6 +51,9 @@ export function splitLoggerDays(record: CorrectedLogger, context: LoggerDayConte
     throw new RangeError(`splitLoggerDays needs one raw value and one correction per time; got ${n} times, ${record.raw_m.length} values, ${record.correction_m.length} corrections`);
   }
   const out: LoggerDayBody[] = [];
+  // A file's name comes from the phone's file system, not from the user's typing: cleaned under the text
+  // rule (core/records/text.ts) rather than refused, so an odd name never stops an import.
+  const fileName = cleanText(context.fileName).text;
   let current: LoggerDayBody | undefined;
   let prev = -Infinity;
   for (let i = 0; i < n; i++) {
@@ -61,7 +64,7 @@ export function splitLoggerDays(record: CorrectedLogger, context: LoggerDayConte
     if (!current || current.day !== day) {
       current = {
         siteId: context.siteId, day, offset_ms: [], raw_m: [], correction_m: [],
-        checks: context.checks.map((c) => ({ ...c })), fileName: context.fileName, note: context.note ?? '',
+        checks: context.checks.map((c) => ({ ...c })), fileName, note: context.note ?? '',
       };
       out.push(current);
     }

@@ -3,6 +3,7 @@
 // the caller's parser; this module only interprets cells under a mapping.
 import { checkLoggerMapping, metresPerLevelUnit, type LoggerMapping } from './logger-mapping';
 import { stampParser, zoneResolver } from './logger-stamps';
+import { textProblem, textProblemWords } from '../records/text';
 
 /** A problem with one line of the file; column counts from 1 when the problem is in one cell. */
 export interface LoggerProblem {
@@ -108,6 +109,15 @@ export function loggerReader(mapping: LoggerMapping, options: { problemLimit?: n
     if (cells.length < needCells) {
       problem(line, `Line ${line} has ${cells.length} field${cells.length === 1 ? '' : 's'}; the mapping needs ${needCells} (time in field ${mapping.timeColumn}, level in field ${mapping.levelColumn}).`);
       return;
+    }
+    // The text rule (core/records/text.ts): a NUL or other control character in a cell the mapping reads
+    // is named as such (it would not show in a quoted cell), with its line and field.
+    for (const column of [mapping.dateColumn, mapping.timeColumn, mapping.levelColumn]) {
+      const bad = column === undefined ? undefined : textProblem(cells[column - 1]);
+      if (bad) {
+        problem(line, `Line ${line}, field ${column} holds ${textProblemWords(bad)}; a logger file holds only times and numbers there.`, column);
+        return;
+      }
     }
     const timeText = mapping.dateColumn === undefined
       ? cells[mapping.timeColumn - 1]

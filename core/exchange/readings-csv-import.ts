@@ -3,7 +3,7 @@
 // problem is reported with its line; one bad line means nothing is imported.
 import { M_PER_FT } from '../units';
 import { daysInMonth, utcOfCivil } from '../time/index';
-import { MAX_ABS_STAGE_M, MAX_TEXT_LENGTH, READING_QUALITIES, validateReadingBody, type ReadingBody, type ReadingQuality, type ReadingSource } from '../records/index';
+import { MAX_ABS_STAGE_M, MAX_TEXT_LENGTH, READING_QUALITIES, textProblem, textProblemWords, validateReadingBody, type ReadingBody, type ReadingQuality, type ReadingSource } from '../records/index';
 import { readCsvRecords, CsvSyntaxError } from './csv-read';
 import { looksLikeFormula } from './csv-write';
 
@@ -129,6 +129,13 @@ export function parseReadingsCsv(text: string, mapping: ReadingCsvMapping, siteI
     }
     let note = mapping.note === undefined ? '' : r.fields[mapping.note];
     if (note.startsWith("'") && looksLikeFormula(note.slice(1))) note = note.slice(1);
+    // The text rule (core/records/text.ts): a Windows line end inside a quoted note becomes a new line.
+    note = note.replace(/\r\n/g, '\n');
+    const bad = textProblem(note);
+    if (bad) {
+      fail(`the note holds ${textProblemWords(bad)}, which Freshet does not store; remove it from the file and import again`);
+      continue;
+    }
     if (note.length > MAX_TEXT_LENGTH) {
       fail(`the note is ${note.length} characters long; at most ${MAX_TEXT_LENGTH} are kept`);
       continue;

@@ -1,4 +1,5 @@
 // Field checks shared by the record validators. Each throws a RecordValidationError naming the field.
+import { textProblem, textProblemWords, TEXT_RULE_WORDS } from './text';
 import { RecordValidationError } from './validation-error';
 
 /** Latest time a record may carry, UTC ms: the ECMAScript Date limit (year 275760). */
@@ -14,11 +15,13 @@ export function requireObject(kind: string, field: string, x: unknown): Record<s
   return x as Record<string, unknown>;
 }
 
-/** Checks a text field: a string of at most `max` characters, at least 1 when `nonEmpty`. */
+/** Checks a text field: a string of at most `max` characters (at least 1 when `nonEmpty`) under the text rule (text.ts). */
 export function requireText(kind: string, field: string, x: unknown, nonEmpty = false, max = MAX_TEXT_LENGTH): string {
   if (typeof x !== 'string' || x.length > max || (nonEmpty && x.trim().length === 0)) {
     throw new RecordValidationError(kind, field, `${nonEmpty ? 'a non-empty' : 'a'} text of at most ${max} characters`, x);
   }
+  const problem = textProblem(x);
+  if (problem) throw new RecordValidationError(kind, field, `${TEXT_RULE_WORDS}; it holds ${textProblemWords(problem)}`, x);
   return x;
 }
 

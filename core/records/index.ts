@@ -1,6 +1,7 @@
 // Records shared by storage and sync: plain-data types, revisions (hybrid logical clock), validation.
 export * from './types';
 export { RecordValidationError, describeValue } from './validation-error';
+export { textProblem, textProblemWords, textRefusal, cleanText, jsonTextProblem, TEXT_RULE_WORDS, type TextProblem } from './text';
 export { MAX_TIME_MS, MAX_TEXT_LENGTH, isUuid } from './checks';
 export { formatRev, parseRev, isRev, nextRev, compareRev, maxRev, REV_MAX_WALL_MS, REV_MAX_COUNTER, type RevParts } from './hlc';
 export { validateEnvelope, validateSeen, MAX_SEEN } from './envelope';

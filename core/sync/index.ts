@@ -6,3 +6,4 @@ export { frontierOf, mergeIntoFrontier, recordKey, type Frontier } from './front
 export { readPushAnswer, retryAfter_ms, retryDelay_ms, RETRY_FIRST_MS, RETRY_MAX_MS, type PushAnswer, type PushOutcome } from './answer';
 export { byRevision, winningVersion, winsOver } from './winner';
 export { applyPlan, planMerge, type AheadFlag, type FrontierChange, type MergePlan, type MergeSummary } from './plan';
+export { readRefusal, type PushRefusal } from './refusal';

@@ -27,6 +27,15 @@ describe('cutting a record into days', () => {
     for (const d of days) validateLoggerDayBody(d);
   });
 
+  // The text rule (core/records/text.ts): U+0000 and U+001F are Unicode controls (Cc), U+DC00 alone is half a
+  // UTF-16 pair (Unicode §3.9 D91; RFC 8259 §8.2). A file name is cleaned, so the import goes on.
+  it('cleans a file name holding NUL, U+001F or a lone surrogate, and the day then passes validation', () => {
+    const [day] = splitLoggerDays({ time_ms: [T0 + Q], raw_m: [0.5], correction_m: [0] }, { ...context, fileName: 'kc\u000001\u001f \udc00.csv' });
+    expect(day.fileName).toBe('kc01 \ufffd.csv');
+    validateLoggerDayBody(day);
+    expect(() => validateLoggerDayBody({ ...day, note: 'bad \u0000' })).toThrow(RecordValidationError);
+  });
+
   it('refuses times out of order or mismatched lengths', () => {
     expect(() => splitLoggerDays({ time_ms: [T0 + Q, T0], raw_m: [1, 1], correction_m: [0, 0] }, context)).toThrow(/ascending/);
     expect(() => splitLoggerDays({ time_ms: [T0], raw_m: [1, 1], correction_m: [0] }, context)).toThrow(/one raw value/);

@@ -81,6 +81,19 @@ describe('hostile files: every problem names its line', () => {
     expect(rows.problems[1].message).toMatch(/^Line 5, field 2 is empty/);
   });
 
+  // The text rule (core/records/text.ts): U+0000 NUL and U+001F are Unicode controls (Cc); U+D800 alone is
+  // half a UTF-16 pair (Unicode §3.9 D91; RFC 8259 §8.2).
+  it('names a NUL, a control character or a lone surrogate in a cell it reads, with line and field', async () => {
+    const text = 'a\nb\n2026-03-01 00:00,0.5\n2026-03-01 00:15,0.5\u0000\n2026-03-01 00:30\u001f,0.6\n2026-03-01 00:45,\ud800\n2026-03-01 01:00,0.7\n';
+    const { series, rows } = await readLoggerFile(text, base);
+    expect(series.time_ms.length).toBe(2);
+    expect(rows.problems.map((p) => p.message)).toEqual([
+      'Line 4, field 2 holds a NUL character (U+0000) at character 4; a logger file holds only times and numbers there.',
+      'Line 5, field 1 holds a control character (U+001F) at character 17; a logger file holds only times and numbers there.',
+      'Line 6, field 2 holds half of a character pair with its other half missing (U+D800) at character 1; a logger file holds only times and numbers there.',
+    ]);
+  });
+
   it('refuses a decimal comma where a point is expected, rather than misreading it', async () => {
     const { rows } = await readLoggerFile('a\nb\n2026-03-01 00:00;0,5\n', { ...base, delimiter: ';' });
     expect(rows.problems[0]).toMatchObject({ line: 3, column: 2 });

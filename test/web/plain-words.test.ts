@@ -34,6 +34,9 @@ describe('plainError over real messages', () => {
     ['a site area of 1e23 km²', thrown(() => validateSiteBody({ ...site, area_km2: 1e23 })), 'The catchment area must be a number above 0 and at most 10,000,000 km².'],
     ['a jump limit of 0', thrown(() => validateSiteBody({ ...site, jumpLimit_m: 0 })), /^The jump limit must be a number/],
     ['a datum elevation of 20 km', thrown(() => validateSiteBody({ ...site, datum: { description: '', elevation_m: 20_000 } })), /^The datum elevation must be a number from −/],
+    // The text rule (core/records/text.ts): U+0000 is NUL, a Unicode control (Cc).
+    ['a NUL in a note', thrown(() => validateReadingBody({ ...reading, note: 'logger export \u0000 junk' })), 'The note holds a NUL character (U+0000) at character 15; remove it (tab and new line are fine).'],
+    ['a lone U+D800 in a site name', thrown(() => validateSiteBody({ ...site, name: 'Pellow \ud800' })), 'The site name holds half of a character pair with its other half missing (U+D800) at character 8; remove it (tab and new line are fine).'],
     ['an unknown zone', thrown(() => validateSiteBody({ ...site, timeZone: 'Mars/Olympus' })), 'The time zone must be a time zone from the list.'],
     ['the issue\'s time_ms message', new RecordValidationError('reading', 'time_ms', 'a whole number of UTC epoch milliseconds from 0 to 8.64e15', -1), 'The time must be a date and time from 1970 onwards; check the year.'],
     ['key points out of order', thrown(() => separateBaseflow(series, { kind: 'straight-line' }, { points: { riseStart_ms: series.time_ms[2], peak_ms: series.time_ms[1], inflection_ms: series.time_ms[3], runoffEnd_ms: series.time_ms[4] } })), /^The baseflow separation needs key points in order .* the peak \(2026-01-01 01:00\) is before the rise start \(2026-01-01 02:00\)\.$/],

@@ -1,13 +1,16 @@
 // The outbox: what waits for the office. Every record this device wrote whose mark ("<rev> <kind> <id>")
-// sorts above the acknowledged mark waits; a bundle made of the oldest of them is kept in the outbox
-// store and sent, unchanged and under the same id, until the office acknowledges it (201 or 200). Only
-// then does the mark move past its records. The records never leave IndexedDB; the demo site's never wait.
+// sorts above the acknowledged mark waits, unless that version is set aside (outbox-state.ts). A bundle of
+// the oldest of them, packed by bytes, is kept in the outbox store and sent under the same id until the
+// office acknowledges it (201 or 200); only then does the mark move past its records. A bundle the office
+// refused is rebuilt from the records (outbox-refusals.ts). The records never leave IndexedDB; the demo
+// site's never wait. DOM-free: the service worker sends the outbox with this module too.
 import { DEMO_SITE_ID } from '../../core/demo/index';
-import { makeBundle, type Bundle } from '../../core/exchange/index';
+import { bundleBudget, bundleRecordProblem, makeBundle, recordsThatFit, utf8Length, type Bundle } from '../../core/exchange/index';
 import { parseRev, toSyncRecord, type SyncKind, type SyncRecord } from '../../core/records/index';
 import { withDb } from './connection';
 import { now_ms } from './clock';
 import type { OutboxEntry, SyncStatusRecord } from './schema';
+import { setAsideMarks, withSetAside, type OutboxLimits, type SetAsideEntry } from './outbox-state';
 import { STORE_OF_KIND, SYNCED_STORES } from './stores';
 import { notifySyncChanged } from './sync-events';
 import { putSyncInTx } from './sync-store';
@@ -48,68 +51,157 @@ async function mineAfter(tx: ReadTx, device: string, after: string | undefined):
   return out.sort((a, b) => (a.mark < b.mark ? -1 : a.mark > b.mark ? 1 : 0));
 }
 
-/** How many records wait for the office (written here and not yet acknowledged). */
+/** How many records wait for the office (written here, not yet acknowledged, not set aside). */
 export function waitingCount(): Promise<number> {
   return withDb(async (db) => {
     const tx = db.transaction([...SYNCED_STORES, 'meta', 'sync'], 'readonly');
-    const [device, acked] = await Promise.all([tx.objectStore('meta').get('deviceId'), tx.objectStore('sync').get('acked')]);
+    const sync = tx.objectStore('sync');
+    const [device, acked, aside] = await Promise.all([tx.objectStore('meta').get('deviceId'), sync.get('acked'), sync.get('setAside')]);
     if (typeof device !== 'string') return 0;
-    return (await mineAfter(tx, device, acked as string | undefined)).length;
+    const skip = setAsideMarks(aside as SetAsideEntry[] | undefined);
+    return (await mineAfter(tx, device, acked as string | undefined)).filter((w) => !skip.has(w.mark)).length;
   });
 }
 
+/** Bytes of a bundle's JSON (UTF-8), as it travels. */
+export function bundleBytes(bundle: Bundle): number {
+  return utf8Length(JSON.stringify(bundle));
+}
+
+/** True when a kept bundle may still go as it is: within the limits, and none of its records set aside since. */
+function stillFits(entry: OutboxEntry, limits: OutboxLimits, skip: Set<string>): boolean {
+  const n = entry.bundle.records.length;
+  if (limits.search && n > limits.search.records) return false;
+  if (entry.bundle.records.some((r) => skip.has(markOf(r)))) return false;
+  return n === 1 || bundleBytes(entry.bundle) <= bundleBudget(limits);
+}
+
+/** A set-aside entry for a waiting record refused by this phone's own checks (a deletion of it is dropped at once). */
+function refusedHere(w: { mark: string; record: SyncRecord }, reason: string, at_ms: number): SetAsideEntry {
+  const siteId = w.record.kind === 'site' ? w.record.id : (w.record.body as { siteId?: string }).siteId;
+  return {
+    mark: w.mark, kind: w.record.kind, id: w.record.id, rev: w.record.rev, ...(siteId ? { siteId } : {}), reason, by: 'phone', at_ms,
+    ...(w.record.deleted ? { deleted: true, dropped: { at_ms, because: 'deleted' as const } } : {}),
+  };
+}
+
 /**
- * The next bundle to send: the oldest unacknowledged one in the outbox, or a new one of the oldest
- * waiting records (at most MAX_BUNDLE_RECORDS), kept in the outbox before it is returned. Undefined when
- * nothing waits.
+ * The next bundle to send: the oldest kept one while it still fits the limits, or a new one of the oldest
+ * waiting records packed by bytes (core's recordsThatFit), kept in the outbox before it is returned.
+ * Records this phone's bundle checks refuse are set aside on the way. Undefined when nothing waits.
  */
 export async function nextOutgoing(): Promise<OutboxEntry | undefined> {
   const at = now_ms();
-  const oldest = () => withDb(async (db) => (await db.transaction('outbox').store.index('by-created').openCursor())?.value);
-  const pending = await oldest();
-  if (pending) return pending;
-  // Read in one transaction, then kept in another that only writes the outbox (records are read, never
-  // written here); if another tab kept a bundle meanwhile, that one goes first.
+  const kept = await withDb(async (db) => {
+    const tx = db.transaction(['outbox', 'sync'], 'readonly');
+    const sync = tx.objectStore('sync');
+    const [cursor, limits, aside] = await Promise.all([tx.objectStore('outbox').index('by-created').openCursor(), sync.get('outboxLimits'), sync.get('setAside')]);
+    return { entry: cursor?.value, limits: (limits ?? {}) as OutboxLimits, skip: setAsideMarks(aside as SetAsideEntry[] | undefined) };
+  });
+  if (kept.entry && stillFits(kept.entry, kept.limits, kept.skip)) return kept.entry;
+  if (kept.entry) {
+    // Rebuilt from the records: the office never stored this bundle (it refused it), so its id goes with it.
+    const stale = kept.entry.id;
+    await withDb(async (db) => {
+      const tx = db.transaction('outbox', 'readwrite');
+      await Promise.all([tx.store.delete(stale), tx.done]);
+    });
+  }
+  // Read in one transaction, then kept in another that only writes the outbox and the sync store (records
+  // are read, never written here); if another tab kept a bundle meanwhile, that one goes first.
   const made = await withDb(async (db) => {
     const tx = db.transaction([...SYNCED_STORES, 'meta', 'sync'], 'readonly');
-    const [device, acked] = await Promise.all([tx.objectStore('meta').get('deviceId'), tx.objectStore('sync').get('acked')]);
+    const sync = tx.objectStore('sync');
+    const [device, acked, limitsRead, asideRead] = await Promise.all([
+      tx.objectStore('meta').get('deviceId'), sync.get('acked'), sync.get('outboxLimits'), sync.get('setAside'),
+    ]);
     if (typeof device !== 'string') return undefined;
-    const waiting = (await mineAfter(tx, device, acked as string | undefined)).slice(0, MAX_BUNDLE_RECORDS);
-    if (waiting.length === 0) return undefined;
-    const bundle = makeBundle({ id: crypto.randomUUID(), device, created_ms: at, records: waiting.map((w) => w.record) });
-    return { id: bundle.id, bundle, through: waiting[waiting.length - 1].mark, created_ms: at, attempts: 0, nextAttempt_ms: at } satisfies OutboxEntry;
-  });
-  if (!made) return undefined;
-  const entry = await withDb(async (db) => {
-    const tx = db.transaction('outbox', 'readwrite');
-    const other = await tx.store.index('by-created').openCursor();
-    if (other) {
-      await tx.done;
-      return other.value;
+    const limits = (limitsRead ?? {}) as OutboxLimits;
+    const aside = asideRead as SetAsideEntry[] | undefined;
+    const skip = setAsideMarks(aside);
+    const waiting = (await mineAfter(tx, device, acked as string | undefined)).filter((w) => !skip.has(w.mark));
+    const id = crypto.randomUUID();
+    const empty = bundleBytes(makeBundle({ id, device, created_ms: at, records: [] }));
+    const budget = bundleBudget(limits);
+    const most = Math.min(MAX_BUNDLE_RECORDS, limits.search?.records ?? MAX_BUNDLE_RECORDS);
+    const chosen: { mark: string; record: SyncRecord }[] = [];
+    const sizes: number[] = [];
+    const refused: SetAsideEntry[] = [];
+    let total = empty;
+    for (const w of waiting) {
+      if (chosen.length >= most || (chosen.length > 0 && total > budget)) break;
+      const problem = bundleRecordProblem(w.record);
+      if (problem) {
+        refused.push(refusedHere(w, `This version ${problem}.`, at));
+        continue;
+      }
+      const size = utf8Length(JSON.stringify(w.record));
+      if (limits.stated_bytes !== undefined && empty + size > limits.stated_bytes) {
+        refused.push(refusedHere(w, `This record is larger (${mib(empty + size)}) than the office accepts in one bundle (${mib(limits.stated_bytes)}).`, at));
+        continue;
+      }
+      chosen.push(w);
+      sizes.push(size);
+      total += size + 1;
     }
-    await Promise.all([tx.store.put(made), tx.done]);
-    return made;
+    const n = recordsThatFit(sizes, empty, budget, most);
+    const records = chosen.slice(0, n);
+    const bundle = records.length ? makeBundle({ id, device, created_ms: at, records: records.map((w) => w.record) }) : undefined;
+    const entry = bundle && ({ id, bundle, through: records[records.length - 1].mark, created_ms: at, attempts: 0, nextAttempt_ms: at } satisfies OutboxEntry);
+    return { entry, refused };
+  });
+  if (!made || (!made.entry && made.refused.length === 0)) return undefined;
+  const entry = await withDb(async (db) => {
+    const tx = db.transaction(['outbox', 'sync'], 'readwrite');
+    const outbox = tx.objectStore('outbox');
+    if (made.refused.length) {
+      // Merged with the list as it is now (another tab may have added to it since it was read).
+      const sync = tx.objectStore('sync');
+      void sync.get('setAside').then((now) => sync.put(withSetAside(now as SetAsideEntry[] | undefined, made.refused), 'setAside'));
+    }
+    const other = await outbox.index('by-created').openCursor();
+    if (other || !made.entry) {
+      await tx.done;
+      return other?.value;
+    }
+    await Promise.all([outbox.put(made.entry), tx.done]);
+    return made.entry;
   });
   notifySyncChanged();
   return entry;
 }
 
+/** A size in MiB for a sentence, e.g. "16 MiB" or "4.3 MiB". */
+export function mib(bytes: number): string {
+  const m = bytes / 1024 / 1024;
+  return `${m >= 10 || Number.isInteger(m) ? Math.round(m) : m.toFixed(1)} MiB`;
+}
+
 /**
  * The office acknowledged bundle `id` (201 or 200): in one transaction the acked mark moves past its
- * records, the bundle leaves the outbox and the status records the success. False when it was not there.
+ * records, the bundle leaves the outbox, a search for a refused record counts them, and the status
+ * records the success. False when it was not there.
  */
 export async function acknowledge(id: string): Promise<boolean> {
   const at = now_ms();
   const done = await withDb(async (db) => {
     const tx = db.transaction(['outbox', 'sync'], 'readwrite');
-    const [entry, acked, status] = await Promise.all([tx.objectStore('outbox').get(id), tx.objectStore('sync').get('acked'), tx.objectStore('sync').get('status')]);
+    const sync = tx.objectStore('sync');
+    const [entry, acked, status, limitsRead] = await Promise.all([tx.objectStore('outbox').get(id), sync.get('acked'), sync.get('status'), sync.get('outboxLimits')]);
     if (!entry) {
       await tx.done;
       return false;
     }
     const next = typeof acked === 'string' && acked > entry.through ? acked : entry.through;
     const { lastProblem: _cleared, ...rest } = (status as SyncStatusRecord | undefined) ?? {};
-    await Promise.all([putSyncInTx(tx, 'acked', next), putSyncInTx(tx, 'status', { ...rest, lastSuccess_ms: at }), tx.objectStore('outbox').delete(id), tx.done]);
+    const limits = limitsRead as OutboxLimits | undefined;
+    const writes: Promise<unknown>[] = [putSyncInTx(tx, 'acked', next), putSyncInTx(tx, 'status', { ...rest, lastSuccess_ms: at }), tx.objectStore('outbox').delete(id)];
+    if (limits?.search) {
+      const left = limits.search.left - entry.bundle.records.length;
+      const { search: _done, ...others } = limits;
+      writes.push(putSyncInTx(tx, 'outboxLimits', left > 0 ? { ...limits, search: { ...limits.search, left } } : others));
+    }
+    await Promise.all([...writes, tx.done]);
     return true;
   });
   notifySyncChanged();
@@ -132,6 +224,8 @@ export interface ExportFile {
   bundle: Bundle;
   /** Mark of the last record of this device in it; pass to markExported after the file was saved. */
   through?: string;
+  /** Records left out because a bundle cannot carry them (core's bundleRecordProblem): no file is refused for one record. */
+  leftOut: number;
 }
 
 /**
@@ -160,7 +254,8 @@ export function exportBundle(changesOnly: boolean): Promise<ExportFile> {
       const all = await Promise.all(kinds.map((k) => tx.objectStore(STORE_OF_KIND[k]).getAll()));
       records = kinds.flatMap((k, i) => all[i].map((r) => toSyncRecord(k, r as never))).filter((r) => !isDemo(r));
     }
-    return { bundle: makeBundle({ id: crypto.randomUUID(), device, created_ms: at, records }), through };
+    const carried = records.filter((r) => bundleRecordProblem(r) === undefined);
+    return { bundle: makeBundle({ id: crypto.randomUUID(), device, created_ms: at, records: carried }), through, leftOut: records.length - carried.length };
   });
 }
 

@@ -9,8 +9,8 @@ export interface StorageState {
 
 let asked = false;
 
-function storageManager(): StorageManager | undefined {
-  // Node (tests) before version 21 has no navigator at all.
+function storageManager(): (StorageManager & { persist?: () => Promise<boolean> }) | undefined {
+  // Node (tests) before version 21 has no navigator at all; a worker's StorageManager has no persist().
   return typeof navigator !== 'undefined' ? navigator.storage : undefined;
 }
 
@@ -19,10 +19,11 @@ export function requestPersistenceOnce(): void {
   if (asked) return;
   asked = true;
   const storage = storageManager();
-  if (!storage?.persist || !storage.persisted) return;
+  const persist = storage?.persist?.bind(storage);
+  if (!storage || !persist || !storage.persisted) return;
   storage
     .persisted()
-    .then((already) => (already ? true : storage.persist()))
+    .then((already) => (already ? true : persist()))
     .catch(() => false);
 }
 

@@ -4,6 +4,7 @@ import type {
   AnalysisRecord, ConflictRecord, DraftRecord, GaugingRecord, LoggerDayRecord, RatingRecord, ReadingRecord, SiteRecord,
 } from '../../core/records/index';
 import type { Bundle } from '../../core/exchange/index';
+import type { OutboxLimits, SetAsideEntry } from './outbox-state';
 
 /** Name of the app's database. */
 export const DB_NAME = 'freshet';
@@ -71,6 +72,10 @@ export interface SyncValues {
   /** The office's pull cursor (opaque), stored in the transaction that merged what it covers. */
   cursor: string;
   status: SyncStatusRecord;
+  /** What sizes the next bundle (outbox-state.ts). */
+  outboxLimits: OutboxLimits;
+  /** Record versions kept out of bundles, with their reasons (outbox-state.ts). */
+  setAside: SetAsideEntry[];
 }
 
 /** Keys of the sync store. */

@@ -5,13 +5,14 @@
 // waits and asks the service worker's Background Sync to trigger one when the network returns; a failure
 // the user must fix (token, address) stops until the settings change or the user asks again.
 import { retryDelay_ms, type PushOutcome } from '../../core';
-import { acknowledge, applyIncoming, getSyncValue, nextOutgoing, noteAttempt, updateSyncStatus, type SyncStatusRecord } from '../db';
+import { applyIncoming, getSyncValue, updateSyncStatus, type SyncStatusRecord } from '../db';
 import { createStore } from '../store';
-import { pullBundles, pushBundle } from './http';
+import { pullBundles } from './http';
+import { noteProblem, PUSH_TAG, pushWaiting } from './push';
 import { loadSettings } from './settings';
 
-/** The tag the page registers for Background Sync; the service worker answers it (sw/sw.ts). */
-export const PUSH_TAG = 'freshet-push';
+/** The tag the page registers for Background Sync; the service worker answers it (declared in push.ts). */
+export { PUSH_TAG };
 
 /** How a run ended: nothing set up, everything done, or stopped on a problem (retry or fix). */
 export type RunResult = { kind: 'no-settings' } | { kind: 'done'; sent: number; received: number } | { kind: 'retry' | 'fix'; message: string };
@@ -52,19 +53,9 @@ function withoutProblem(s: SyncStatusRecord, at_ms: number): SyncStatusRecord {
 async function runOnce(): Promise<RunResult> {
   const settings = await loadSettings();
   if (!settings) return { kind: 'no-settings' };
-  let sent = 0;
-  for (;;) {
-    const entry = await nextOutgoing();
-    if (!entry) break;
-    const outcome = await pushBundle(settings, entry.bundle);
-    if (outcome.kind === 'delivered') {
-      await acknowledge(entry.id);
-      sent += entry.bundle.records.length;
-      continue;
-    }
-    await noteAttempt(entry.id, Date.now());
-    return stop(outcome, entry.attempts + 1);
-  }
+  const pushed = await pushWaiting(settings);
+  if (pushed.kind === 'stopped') return stop(pushed.outcome, pushed.attempts, true);
+  const sent = pushed.sent;
   if (!mayPull()) return { kind: 'done', sent, received: 0 };
   let received = 0;
   let cursor = await getSyncValue('cursor');
@@ -83,8 +74,8 @@ async function runOnce(): Promise<RunResult> {
   return { kind: 'done', sent, received };
 }
 
-async function stop(outcome: Exclude<PushOutcome, { kind: 'delivered' }>, attempts: number): Promise<RunResult> {
-  await updateSyncStatus((s) => ({ ...s, lastProblem: { message: outcome.message, kind: outcome.kind, at_ms: Date.now() } }));
+async function stop(outcome: Exclude<PushOutcome, { kind: 'delivered' }>, attempts: number, noted = false): Promise<RunResult> {
+  if (!noted) await noteProblem(outcome);
   if (outcome.kind === 'retry') {
     // ±20 % spread so many phones coming back at once do not knock together.
     const wait = outcome.after_ms ?? retryDelay_ms(attempts) * (0.8 + 0.4 * Math.random());

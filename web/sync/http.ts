@@ -1,7 +1,8 @@
 // The two requests of the protocol (core/exchange/README.md): push one bundle, pull bundles after a
 // cursor. Both cross origins with a bearer token (a preflighted CORS request, no cookies).
-import { parseBundle, readPushAnswer, retryAfter_ms, type Bundle, type PushOutcome } from '../../core';
-import { deviceId, type SyncSettings } from '../db';
+import { MAX_BUNDLE_BYTES_HEADER, parseBundle, readPushAnswer, retryAfter_ms, type Bundle, type PushAnswer, type PushOutcome } from '../../core/index';
+import type { SyncSettings } from '../db/schema';
+import { deviceId } from '../db/clock';
 import { plainError } from '../plain-words';
 
 /** How long a request may take before it is given up and treated as a network failure, ms. */
@@ -24,15 +25,30 @@ async function text(res: Response): Promise<string> {
   }
 }
 
-/** Sends one bundle to {base}/bundles with its id as Idempotency-Key; resolves with what the answer means. */
-export async function pushBundle(settings: SyncSettings, bundle: Bundle): Promise<PushOutcome> {
+/** An answer to a push: what it means, the answer as read, and the receiver's stated bundle limit header. */
+export interface PushReply {
+  outcome: PushOutcome;
+  raw: PushAnswer;
+  /** The Freshet-Max-Bundle-Bytes header (readable across origins only when the receiver exposes it), or null. */
+  limitHeader: string | null;
+}
+
+/** Sends one bundle to {base}/bundles with its id as Idempotency-Key; resolves with the answer and its meaning. */
+export async function pushAnswer(settings: SyncSettings, bundle: Bundle): Promise<PushReply> {
   const res = await send(`${settings.base}/bundles`, {
     method: 'POST',
     headers: { Authorization: `Bearer ${settings.token}`, 'Content-Type': 'application/json', 'Idempotency-Key': bundle.id },
     body: JSON.stringify(bundle),
   });
-  if (!res) return readPushAnswer({ status: 0, contentType: null, body: '', retryAfter: null }, bundle.id);
-  return readPushAnswer({ status: res.status, contentType: res.headers.get('Content-Type'), body: await text(res), retryAfter: res.headers.get('Retry-After') }, bundle.id);
+  const raw: PushAnswer = res
+    ? { status: res.status, contentType: res.headers.get('Content-Type'), body: await text(res), retryAfter: res.headers.get('Retry-After') }
+    : { status: 0, contentType: null, body: '', retryAfter: null };
+  return { outcome: readPushAnswer(raw, bundle.id), raw, limitHeader: res ? res.headers.get(MAX_BUNDLE_BYTES_HEADER) : null };
+}
+
+/** Sends one bundle to {base}/bundles with its id as Idempotency-Key; resolves with what the answer means. */
+export async function pushBundle(settings: SyncSettings, bundle: Bundle): Promise<PushOutcome> {
+  return (await pushAnswer(settings, bundle)).outcome;
 }
 
 /** One page of a pull: the bundles (checked), the new cursor, and whether the receiver has more. */

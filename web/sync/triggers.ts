@@ -15,6 +15,7 @@ import { onSyncChanged } from '../db/sync-events';
 import { getSyncValue } from '../db/sync-store';
 import type { Store } from '../store';
 import type { RunResult } from './engine';
+import { SYNC_NOW_MESSAGE } from './names';
 
 /** Quiet time after a record change before a run starts, ms (several saves in a row go together). */
 export const AFTER_CHANGE_MS = 3000;
@@ -22,8 +23,8 @@ export const AFTER_CHANGE_MS = 3000;
 /** Longest quiet time between pulls while the app is visible and nothing else gave a reason, ms. */
 export const PULL_EVERY_MS = 15 * 60_000;
 
-/** Message the service worker posts to open pages when Background Sync fires (sw/sw.ts sends the same). */
-export const SYNC_NOW_MESSAGE = 'SYNC_NOW';
+/** Message the service worker posts to open pages when Background Sync fires (declared in names.ts). */
+export { SYNC_NOW_MESSAGE };
 
 /** What the triggers need from the app's network watch (web/app/online.ts). */
 export interface NetworkWatch {

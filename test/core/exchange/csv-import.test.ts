@@ -118,4 +118,20 @@ describe('parseReadingsCsv', () => {
     const cm = parseReadingsCsv('2026-05-01T08:00:00Z,73.4\n', { ...base, headerLine: 0, stageUnit: 'cm', quality: undefined, note: undefined }, SITE);
     expect(cm[0].stage_m).toBeCloseTo(0.734, 12);
   });
+
+  // The text rule (core/records/text.ts): U+0000 and U+001F are Unicode controls (Cc); U+D800 alone is half
+  // of a UTF-16 pair (Unicode §3.9 D91; RFC 8259 §8.2); U+1F30A as its pair D83C DF0A is a character.
+  it('refuses a note holding NUL, U+001F or a lone surrogate, naming line and character; keeps pairs and CR LF', () => {
+    const text = 'time,stage,quality,note\n2026-05-01T08:00:00Z,0.5,good,"logger export \u0000\u0000 junk"\n' +
+      '2026-05-01T08:15:00Z,0.6,good,a\u001fb\n2026-05-01T08:30:00Z,0.7,good,half \ud800\n' +
+      '2026-05-01T08:45:00Z,0.8,good,"wave \ud83c\udf0a\r\nsecond line"\n';
+    const p = problems(() => parseReadingsCsv(text, base, SITE));
+    expect(p).toEqual([
+      { line: 2, message: 'the note holds a NUL character (U+0000) at character 15, which Freshet does not store; remove it from the file and import again' },
+      { line: 3, message: 'the note holds a control character (U+001F) at character 2, which Freshet does not store; remove it from the file and import again' },
+      { line: 4, message: 'the note holds half of a character pair with its other half missing (U+D800) at character 6, which Freshet does not store; remove it from the file and import again' },
+    ]);
+    const ok = parseReadingsCsv('time,stage,quality,note\n2026-05-01T08:45:00Z,0.8,good,"wave \ud83c\udf0a\r\nsecond line"\n', base, SITE);
+    expect(ok[0].note).toBe('wave \ud83c\udf0a\nsecond line');
+  });
 });

@@ -27,6 +27,8 @@ export interface TestEndpoint {
   queue: PushMode[];
   /** Every record stored, one entry per record in each stored bundle. */
   records(): SyncRecord[];
+  /** When set, a bundle holding a record this names a reason for is refused with 400 "record" naming it, as the receiver's bundle check does. */
+  refuse?: (r: SyncRecord) => string | undefined;
   /** Stores a bundle as if the office itself had sent it (pulls give it to every phone). */
   addFromOffice(bundle: Bundle): void;
   stop(): Promise<void>;
@@ -98,6 +100,11 @@ export async function startTestEndpoint(port: number, origin: string, tokens: Re
       if (key !== bundle.id) {
         seen.status = 400;
         return json(res, 400, { error: 'key', message: 'The Idempotency-Key is not the bundle id.' });
+      }
+      const refused = ep.refuse ? bundle.records.findIndex((r) => ep.refuse?.(r) !== undefined) : -1;
+      if (refused >= 0) {
+        seen.status = 400;
+        return json(res, 400, { error: 'record', index: refused, message: `Record ${refused + 1} of the bundle ${ep.refuse?.(bundle.records[refused])}` });
       }
       const had = ep.stored.some((s) => s.bundle.id === bundle.id);
       if (!had) ep.stored.push({ seq: ep.stored.length + 1, device, bundle });

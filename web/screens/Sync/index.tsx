@@ -16,6 +16,7 @@ import { PULL_EVERY_MS } from '../../sync/triggers';
 import { readBundleFile, shareOrDownload } from '../../sync/files';
 import { loadSettings, saveSettings } from '../../sync/settings';
 import { describeVersion, KIND_WORDS, reasonWords } from './describe';
+import { SetAsideCard } from './SetAside';
 import './style.css';
 import { plainError } from '../../plain-words';
 
@@ -186,7 +187,8 @@ function FilesCard() {
       }
       if (changesOnly) await markExported(file.through);
       const n = file.bundle.records.length;
-      setStatus({ ok: true, text: `${n} record${n === 1 ? '' : 's'} ${out.kind === 'shared' ? 'shared as' : 'saved to'} ${out.name}.` });
+      const left = file.leftOut === 0 ? '' : ` ${file.leftOut} record${file.leftOut === 1 ? ' was' : 's were'} left out: ${file.leftOut === 1 ? 'it holds' : 'they hold'} text or values a bundle cannot carry (fix them in their forms).`;
+      setStatus({ ok: true, text: `${n} record${n === 1 ? '' : 's'} ${out.kind === 'shared' ? 'shared as' : 'saved to'} ${out.name}.${left}` });
     } catch (e) {
       setStatus({ ok: false, text: plainError(e, { doing: 'save' }) });
     }
@@ -263,6 +265,7 @@ export default function Sync(_props: ScreenProps) {
       <div class="sync-grid">
         <div>
           <StatusCard />
+          {sites.state === 'ready' && <SetAsideCard sites={sites.value} />}
           {sites.state === 'ready' && <ReviewCard sites={sites.value} />}
         </div>
         <div>

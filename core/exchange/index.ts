@@ -2,6 +2,7 @@
 export { CSV_BOM, csvField, csvDocument, csvTable, csvNumber, textField, looksLikeFormula, type CsvColumn, type CsvColumnKind } from './csv-write';
 export { readingsToCsv, type ReadingCsvOptions, type ReadingExportRow } from './readings-csv';
 export { gaugingsToCsv, type SiteCsvOptions } from './gaugings-csv';
+export { gaugingVerticalsToCsv } from './gauging-verticals-csv';
 export { ratingSegmentsToCsv, ratingTablesToCsv, RATING_TABLE_HEADROOM_M } from './ratings-csv';
 export { stormToCsv, type SeparatedStorm } from './storm-csv';
 export { BUNDLE_FORMAT, BUNDLE_VERSION, BundleError, bundleChecksum, makeBundle, parseBundle, type Bundle, type BundleErrorReason, type BundleInput } from './bundle';

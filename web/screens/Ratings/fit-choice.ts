@@ -2,7 +2,7 @@
 // offset fitted or fixed, joined), and the core fit they lead to, or a refusal naming the field.
 import { fitSegments, fromDisplay, type GaugingRecord, type SegmentsFit, type UnitSystem } from '../../../core';
 import { parseDecimal } from '../../format';
-import type { FieldError } from './rating-form';
+import type { FieldError } from '../../components/Field/field-error';
 
 /** How many of the latest gaugings are ticked when the fit screen opens. */
 export const DEFAULT_FIT_COUNT = 20;

@@ -4,10 +4,8 @@ import { useMemo, useState } from 'preact/hooks';
 import { dischargeAtTime, toLocalInput, type DatedShift, type RatingRecord, type SiteRecord } from '../../../core';
 import { latestReading, saveRating } from '../../db';
 import { useRecords } from '../../db/use-records';
-import { describedBy, Field } from '../../components/Field';
+import { describedBy, errorOf, Field, type FieldError } from '../../components/Field';
 import { formatQuantity, formatTime } from '../../format';
-import { errorOf } from './entry';
-import type { FieldError } from './rating-form';
 import { blankShiftForm, mergeShifts, parseShiftForm, type ShiftForm, type ShiftKind } from './shift-form';
 
 function shiftWords(s: DatedShift, u: SiteRecord['displayUnits']): string {

@@ -119,7 +119,7 @@ export function Verticals({ form, dispatch, units, totals }: { form: GaugingForm
           current={form.editing}
           actions={(i) => (
             <>
-              <button type="button" aria-label={`Correct vertical ${i + 1}`} onClick={() => { dispatch({ type: 'editVertical', index: i, units }); focus('vStation'); }}>Fix</button>
+              <button type="button" aria-label={`Fix vertical ${i + 1}`} onClick={() => { dispatch({ type: 'editVertical', index: i, units }); focus('vStation'); }}>Fix</button>
               <button type="button" class="danger" aria-label={`Remove vertical ${i + 1}`} onClick={() => dispatch({ type: 'removeVertical', index: i })}>✕</button>
             </>
           )}

@@ -1,6 +1,7 @@
 // The verticals part of the gauging form: the entry of one vertical (station with the next one offered
 // from the last spacing, depth, velocities by method, angle coefficient), Enter moving from box to box
-// and keeping the vertical from the last, the wading caution, and the kept verticals with correct and remove.
+// and keeping the vertical from the last, the wading caution, and the kept verticals (Fix opens one to
+// correct or remove).
 import { useState } from 'preact/hooks';
 import { exceedsWadingLimit, fromDisplay, verticalMeanVelocity, WADING_LIMIT_M2S, type MidSectionResult, type UnitSystem } from '../../../core';
 import type { FieldError } from '../../components/Field';
@@ -104,7 +105,12 @@ export function Verticals({ form, dispatch, units, totals }: { form: GaugingForm
         )}
         <div class="row">
           <button type="button" class="primary" onClick={() => keep(form)}>{form.editing === undefined ? 'Keep vertical' : 'Keep the correction'}</button>
-          {form.editing !== undefined && <button type="button" onClick={() => dispatch({ type: 'cancelEdit' })}>Cancel</button>}
+          {form.editing !== undefined && (
+            <>
+              <button type="button" class="danger" onClick={() => form.editing !== undefined && dispatch({ type: 'removeVertical', index: form.editing })}>Remove it</button>
+              <button type="button" onClick={() => dispatch({ type: 'cancelEdit' })}>Cancel</button>
+            </>
+          )}
         </div>
       </fieldset>
       {wadingKept.length > 0 && (
@@ -120,7 +126,6 @@ export function Verticals({ form, dispatch, units, totals }: { form: GaugingForm
           actions={(i) => (
             <>
               <button type="button" aria-label={`Fix vertical ${i + 1}`} onClick={() => { dispatch({ type: 'editVertical', index: i, units }); focus('vStation'); }}>Fix</button>
-              <button type="button" class="danger" aria-label={`Remove vertical ${i + 1}`} onClick={() => dispatch({ type: 'removeVertical', index: i })}>✕</button>
             </>
           )}
         />

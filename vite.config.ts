@@ -1,9 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { defineConfig } from 'vite';
+import { defineConfig, type LogLevel, type Plugin } from 'vite';
 import preact from '@preact/preset-vite';
 import { VitePWA } from 'vite-plugin-pwa';
-import { contentSecurityPolicy } from './scripts/csp';
+import { contentSecurityPolicy } from './scripts/csp.ts';
 
 const pkg = JSON.parse(readFileSync(resolve(import.meta.dirname, 'package.json'), 'utf8')) as { version: string };
 // FRESHET_VERSION lets the update-flow test build two versions of the same code.
@@ -13,6 +13,27 @@ const outDir = resolve(import.meta.dirname, process.env.FRESHET_OUT_DIR ?? 'dist
 
 export const THEME_COLOUR = '#0d4a5c';
 export const BACKGROUND_COLOUR = '#f6f3ec';
+
+// The app build's log level (`--logLevel warn` from npm start), which the service-worker build follows.
+let appLogLevel: LogLevel | undefined;
+
+/**
+ * A plugin for the service-worker build: one output file via `codeSplitting: false`, not the deprecated
+ * option, and the app build's log level (the plugin starts that build with none).
+ */
+function oneFileWorker(): Plugin {
+  return {
+    name: 'freshet-one-file-worker',
+    config(config) {
+      if (appLogLevel && !config.logLevel) config.logLevel = appLogLevel;
+      const output = config.build?.rollupOptions?.output;
+      if (output && !Array.isArray(output) && 'inlineDynamicImports' in output) {
+        delete output.inlineDynamicImports;
+        (output as { codeSplitting?: boolean }).codeSplitting = false;
+      }
+    },
+  };
+}
 
 export default defineConfig({
   root: resolve(import.meta.dirname, 'web'),
@@ -32,6 +53,7 @@ export default defineConfig({
   preview: { host: '127.0.0.1', port: 4173, strictPort: true, headers: { 'Content-Security-Policy': contentSecurityPolicy({ frameAncestors: "'none'" }) } },
   plugins: [
     preact(),
+    { name: 'freshet-log-level', configResolved: (c) => void (appLogLevel = c.logLevel) },
     {
       // The built index.html carries the policy as its first <meta>, so any host serves it; the dev
       // server gets none (its hot reload needs inline scripts and a websocket).
@@ -50,6 +72,9 @@ export default defineConfig({
         // Only the app shell: the plugin adds the manifest and icons itself.
         globPatterns: ['**/*.{js,css,html}'],
         rollupFormat: 'es',
+        // The plugin asks for one file with `output.inlineDynamicImports`, which Vite 8's bundler has
+        // deprecated (it prints a warning on every build); ask for the same single file the current way.
+        buildPlugins: { vite: [oneFileWorker()] },
       },
       manifest: {
         name: 'Freshet — stream gauging in the field',

@@ -4,6 +4,7 @@ export { DISCHARGE_DIGITS, readingsToCsv, type ReadingCsvOptions, type ReadingEx
 export { stageExportRows } from './stage-rows';
 export { gaugingsToCsv, type SiteCsvOptions } from './gaugings-csv';
 export { printedRatingTable, ratingSegmentsToCsv, ratingTablesToCsv, RATING_TABLE_HEADROOM_M, type RatingTableCsvOptions } from './ratings-csv';
+export { gaugingVerticalsToCsv } from './gauging-verticals-csv';
 export { stormToCsv, type SeparatedStorm } from './storm-csv';
 export { DEFAULT_BUNDLE_BYTES, MIN_BUNDLE_BYTES, MAX_BUNDLE_BYTES_HEADER, bundleBudget, recordsThatFit, statedLimit_bytes, utf8Length, type BundleLimits } from './bundle-size';
 export { BUNDLE_FORMAT, BUNDLE_VERSION, BundleError, bundleChecksum, bundleRecordProblem, makeBundle, parseBundle, type Bundle, type BundleErrorReason, type BundleInput } from './bundle';

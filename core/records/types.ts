@@ -2,6 +2,7 @@
 // epoch milliseconds; every type here is JSON-able (no Dates, Maps or class instances).
 import type { DatedShift, MeasurementGrade, RatingSegment } from '../rating/index';
 import type { UnitSystem } from '../units';
+import type { PointVelocities } from '../gauging/vertical-velocity';
 import type { EventPoints } from '../hydrograph/series';
 import type { EventSummary } from '../hydrograph/summary';
 
@@ -141,6 +142,8 @@ export interface RecordedVertical {
   velocity_mps: number;
   /** Cosine correction for flow not normal to the section, 0–1. */
   angleCoefficient?: number;
+  /** The point velocities (m/s) the mean velocity was worked out from, when they were typed. */
+  observed?: PointVelocities;
 }
 
 /** A discharge measurement: mean stage (m), measured discharge (m³/s), method and grade. */

@@ -1,6 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { midSection, type RatingRecord, type GaugingRecord } from '../../core';
-import { blankGaugingForm, fromDraftFields, gaugingReducer, parseGaugingForm, parseVertical, runningTotals, toDraftFields, type GaugingForm } from '../../web/screens/Gaugings/form';
+import { blankGaugingForm, gaugingReducer, type GaugingForm } from '../../web/screens/Gaugings/form';
+import { fromDraftFields, toDraftFields } from '../../web/screens/Gaugings/form-draft';
+import { parseGaugingForm } from '../../web/screens/Gaugings/read-gauging';
+import { parseVertical, runningTotals } from '../../web/screens/Gaugings/read-vertical';
 import { gaugingCheck } from '../../web/screens/Gaugings/check';
 
 const ctx = { units: 'metric' as const, timeZone: 'UTC', now_ms: Date.UTC(2026, 5, 1, 12), siteId: 'site-1' };

@@ -49,7 +49,7 @@ describe('time labels in the site zone, 24-hour', () => {
     const six_h = 6 * 3_600_000;
     const ticks = [0, 1, 2, 3].map((k) => Date.UTC(2026, 11, 3, 5) + k * six_h); // 18:00, 00:00, 06:00, 12:00 Auckland
     expect(timeTickLabels(ticks, six_h, 'Pacific/Auckland')).toEqual(['18:00\n3 Dec', '00:00\n4 Dec', '06:00', '12:00']);
-    expect(timeTickLabels([Date.UTC(2026, 11, 3, 11), Date.UTC(2026, 11, 4, 11)], 86_400_000, 'Pacific/Auckland')).toEqual(['4 Dec', '5 Dec']);
+    expect(timeTickLabels([Date.UTC(2026, 11, 3, 11), Date.UTC(2026, 11, 4, 11)], 86_400_000, 'Pacific/Auckland')).toEqual(['4 Dec\n2026', '5 Dec']);
   });
   it('labels numbers with the decimals their spacing needs', () => {
     expect(numberTickLabel(2.5, 0.5)).toBe('2.5');

@@ -46,6 +46,8 @@ export const ROUTES: readonly RouteEntry[] = [
   { pattern: 'sites/:siteId/ratings/:ratingId', area: 'sites', Screen: Ratings },
   { pattern: 'sites/:siteId/gaugings', area: 'sites', Screen: Gaugings },
   { pattern: 'sites/:siteId/gaugings/new', area: 'sites', Screen: Gaugings },
+  { pattern: 'sites/:siteId/gaugings/:gaugingId', area: 'sites', Screen: Gaugings },
+  { pattern: 'sites/:siteId/gaugings/:gaugingId/edit', area: 'sites', Screen: Gaugings },
   { pattern: 'record', area: 'record', Screen: Record },
   { pattern: 'record/:siteId', area: 'record', Screen: Record },
   { pattern: 'record/:siteId/:readingId', area: 'record', Screen: Record },

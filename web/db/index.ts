@@ -12,7 +12,7 @@ export { readingsWithDischarge, seriesWithDischarge, stageRecordIn, type SeriesW
 export { latestStageTime, readingSeries, type ReadingSeries } from './series-read';
 export type { ReadingWithDischarge } from '../../core/readings/index';
 export { importLoggerRecord, type LoggerImportResult } from './logger-days';
-export { saveGauging, deleteGauging, listGaugings } from './gaugings';
+export { saveGauging, getGauging, deleteGauging, listGaugings } from './gaugings';
 export { saveRating, deleteRating, restoreRating, listRatings, ratingInForceAt, ratingsAndGaugings } from './ratings';
 export { saveAnalysis, deleteAnalysis, listAnalyses } from './analyses';
 export { saveDraft, discardDraft, listDrafts } from './drafts';

@@ -1,5 +1,8 @@
 // A labelled form field with an optional hint and an error that names what is wrong.
 import type { ComponentChildren } from 'preact';
+import './style.css';
+
+export { errorOf, type FieldError } from './field-error';
 
 /** Props: a unique id for the control, the label, a hint, an error sentence, and the control itself. */
 export interface FieldProps {

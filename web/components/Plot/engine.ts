@@ -100,7 +100,10 @@ export function createPlot(host: HTMLElement, first: PlotProps, width_px: number
           space: 64,
           values: (_u, splits, _i, _space, incr) => {
             const zone = props.xAxis.kind === 'time' ? props.xAxis.timeZone : 'UTC';
-            return timeTickLabels(splits.map((s) => s * 1000), incr * 1000, zone);
+            const labels = timeTickLabels(splits.map((s) => s * 1000), incr * 1000, zone);
+            // The labels as drawn, on the element, so a test can read what the canvas shows.
+            host.dataset.timeTicks = labels.map((l) => l.replace('\n', ' ')).join(' | ');
+            return labels;
           },
         }
       : { ...axis, label: props.xAxis.label, values: (_u, splits, _i, _s, incr) => splits.map((v) => (v == null ? '' : props.xAxis.kind === 'number' && props.xAxis.log ? String(Number(v.toPrecision(3))) : numberTickLabel(v, incr))) };

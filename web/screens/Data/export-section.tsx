@@ -2,7 +2,7 @@
 // time series, Part 2 ratings and gaugings), shared from the phone or downloaded.
 import { useEffect, useState } from 'preact/hooks';
 import {
-  fromLocalInput, gaugingsToCsv, MS_PER_DAY, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv, stageExportRows, toLocalInput, watermlRatings, watermlTimeseries,
+  fromLocalInput, gaugingsToCsv, gaugingVerticalsToCsv, MS_PER_DAY, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv, stageExportRows, toLocalInput, watermlRatings, watermlTimeseries,
   type SiteRecord,
 } from '../../../core';
 import { latestStageTime, listGaugings, listRatings, stageRecordIn } from '../../db';
@@ -15,6 +15,7 @@ const KINDS = {
   'timeseries-waterml': { label: 'Stage and discharge series (WaterML 2.0 Part 1)', windowed: true },
   'ratings-waterml': { label: 'Ratings and gaugings (WaterML 2.0 Part 2)', windowed: false },
   'gaugings-csv': { label: 'Gaugings (CSV)', windowed: false },
+  'verticals-csv': { label: 'Gauging verticals (CSV)', windowed: false },
   'rating-segments-csv': { label: 'Rating equations (CSV)', windowed: false },
   'rating-tables-csv': { label: 'Rating tables (CSV)', windowed: false },
 } as const;
@@ -76,6 +77,12 @@ export function ExportSection({ sites }: { sites: SiteRecord[] }) {
       case 'gaugings-csv':
         if (gaugings.length === 0) return 'This site has no gaugings yet: nothing to export.';
         return { text: gaugingsToCsv(gaugings, o), name: `${stem}_gaugings.csv`, type: 'text/csv;charset=utf-8', what: `${gaugings.length} gaugings` };
+      case 'verticals-csv': {
+        const measured = gaugings.filter((g) => g.verticals && g.verticals.length >= 2);
+        if (measured.length === 0) return 'This site has no gaugings entered vertical by vertical: nothing to export.';
+        const count = measured.reduce((n, g) => n + (g.verticals?.length ?? 0), 0);
+        return { text: gaugingVerticalsToCsv(measured, o), name: `${stem}_gauging_verticals.csv`, type: 'text/csv;charset=utf-8', what: `${count} verticals of ${measured.length} gaugings` };
+      }
       case 'rating-segments-csv':
       case 'rating-tables-csv':
         if (ratings.length === 0) return 'This site has no ratings yet: nothing to export.';

@@ -1,39 +1,45 @@
-// Entering a gauging: a summary, or vertical by vertical (mid-section, ISO 748) with running totals,
-// the largest subsection share, the count of verticals and the wading caution. The form is kept as a
-// draft on every change and restored when the app reopens; saving shows the deviation from the rating.
+// Entering a gauging, or correcting a saved one: a summary, or vertical by vertical (mid-section, ISO
+// 748) with running totals, the largest subsection share, the count of verticals and the wading caution.
+// The form is kept as a draft on every change and restored when the app reopens; saving shows the
+// deviation from the rating. A correction is saved as a new revision of the same gauging.
 import { useEffect, useMemo, useReducer, useState } from 'preact/hooks';
 import {
   GAUGING_GRADES, GAUGING_METHODS, MAX_SUBSECTION_SHARE, MIN_VERTICALS, toLocalInput,
-  type GaugingMethod, type MeasurementGrade, type SiteRecord,
+  type GaugingMethod, type GaugingRecord, type MeasurementGrade, type SiteRecord,
 } from '../../../core';
-import { ratingsAndGaugings, saveGauging } from '../../db';
+import { getGauging, ratingsAndGaugings, saveGauging } from '../../db';
 import { restorableDrafts, useKeptDraft } from '../../app/use-kept-draft';
 import { plainError } from '../../plain-words';
 import { Cautions } from '../../components/Cautions';
-import { describedBy, Field } from '../../components/Field';
+import { describedBy, errorOf, Field, type FieldError } from '../../components/Field';
+import { NumberField } from '../../components/NumberField';
 import { formatQuantity, formatTime } from '../../format';
 import { href } from '../../router';
-import { errorOf, NumberField } from '../Ratings/entry';
-import type { FieldError } from '../Ratings/rating-form';
-import { formatArea_m2 } from '../Ratings/units';
 import { gaugingCheck } from './check';
+import { blankGaugingForm, formOfGauging, gaugingReducer, type GaugingForm, type GaugingTextField } from './form';
+import { fromDraftFields, hasContent, toDraftFields } from './form-draft';
+import { parseGaugingForm } from './read-gauging';
+import { runningTotals } from './read-vertical';
+import { TotalsCard } from './totals-card';
 import { Verticals } from './verticals';
-import { blankGaugingForm, fromDraftFields, gaugingReducer, hasContent, parseGaugingForm, runningTotals, toDraftFields } from './form';
 
 const METHOD_LABELS: Record<GaugingMethod, string> = {
   'velocity-area': 'Current meter (velocity–area)', 'acoustic-profiler': 'Acoustic profiler', volumetric: 'Volumetric', dilution: 'Dilution', float: 'Floats', other: 'Other',
 };
 const GRADE_LABELS: Record<MeasurementGrade, string> = { excellent: 'Excellent (2 %)', good: 'Good (5 %)', fair: 'Fair (8 %)', poor: 'Poor (over 8 %)' };
 
-/** The gauging form of one site. */
-export function GaugingEntry({ site }: { site: SiteRecord }) {
+/** The form a screen starts from: blank, or the saved gauging being corrected. */
+const startForm = (site: SiteRecord, saved: GaugingRecord | undefined): GaugingForm => (saved ? formOfGauging(saved, site.timeZone, site.displayUnits) : blankGaugingForm(''));
+
+/** The gauging form of one site: a new gauging, or a correction of `saved`. */
+export function GaugingEntry({ site, saved }: { site: SiteRecord; saved?: GaugingRecord }) {
   const u = site.displayUnits;
   const su = u === 'us' ? 'ft' : 'm';
-  const [form, dispatch] = useReducer(gaugingReducer, undefined, () => blankGaugingForm(''));
+  const [form, dispatch] = useReducer(gaugingReducer, undefined, () => startForm(site, saved));
   const [ready, setReady] = useState(false);
   const [restored, setRestored] = useState<string>();
   const [errors, setErrors] = useState<FieldError[]>([]);
-  const [saved, setSaved] = useState<string>();
+  const [done, setDone] = useState<string>();
   const [failure, setFailure] = useState<string>();
   const draft = useKeptDraft(form, ready, {
     form: 'gauging', siteId: site.id, hasContent, toFields: toDraftFields,
@@ -42,28 +48,34 @@ export function GaugingEntry({ site }: { site: SiteRecord }) {
 
   useEffect(() => {
     let live = true;
+    draft.markWritten(form);
     void restorableDrafts('gauging', site.id).then((drafts) => {
       if (!live) return;
-      const d = drafts[0];
+      // A new gauging restores a new gauging's draft; a correction only its own.
+      const d = drafts.find((x) => {
+        const s = x.fields.saved;
+        const of = s && typeof s === 'object' && !Array.isArray(s) ? s.id : undefined;
+        return saved ? of === saved.id : of === undefined;
+      });
       if (d) {
         draft.id.current = d.id;
         const { form: f, dropped } = fromDraftFields(d.fields, '');
         draft.markWritten(f);
         dispatch({ type: 'replace', form: f });
-        setRestored(`Restored the unsaved gauging you started (last change ${formatTime(d.updated_ms, site.timeZone)}, ${f.verticals.length} verticals)${dropped ? `; ${dropped} unreadable vertical${dropped > 1 ? 's were' : ' was'} left out` : ''}.`);
+        setRestored(`Restored the unsaved ${saved ? 'correction' : 'gauging'} you started (last change ${formatTime(d.updated_ms, site.timeZone)}, ${f.verticals.length} verticals)${dropped ? `; ${dropped} unreadable vertical${dropped > 1 ? 's were' : ' was'} left out` : ''}.`);
       }
       setReady(true);
     });
     return () => {
       live = false;
     };
-  }, [site.id]);
+  }, [site.id, saved?.id]);
 
   const totals = useMemo(() => runningTotals(form.verticals), [form.verticals]);
 
   async function onSave(e: Event) {
     e.preventDefault();
-    setSaved(undefined);
+    setDone(undefined);
     setFailure(undefined);
     const parsed = parseGaugingForm(form, { units: u, timeZone: site.timeZone, now_ms: Date.now(), siteId: site.id });
     if (!parsed.ok) {
@@ -73,25 +85,33 @@ export function GaugingEntry({ site }: { site: SiteRecord }) {
     }
     setErrors([]);
     try {
+      if (form.saved) {
+        // Refuse to overwrite a revision this form never saw (changed in another tab or by a sync).
+        const now = await getGauging(form.saved.id);
+        if (!now || now.rev !== form.saved.rev) {
+          setFailure('Not saved: this gauging was changed or deleted elsewhere since you opened it. Open it again to see the latest version.');
+          return;
+        }
+      }
       // The draft stays until the gauging itself is stored, and goes in the same transaction.
       await draft.flush();
       draft.pause(true);
       let g;
       try {
-        g = await saveGauging(parsed.body, { draftId: draft.id.current });
+        g = await saveGauging(form.saved ? { ...parsed.body, id: form.saved.id } : parsed.body, { draftId: draft.id.current });
         draft.id.current = undefined;
       } finally {
         draft.pause(false);
       }
       const { ratings } = await ratingsAndGaugings(site.id);
       const c = gaugingCheck(g, ratings);
-      setSaved(
-        `Saved: ${formatQuantity('discharge', g.discharge_m3s, u)} at ${formatQuantity('stage', g.meanStage_m, u)}. ` +
+      setDone(
+        `${form.saved ? 'Correction saved' : 'Saved'}: ${formatQuantity('discharge', g.discharge_m3s, u)} at ${formatQuantity('stage', g.meanStage_m, u)}. ` +
           (c ? `Deviation from the rating ${c.deviation_pct > 0 ? '+' : ''}${c.deviation_pct.toFixed(1)} %: ${c.checks ? `checks the rating within “${g.grade}”` : `does not check the rating within “${g.grade}”`}; it implies a shift of ${formatQuantity('stage', c.impliedShift_m, u)}.`
             : 'No rating in force at its time to compare with.'),
       );
       setRestored(undefined);
-      const next = blankGaugingForm(form.observer);
+      const next = form.saved ? formOfGauging(g, site.timeZone, u) : blankGaugingForm(form.observer);
       draft.markWritten(next);
       dispatch({ type: 'replace', form: next });
     } catch (err) {
@@ -100,18 +120,17 @@ export function GaugingEntry({ site }: { site: SiteRecord }) {
   }
 
   if (!ready) return <p aria-busy="true">Opening the form…</p>;
-  const set = (field: 'timeText' | 'stageText' | 'startStageText' | 'endStageText' | 'dischargeText' | 'observer' | 'note') => (v: string) => dispatch({ type: 'set', field, value: v });
-  const maxShare = totals ? Math.max(...totals.subsections.map((s) => s.share)) : 0;
+  const set = (field: GaugingTextField) => (v: string) => dispatch({ type: 'set', field, value: v });
   return (
     <form onSubmit={onSave} noValidate>
-      <h2 id="screen-title" tabIndex={-1}>New gauging</h2>
-      <p class="muted">{site.name} · {site.code}</p>
+      <h2 id="screen-title" tabIndex={-1}>{form.saved ? 'Correct a gauging' : 'New gauging'}</h2>
+      <p class="muted">{site.name} · {site.code}{form.saved && ' · saving keeps the earlier version in the record’s history'}</p>
       {restored && (
         <p class="callout" role="status">{restored}{' '}
-          <button type="button" onClick={() => { dispatch({ type: 'replace', form: blankGaugingForm(form.observer) }); setRestored(undefined); }}>Start over</button>
+          <button type="button" onClick={() => { dispatch({ type: 'replace', form: startForm(site, saved) }); setRestored(undefined); }}>Start over</button>
         </p>
       )}
-      {saved && <p class="callout ok" role="status" data-testid="gauging-saved">{saved} <a href={href('sites', site.id, 'gaugings')}>All gaugings</a></p>}
+      {done && <p class="callout ok" role="status" data-testid="gauging-saved">{done} <a href={href('sites', site.id, 'gaugings')}>All gaugings</a></p>}
       <fieldset>
         <legend>Entered as</legend>
         <label class="choice"><input type="radio" name="gmode" checked={form.mode === 'verticals'} onChange={() => dispatch({ type: 'mode', value: 'verticals' })} /> Vertical by vertical (mid-section)</label>
@@ -143,20 +162,8 @@ export function GaugingEntry({ site }: { site: SiteRecord }) {
         </>
       ) : (
         <>
-          <section class="card running" aria-live="polite" aria-label="Running totals">
-            {totals ? (
-              <dl class="facts">
-                <dt>Discharge</dt><dd data-testid="running-discharge">{formatQuantity('discharge', totals.discharge_m3s, u)}</dd>
-                <dt>Area</dt><dd>{formatArea_m2(totals.area_m2, u)}</dd>
-                <dt>Mean velocity</dt><dd>{formatQuantity('velocity', totals.meanVelocity_mps, u)}</dd>
-                <dt>Largest share</dt><dd>{(100 * maxShare).toFixed(1)} %{maxShare > MAX_SUBSECTION_SHARE && <> <span class="tag">over {100 * MAX_SUBSECTION_SHARE} %</span></>}</dd>
-                <dt>Verticals</dt><dd>{form.verticals.length}{form.verticals.length < MIN_VERTICALS && <> <span class="tag">under {MIN_VERTICALS}</span></>}</dd>
-              </dl>
-            ) : <p class="muted">Totals appear once two verticals with depth between them are kept. {form.verticals.length} kept.</p>}
-          </section>
-          {totals && maxShare > MAX_SUBSECTION_SHARE && <p class="callout warn">A subsection carries {(100 * maxShare).toFixed(1)} % of the discharge; common practice is at most {100 * MAX_SUBSECTION_SHARE} % (ideally 5 %): add verticals there.</p>}
-          {totals && form.verticals.length < MIN_VERTICALS && <p class="callout warn" data-testid="count-warning">{form.verticals.length} verticals so far; common practice asks at least {MIN_VERTICALS} (25–30 recommended).</p>}
-          <Verticals form={form} dispatch={dispatch} units={u} />
+          <TotalsCard totals={totals} count={form.verticals.length} units={u} />
+          <Verticals form={form} dispatch={dispatch} units={u} totals={totals} />
         </>
       )}
       <Field id="gGrade" label="Grade">
@@ -169,7 +176,7 @@ export function GaugingEntry({ site }: { site: SiteRecord }) {
       {errorOf(errors, 'verticals') && <p class="callout bad" role="alert">{errorOf(errors, 'verticals')}</p>}
       {errors.length > 0 && !errorOf(errors, 'verticals') && <p class="callout bad" role="alert">Not saved: correct the marked fields.</p>}
       {failure && <p class="callout bad" role="alert">{failure}</p>}
-      <button type="submit" class="primary wide">Save gauging</button>
+      <button type="submit" class="primary wide">{form.saved ? 'Save the correction' : 'Save gauging'}</button>
       <Cautions compact />
     </form>
   );

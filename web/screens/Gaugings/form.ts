@@ -1,15 +1,21 @@
-// The gauging form: a summary (time, stage, discharge, method, grade) or vertical by vertical for the
-// mid-section method. State, typed actions, reading a vertical and the whole form; pure (no DOM, no storage).
+// The gauging form's state: a summary (time, stage, discharge, method, grade) or vertical by vertical for
+// the mid-section method, and its typed actions. Pure (no DOM, no storage). Reading the form is in
+// read-vertical.ts and read-gauging.ts; drafts in form-draft.ts.
 import {
-  fromDisplay, fromLocalInput, GAUGING_GRADES, GAUGING_METHODS, midSection, toDisplay, verticalMeanVelocity,
-  type GaugingBody, type GaugingMethod, type JsonValue, type MeasurementGrade, type MidSectionResult, type PointVelocities,
-  type UnitSystem,
+  toDisplay, toLocalInput, type GaugingMethod, type GaugingRecord, type MeasurementGrade, type PointVelocities, type UnitSystem,
 } from '../../../core';
-import { parseDecimal } from '../../format';
-import type { FieldError } from '../Ratings/rating-form';
 
 /** Velocity observation methods in a vertical. */
 export type VelocityKind = PointVelocities['kind'];
+
+/** The velocity methods in the order the form offers them, with their short labels. */
+export const VELOCITY_KINDS: readonly [VelocityKind, string][] = [['six-tenths', '0.6 depth'], ['two-point', '0.2 + 0.8'], ['three-point', '0.2, 0.6, 0.8']];
+
+/** The boxes Enter moves through, in order, for a velocity method. */
+export function enterOrder(kind: VelocityKind): string[] {
+  const velocities = kind === 'six-tenths' ? ['v06'] : kind === 'two-point' ? ['v02', 'v08'] : ['v02', 'v06', 'v08'];
+  return ['vStation', 'vDepth', ...velocities];
+}
 
 /** One vertical as typed (site units). */
 export interface VerticalText {
@@ -47,11 +53,16 @@ export interface GaugingForm {
   entry: VerticalText;
   /** Index of the vertical being corrected, if any. */
   editing?: number;
+  /** The saved gauging this form corrects: its id, the revision it started from and its time (UTC ms). */
+  saved?: { id: string; rev: string; time_ms: number };
 }
+
+/** The text fields of the form set by 'set'. */
+export type GaugingTextField = 'timeText' | 'stageText' | 'startStageText' | 'endStageText' | 'dischargeText' | 'observer' | 'note';
 
 /** Changes to the form. */
 export type GaugingAction =
-  | { type: 'set'; field: 'timeText' | 'stageText' | 'startStageText' | 'endStageText' | 'dischargeText' | 'observer' | 'note'; value: string }
+  | { type: 'set'; field: GaugingTextField; value: string }
   | { type: 'mode'; value: GaugingForm['mode'] }
   | { type: 'stageMode'; value: GaugingForm['stageMode'] }
   | { type: 'method'; value: GaugingMethod }
@@ -76,19 +87,20 @@ export function blankGaugingForm(observer: string): GaugingForm {
   };
 }
 
-const num = (x: number) => String(Number(x.toPrecision(6)));
+/** A number as typed back into a field: at most 6 significant figures, no trailing zeros. */
+export const typedNumber = (x: number): string => String(Number(x.toPrecision(6)));
 
 function entryOf(v: EnteredVertical, units: UnitSystem): VerticalText {
-  const sp = (x: number) => num(toDisplay('velocity', x, units));
+  const sp = (x: number) => typedNumber(toDisplay('velocity', x, units));
   const o = v.velocity;
   return {
-    stationText: num(toDisplay('length', v.station_m, units)),
-    depthText: num(toDisplay('length', v.depth_m, units)),
+    stationText: typedNumber(toDisplay('length', v.station_m, units)),
+    depthText: typedNumber(toDisplay('length', v.depth_m, units)),
     kind: o.kind,
     v02Text: o.kind === 'six-tenths' ? '' : sp(o.v02_mps),
     v06Text: o.kind === 'two-point' ? '' : sp(o.v06_mps),
     v08Text: o.kind === 'six-tenths' ? '' : sp(o.v08_mps),
-    angleText: num(v.angleCoefficient),
+    angleText: typedNumber(v.angleCoefficient),
   };
 }
 
@@ -132,189 +144,34 @@ export function gaugingReducer(form: GaugingForm, a: GaugingAction): GaugingForm
 }
 
 /**
- * Reads the vertical entry: station, depth ≥ 0, the velocities its method needs, angle coefficient in
- * (0, 1]; the station must continue the order of those kept (ascending or descending, never repeated).
+ * The station (display units) to offer for the next vertical: the last kept station plus the last spacing
+ * (the same direction across the section), or undefined with fewer than two verticals or while correcting.
  */
-export function parseVertical(form: GaugingForm, units: UnitSystem): { ok: true; vertical: EnteredVertical } | { ok: false; errors: FieldError[] } {
-  const e = form.entry;
-  const errors: FieldError[] = [];
-  const lu = units === 'us' ? 'ft' : 'm';
-  const vu = units === 'us' ? 'ft/s' : 'm/s';
-  const read = (field: string, text: string, what: string, example: string): number | undefined => {
-    const v = parseDecimal(text);
-    if (v === undefined) errors.push({ field, text: `Type the ${what} as a number, like ${example}${text.trim() ? `; got “${text.trim()}”` : ''}.` });
-    return v;
-  };
-  const station = read('vStation', e.stationText, `station (distance from the initial point, ${lu})`, '4.5');
-  const depth = read('vDepth', e.depthText, `depth (${lu})`, '0.42');
-  if (depth !== undefined && depth < 0) errors.push({ field: 'vDepth', text: `The depth must be 0 or more; got ${depth}.` });
-  const vel = (field: string, text: string, at: string) => read(field, text, `velocity at ${at} depth (${vu})`, '0.35');
-  let velocity: PointVelocities | undefined;
-  if (e.kind === 'six-tenths') {
-    const v06 = vel('v06', e.v06Text, '0.6');
-    if (v06 !== undefined) velocity = { kind: 'six-tenths', v06_mps: fromDisplay('velocity', v06, units) };
-  } else if (e.kind === 'two-point') {
-    const v02 = vel('v02', e.v02Text, '0.2');
-    const v08 = vel('v08', e.v08Text, '0.8');
-    if (v02 !== undefined && v08 !== undefined) velocity = { kind: 'two-point', v02_mps: fromDisplay('velocity', v02, units), v08_mps: fromDisplay('velocity', v08, units) };
-  } else {
-    const v02 = vel('v02', e.v02Text, '0.2');
-    const v06 = vel('v06', e.v06Text, '0.6');
-    const v08 = vel('v08', e.v08Text, '0.8');
-    if (v02 !== undefined && v06 !== undefined && v08 !== undefined) {
-      velocity = { kind: 'three-point', v02_mps: fromDisplay('velocity', v02, units), v06_mps: fromDisplay('velocity', v06, units), v08_mps: fromDisplay('velocity', v08, units) };
-    }
-  }
-  const angle = read('vAngle', e.angleText, 'angle coefficient (1 when the flow is square to the section)', '0.97');
-  if (angle !== undefined && !(angle > 0 && angle <= 1)) errors.push({ field: 'vAngle', text: `The angle coefficient must be above 0 and at most 1; got ${angle}.` });
-  if (station !== undefined) {
-    const s = fromDisplay('length', station, units);
-    const others = form.verticals.map((v) => v.station_m);
-    if (form.editing !== undefined) others.splice(form.editing, 1, s);
-    else others.push(s);
-    const dir = Math.sign(others[1] - others[0]);
-    for (let i = 1; i < others.length; i++) {
-      if (Math.sign(others[i] - others[i - 1]) !== dir || dir === 0) {
-        errors.push({ field: 'vStation', text: `Station ${station} ${lu} breaks the order across the section; stations must keep rising (or keep falling) and never repeat.` });
-        break;
-      }
-    }
-  }
-  if (errors.length || station === undefined || depth === undefined || velocity === undefined || angle === undefined) return { ok: false, errors };
-  return { ok: true, vertical: { station_m: fromDisplay('length', station, units), depth_m: fromDisplay('length', depth, units), velocity, angleCoefficient: angle } };
+export function offeredStation(form: GaugingForm, units: UnitSystem): string | undefined {
+  const n = form.verticals.length;
+  if (n < 2 || form.editing !== undefined) return undefined;
+  const last = toDisplay('length', form.verticals[n - 1].station_m, units);
+  const before = toDisplay('length', form.verticals[n - 2].station_m, units);
+  // Rounded to the decimals the stations were typed with (0.1 m steps stay 0.1 m steps).
+  return typedNumber(Number((2 * last - before).toFixed(6)));
 }
 
-/** The kept verticals as the core's verticals (mean velocity from the point observations). */
-export function coreVerticals(verticals: readonly EnteredVertical[]) {
-  return verticals.map((v) => ({ station_m: v.station_m, depth_m: v.depth_m, velocity_mps: verticalMeanVelocity(v.velocity), angleCoefficient: v.angleCoefficient }));
-}
-
-/** Running totals of the kept verticals (core midSection), or undefined until they have wetted area. */
-export function runningTotals(verticals: readonly EnteredVertical[]): MidSectionResult | undefined {
-  if (verticals.length < 2) return undefined;
-  try {
-    return midSection(coreVerticals(verticals));
-  } catch {
-    // Only the edges so far (no wetted area): nothing to total yet.
-    return undefined;
-  }
-}
-
-/** Where and what to save: time (UTC ms) and the clock, the site's units and zone. */
-export interface GaugingContext {
-  units: UnitSystem;
-  timeZone: string;
-  now_ms: number;
-  siteId: string;
-}
-
-/**
- * Reads the whole form into a gauging body: time not in the future, a stage (mean, or start and end
- * averaged), and the discharge typed (summary) or the mid-section total of at least 2 verticals.
- */
-export function parseGaugingForm(form: GaugingForm, ctx: GaugingContext): { ok: true; body: GaugingBody } | { ok: false; errors: FieldError[] } {
-  const errors: FieldError[] = [];
-  const su = ctx.units === 'us' ? 'ft' : 'm';
-  let time_ms = Math.floor(ctx.now_ms / 1000) * 1000;
-  if (form.timeText) {
-    try {
-      time_ms = fromLocalInput(form.timeText, ctx.timeZone);
-      if (time_ms > ctx.now_ms + 5 * 60_000) errors.push({ field: 'gTime', text: 'The time is in the future; give the time the measurement was made.' });
-    } catch {
-      errors.push({ field: 'gTime', text: 'Give the date and time of the measurement.' });
-    }
-  }
-  const stageOf = (field: string, text: string, what: string): number | undefined => {
-    const v = parseDecimal(text);
-    if (v === undefined) errors.push({ field, text: `Type the ${what} in ${su} as a number, like 0.734${text.trim() ? `; got “${text.trim()}”` : ''}.` });
-    return v === undefined ? undefined : fromDisplay('stage', v, ctx.units);
-  };
-  let meanStage_m: number | undefined;
-  if (form.stageMode === 'mean') meanStage_m = stageOf('gStage', form.stageText, 'mean stage');
-  else {
-    const a = stageOf('gStartStage', form.startStageText, 'stage at the start');
-    const b = stageOf('gEndStage', form.endStageText, 'stage at the end');
-    if (a !== undefined && b !== undefined) meanStage_m = (a + b) / 2;
-  }
-  let discharge_m3s: number | undefined;
-  let verticals: GaugingBody['verticals'];
-  if (form.mode === 'summary') {
-    const v = parseDecimal(form.dischargeText);
-    if (v === undefined) errors.push({ field: 'gDischarge', text: `Type the measured discharge in ${ctx.units === 'us' ? 'ft³/s' : 'm³/s'} as a number, like 2.45.` });
-    else if (v < 0) errors.push({ field: 'gDischarge', text: `The measured discharge must be 0 or more; got ${v}.` });
-    else discharge_m3s = fromDisplay('discharge', v, ctx.units);
-  } else {
-    const totals = runningTotals(form.verticals);
-    if (!totals) errors.push({ field: 'verticals', text: 'Keep at least two verticals with some depth between them (the edges of water and the verticals across).' });
-    else if (!(totals.discharge_m3s >= 0)) errors.push({ field: 'verticals', text: 'The verticals give a total discharge below 0; check the velocities.' });
-    else {
-      discharge_m3s = totals.discharge_m3s;
-      verticals = coreVerticals(form.verticals);
-    }
-  }
-  if (!(GAUGING_METHODS as readonly string[]).includes(form.method)) errors.push({ field: 'gMethod', text: 'Choose how the discharge was measured.' });
-  if (!(GAUGING_GRADES as readonly string[]).includes(form.grade)) errors.push({ field: 'gGrade', text: 'Choose the grade of the measurement.' });
-  if (errors.length || meanStage_m === undefined || discharge_m3s === undefined) return { ok: false, errors };
+/** A saved gauging as a form to correct it: its verticals with their point velocities, time in the site's zone. */
+export function formOfGauging(g: GaugingRecord, timeZone: string, units: UnitSystem): GaugingForm {
+  const stage = typedNumber(toDisplay('stage', g.meanStage_m, units));
+  const verticals: EnteredVertical[] = (g.verticals ?? []).map((v) => ({
+    station_m: v.station_m, depth_m: v.depth_m, angleCoefficient: v.angleCoefficient ?? 1,
+    // Verticals saved before point velocities were kept: their mean velocity as a 0.6-depth reading.
+    velocity: v.observed ?? { kind: 'six-tenths', v06_mps: v.velocity_mps },
+  }));
+  const last = verticals[verticals.length - 1];
   return {
-    ok: true,
-    body: {
-      siteId: ctx.siteId, time_ms, meanStage_m, discharge_m3s, method: form.mode === 'verticals' ? 'velocity-area' : form.method, grade: form.grade,
-      observer: form.observer.trim(), note: form.note.trim(), ...(verticals && { verticals }),
-    },
+    ...blankGaugingForm(g.observer),
+    mode: g.verticals && g.verticals.length >= 2 ? 'verticals' : 'summary',
+    timeText: toLocalInput(g.time_ms, timeZone), stageText: stage,
+    dischargeText: typedNumber(toDisplay('discharge', g.discharge_m3s, units)),
+    method: g.method, grade: g.grade, note: g.note, verticals,
+    entry: { ...blankEntry(), kind: last?.velocity.kind ?? 'six-tenths', angleText: typedNumber(last?.angleCoefficient ?? 1) },
+    saved: { id: g.id, rev: g.rev, time_ms: g.time_ms },
   };
-}
-
-/** The form as draft fields (JSON). */
-export function toDraftFields(form: GaugingForm): { [key: string]: JsonValue } {
-  return JSON.parse(JSON.stringify(form)) as { [key: string]: JsonValue };
-}
-
-const isText = (x: unknown): x is string => typeof x === 'string';
-const finite = (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x);
-
-function restoreVertical(x: unknown): EnteredVertical | undefined {
-  if (!x || typeof x !== 'object') return undefined;
-  const v = x as Record<string, unknown>;
-  const o = v.velocity as Record<string, unknown> | undefined;
-  if (!finite(v.station_m) || !finite(v.depth_m) || !(v.depth_m >= 0) || !finite(v.angleCoefficient) || !o) return undefined;
-  let velocity: PointVelocities | undefined;
-  if (o.kind === 'six-tenths' && finite(o.v06_mps)) velocity = { kind: 'six-tenths', v06_mps: o.v06_mps };
-  else if (o.kind === 'two-point' && finite(o.v02_mps) && finite(o.v08_mps)) velocity = { kind: 'two-point', v02_mps: o.v02_mps, v08_mps: o.v08_mps };
-  else if (o.kind === 'three-point' && finite(o.v02_mps) && finite(o.v06_mps) && finite(o.v08_mps)) {
-    velocity = { kind: 'three-point', v02_mps: o.v02_mps, v06_mps: o.v06_mps, v08_mps: o.v08_mps };
-  }
-  return velocity && { station_m: v.station_m, depth_m: v.depth_m, velocity, angleCoefficient: v.angleCoefficient };
-}
-
-/** A form restored from draft fields; anything malformed falls back to the blank form's value (a bad vertical is dropped and counted). */
-export function fromDraftFields(fields: { [key: string]: JsonValue }, observer: string): { form: GaugingForm; dropped: number } {
-  const base = blankGaugingForm(observer);
-  const f = fields as Record<string, unknown>;
-  const text = (k: keyof GaugingForm) => (isText(f[k]) ? (f[k] as string) : (base[k] as string));
-  const list = Array.isArray(f.verticals) ? f.verticals : [];
-  const verticals = list.map(restoreVertical).filter((v): v is EnteredVertical => !!v);
-  const e = (f.entry ?? {}) as Record<string, unknown>;
-  const be = blankEntry();
-  const kinds: VelocityKind[] = ['six-tenths', 'two-point', 'three-point'];
-  const form: GaugingForm = {
-    mode: f.mode === 'summary' ? 'summary' : 'verticals',
-    timeText: text('timeText'),
-    stageMode: f.stageMode === 'start-end' ? 'start-end' : 'mean',
-    stageText: text('stageText'), startStageText: text('startStageText'), endStageText: text('endStageText'), dischargeText: text('dischargeText'),
-    method: (GAUGING_METHODS as readonly unknown[]).includes(f.method) ? (f.method as GaugingMethod) : base.method,
-    grade: (GAUGING_GRADES as readonly unknown[]).includes(f.grade) ? (f.grade as MeasurementGrade) : base.grade,
-    observer: text('observer'), note: text('note'), verticals,
-    entry: {
-      stationText: isText(e.stationText) ? e.stationText : '', depthText: isText(e.depthText) ? e.depthText : '',
-      kind: kinds.includes(e.kind as VelocityKind) ? (e.kind as VelocityKind) : be.kind,
-      v02Text: isText(e.v02Text) ? e.v02Text : '', v06Text: isText(e.v06Text) ? e.v06Text : '', v08Text: isText(e.v08Text) ? e.v08Text : '',
-      angleText: isText(e.angleText) ? e.angleText : '1',
-    },
-  };
-  return { form, dropped: list.length - verticals.length };
-}
-
-/** Whether the form holds anything worth keeping as a draft. */
-export function hasContent(form: GaugingForm): boolean {
-  return form.verticals.length > 0 || [form.stageText, form.startStageText, form.endStageText, form.dischargeText, form.note, form.entry.stationText, form.entry.depthText].some((t) => t.trim() !== '');
 }

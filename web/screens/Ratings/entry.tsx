@@ -1,13 +1,14 @@
 // Entering a rating by hand: valid from (site's zone), segments, gauged range, note. While typing, the
 // discharge at a few stages and the continuity check at each breakpoint (a jump is shown, not refused).
 import { useMemo, useReducer, useState } from 'preact/hooks';
-import { dischargeAt, ratingContinuity, type SiteRecord } from '../../../core';
-import { saveRating } from '../../db';
-import { describedBy, Field } from '../../components/Field';
+import { dischargeAt, ratingContinuity, RecordValidationError, type SiteRecord } from '../../../core';
+import { saveRating, StorageError } from '../../db';
+import { describedBy, errorOf, Field, type FieldError } from '../../components/Field';
+import { NumberField } from '../../components/NumberField';
 import { formatQuantity } from '../../format';
 import { href, navigate } from '../../router';
 import { unitLabels } from './describe';
-import { blankRatingForm, blankSegment, parseRatingForm, previewStages, type FieldError, type RatingForm, type SegmentText } from './rating-form';
+import { blankRatingForm, blankSegment, parseRatingForm, previewStages, type RatingForm, type SegmentText } from './rating-form';
 import { plainError } from '../../plain-words';
 
 type Action =
@@ -27,28 +28,6 @@ function reducer(form: RatingForm, a: Action): RatingForm {
     case 'removeSegment':
       return { ...form, segments: form.segments.filter((_, i) => i !== a.index) };
   }
-}
-
-/** The error sentence for a field id, if any. */
-export const errorOf = (errors: readonly FieldError[], field: string): string | undefined => errors.find((e) => e.field === field)?.text;
-
-/** A text input inside a Field, wired for its error. */
-export function NumberField(props: { id: string; label: string; value: string; errors: readonly FieldError[]; hint?: string; onInput: (v: string) => void }) {
-  const error = errorOf(props.errors, props.id);
-  return (
-    <Field id={props.id} label={props.label} hint={props.hint} error={error}>
-      <input
-        id={props.id}
-        type="text"
-        inputMode="decimal"
-        autoComplete="off"
-        value={props.value}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={describedBy(props.id, !!props.hint, !!error)}
-        onInput={(e) => props.onInput(e.currentTarget.value)}
-      />
-    </Field>
-  );
 }
 
 /** The hand-entry form of a rating for one site. */

@@ -3,7 +3,7 @@
 import { fitSegments, fromDisplay, type GaugingRecord, type SegmentsFit, type UnitSystem } from '../../../core';
 import { parseDecimal } from '../../format';
 import { plainError } from '../../plain-words';
-import type { FieldError } from './rating-form';
+import type { FieldError } from '../../components/Field/field-error';
 
 /** How many of the latest gaugings are ticked when the fit screen opens. */
 export const DEFAULT_FIT_COUNT = 20;

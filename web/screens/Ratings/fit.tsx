@@ -5,11 +5,11 @@ import { useMemo, useState } from 'preact/hooks';
 import { fromLocalInput, johnsonOffset, toDisplay, toLocalInput, type SiteRecord } from '../../../core';
 import { ratingsAndGaugings, saveRating } from '../../db';
 import { useRecords } from '../../components/use-records';
-import { Field } from '../../components/Field';
+import { errorOf, Field } from '../../components/Field';
 import { formatQuantity, formatTime } from '../../format';
 import { href, navigate } from '../../router';
 import { rangeText, segmentFormula, unitLabels } from './describe';
-import { errorOf, NumberField } from './entry';
+import { NumberField } from '../../components/NumberField';
 import { DEFAULT_FIT_CHOICES, defaultSelection, plainFitWarning, runFit, type FitChoices } from './fit-choice';
 import { plainError } from '../../plain-words';
 

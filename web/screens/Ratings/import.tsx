@@ -7,7 +7,8 @@ import { Field } from '../../components/Field';
 import { formatQuantity, parseDecimal } from '../../format';
 import { href, navigate } from '../../router';
 import { segmentFormula, unitLabels } from './describe';
-import { NumberField } from './entry';
+import { NumberField } from '../../components/NumberField';
+import { plainFitMessage } from './fit-choice';
 import { plainError } from '../../plain-words';
 import { parseTableCsv, TableCsvError, type ParsedTable } from './table-csv';
 

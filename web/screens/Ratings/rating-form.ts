@@ -3,6 +3,7 @@
 import { displayUnit, fromDisplay, fromLocalInput, toDisplay, toLocalInput, type RatingSegment, type UnitSystem } from '../../../core';
 import { parseDecimal } from '../../format';
 import { coefficientFromSi, coefficientToSi } from './units';
+import type { FieldError } from '../../components/Field/field-error';
 
 /** One segment as typed, in the site's units. */
 export interface SegmentText {
@@ -21,11 +22,6 @@ export interface RatingForm {
   note: string;
 }
 
-/** One refusal: the id of the field it belongs to and the sentence shown there. */
-export interface FieldError {
-  field: string;
-  text: string;
-}
 
 /** What parseRatingForm gives: the rating's fields in SI, or every problem found. */
 export type ParsedRating =

@@ -2,7 +2,7 @@
 // Pure: typed text in, the rating's new list of dated shifts out (or refusals naming the field).
 import { constantShift, fromDisplay, fromLocalInput, type DatedShift, type ShiftCurve, type UnitSystem } from '../../../core';
 import { parseDecimal } from '../../format';
-import type { FieldError } from './rating-form';
+import type { FieldError } from '../../components/Field/field-error';
 
 /** The kinds of shift the form adds. */
 export type ShiftKind = 'constant' | 'stage-variable' | 'prorated';

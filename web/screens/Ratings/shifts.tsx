@@ -4,17 +4,16 @@ import { useMemo, useState } from 'preact/hooks';
 import { dischargeAtTime, toLocalInput, type DatedShift, type RatingRecord, type SiteRecord } from '../../../core';
 import { latestReading, saveRating } from '../../db';
 import { useRecords } from '../../components/use-records';
-import { describedBy, Field } from '../../components/Field';
+import { describedBy, errorOf, Field, type FieldError } from '../../components/Field';
 import { formatQuantity, formatTime } from '../../format';
-import { errorOf } from './entry';
-import type { FieldError } from './rating-form';
 import { blankShiftForm, mergeShifts, parseShiftForm, type ShiftForm, type ShiftKind } from './shift-form';
 import { plainError } from '../../plain-words';
 
-function shiftWords(s: DatedShift, u: SiteRecord['displayUnits']): string {
+/** A shift in words, in parts that never break inside ("0.120 m", "−0.020 m at 0.300 m"). */
+function shiftWords(s: DatedShift, u: SiteRecord['displayUnits']): string[] {
   const pts = s.curve.points;
-  const what = pts.length === 1 ? formatQuantity('stage', pts[0].shift_m, u) : pts.map((p) => `${formatQuantity('stage', p.shift_m, u)} at ${formatQuantity('stage', p.stage_m, u)}`).join(', ');
-  return `${what}${s.toNext === 'prorate' ? ', moving in time to the next' : ''}`;
+  const what = pts.length === 1 ? [formatQuantity('stage', pts[0].shift_m, u)] : pts.map((p) => `${formatQuantity('stage', p.shift_m, u)} at ${formatQuantity('stage', p.stage_m, u)}`);
+  return s.toNext === 'prorate' ? [...what, 'moving in time to the next'] : what;
 }
 
 /** The discharge (m³/s) of a rating, given this list of shifts, at a stage (m) and time (UTC ms) it covers. */
@@ -78,7 +77,9 @@ export function Shifts({ site, rating }: { site: SiteRecord; rating: RatingRecor
         <ul class="list card" aria-label="Dated shifts">
           {rating.shifts.map((s, i) => (
             <li key={s.time_ms} class="item">
-              <span>From {formatTime(s.time_ms, site.timeZone)}<span class="hint">{shiftWords(s, u)}</span></span>
+              <span>From <span class="nowrap">{formatTime(s.time_ms, site.timeZone)}</span>
+                <span class="hint" data-testid="shift-words">{shiftWords(s, u).map((w, k) => <span key={k} class="nowrap">{k > 0 && ', '}{w}</span>)}</span>
+              </span>
               <button type="button" class="danger" aria-label={`Remove the shift from ${formatTime(s.time_ms, site.timeZone)}`} onClick={() => void remove(i)}>Remove</button>
             </li>
           ))}

@@ -1,5 +1,6 @@
 // Sharing a storm: the plot with its figures as a PNG picture and files such as the separated series. The
 // phone's share sheet is used where it takes files (Web Share level 2), a download otherwise.
+import { wrapText } from './picture-layout';
 
 /** Hands a file to the phone's share sheet when it takes files, else downloads it; says which happened. */
 export async function shareOrDownload(file: File): Promise<'shared' | 'downloaded' | 'cancelled'> {
@@ -29,23 +30,39 @@ export async function shareOrDownload(file: File): Promise<'shared' | 'downloade
   return 'downloaded';
 }
 
-/** The picture: a white card with the title and figure lines (CSS px font) above the plot's canvas. */
+/**
+ * The picture: a white card with the title and figure lines (CSS px fonts × ratio) above the plot's
+ * canvas, as wide as the plot plus its margins. Text is wrapped to that width (never cut at the edge),
+ * and the card grows as tall as the wrapped text needs.
+ */
 export function composePicture(plot: HTMLCanvasElement, title: string, lines: readonly string[], ratio: number): HTMLCanvasElement {
   const pad = 12 * ratio;
+  const titleFont = `700 ${16 * ratio}px system-ui, sans-serif`;
+  const lineFont = `${13 * ratio}px system-ui, sans-serif`;
+  const titleH = 21 * ratio;
   const lineH = 18 * ratio;
-  const head = pad + 22 * ratio + lines.length * lineH + pad / 2;
   const out = document.createElement('canvas');
   out.width = plot.width + 2 * pad;
-  out.height = head + plot.height + pad;
   const ctx = out.getContext('2d')!;
+  const max = out.width - 2 * pad;
+  const wrapped = (font: string, texts: readonly string[]) => {
+    ctx.font = font;
+    return texts.flatMap((t) => wrapText(t, max, (x) => ctx.measureText(x).width));
+  };
+  const titleLines = wrapped(titleFont, [title]);
+  const figureLines = wrapped(lineFont, lines);
+  const head = pad + titleLines.length * titleH + ratio + figureLines.length * lineH + pad / 2;
+  // Setting the height clears the canvas and its state, so everything is drawn after it.
+  out.height = Math.ceil(head + plot.height + pad);
   ctx.fillStyle = '#ffffff';
   ctx.fillRect(0, 0, out.width, out.height);
   ctx.fillStyle = '#15191c';
   ctx.textBaseline = 'top';
-  ctx.font = `700 ${16 * ratio}px system-ui, sans-serif`;
-  ctx.fillText(title, pad, pad);
-  ctx.font = `${13 * ratio}px system-ui, sans-serif`;
-  lines.forEach((l, k) => ctx.fillText(l, pad, pad + 22 * ratio + k * lineH));
+  ctx.font = titleFont;
+  titleLines.forEach((l, k) => ctx.fillText(l, pad, pad + k * titleH));
+  ctx.font = lineFont;
+  const below = pad + titleLines.length * titleH + ratio;
+  figureLines.forEach((l, k) => ctx.fillText(l, pad, below + k * lineH));
   ctx.drawImage(plot, pad, head);
   return out;
 }

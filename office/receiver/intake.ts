@@ -7,7 +7,7 @@ import { Refusal } from './refusal';
 /** Longest a push may take to send its body, ms (a phone on a slow link sends 16 MiB in well under this). */
 export const BODY_READ_LIMIT_MS = 120_000;
 /** Most connections the receiver holds open at once; further ones are closed at once (the phone retries). */
-export const DEFAULT_MAX_CONNECTIONS = 128;
+export const DEFAULT_MAX_CONNECTIONS = 256;
 /** How many bundles of the largest size may be held in memory at once (the byte budget is this × the limit). */
 export const BODY_BUDGET_BUNDLES = 4;
 /** Seconds a phone is asked to wait when the body budget is full. */

@@ -80,8 +80,13 @@ export const MIGRATIONS: readonly string[] = [
 
 /** Brings the database's schema up to the latest step; returns the step numbers it applied. */
 export async function migrate(db: Database): Promise<number[]> {
-  await db.exec(`create table if not exists office_migrations (
-    version integer primary key, applied_at timestamptz not null default now())`);
+  // Under the same lock as the steps: two receivers starting at once on a new server would otherwise both
+  // create the table, and one of them fail on the catalogue's unique key.
+  await db.transaction(async (tx) => {
+    await tx.query('select pg_advisory_xact_lock($1)', [MIGRATION_LOCK]);
+    await tx.query(`create table if not exists office_migrations (
+      version integer primary key, applied_at timestamptz not null default now())`);
+  });
   const applied: number[] = [];
   for (let i = 0; i < MIGRATIONS.length; i++) {
     const version = i + 1;

@@ -33,7 +33,11 @@ if (skipWithoutPostgres('receiver-two.test.ts')) {
     beforeAll(async () => {
       made = await throwawayDatabase('freshet_two');
       // Both processes migrate the new database at once (the migration lock lets one do it).
-      receivers.push(...(await Promise.all(PORTS.map((port) => startReceiverChild(['--database', made.url], port)))));
+      // Each one that started is kept for afterAll to stop, even when the other failed to start.
+      const started = await Promise.allSettled(PORTS.map((port) => startReceiverChild(['--database', made.url], port)));
+      for (const s of started) if (s.status === 'fulfilled') receivers.push(s.value);
+      const failed = started.find((s) => s.status === 'rejected');
+      if (failed) throw failed.reason;
       db = await openOfficeDatabase({ database: made.url });
     }, 120_000);
 

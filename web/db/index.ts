@@ -9,7 +9,7 @@ export { saveSite, getSite, deleteSite, listSites } from './sites';
 export { getReading, listReadings, latestReading, latestReadings, readingBefore } from './readings';
 export { saveReading, deleteReading, restoreReading, importReadings, type ImportProgress } from './readings-write';
 export { readingsWithDischarge, seriesWithDischarge, stageRecordIn, type SeriesWithDischarge } from './discharge-read';
-export { latestStageTime, readingSeries, type ReadingSeries } from './series-read';
+export { latestStageTime } from './series-read';
 export type { ReadingWithDischarge } from '../../core/readings/index';
 export { importLoggerRecord, type LoggerImportResult } from './logger-days';
 export { saveGauging, getGauging, deleteGauging, listGaugings } from './gaugings';

@@ -7,7 +7,8 @@
 import { MIN_BUNDLE_BYTES, type SyncKind, type SyncRecord } from '../../core/index';
 import { withDb } from './connection';
 import { now_ms } from './clock';
-import { bundleBytes, markOf, mib } from './outbox';
+import { bundleBytes, markOf, mib, removeOutboxEntryInTx } from './outbox';
+import { putSyncInTx } from './sync-store';
 import { withSetAside, type OutboxLimits, type SetAsideEntry } from './outbox-state';
 import type { OutboxEntry } from './schema';
 import { STORE_OF_KIND, SYNCED_STORES } from './stores';
@@ -33,8 +34,8 @@ async function settle(id: string, change: (entry: OutboxEntry, limits: OutboxLim
       return false;
     }
     const next = change(entry, (limits ?? {}) as OutboxLimits);
-    const writes: Promise<unknown>[] = [tx.objectStore('outbox').delete(id), sync.put(next.limits, 'outboxLimits')];
-    if (next.aside) writes.push(sync.put(withSetAside(aside as SetAsideEntry[] | undefined, [next.aside]), 'setAside'));
+    const writes: Promise<unknown>[] = [removeOutboxEntryInTx(tx, id), putSyncInTx(tx, 'outboxLimits', next.limits)];
+    if (next.aside) writes.push(putSyncInTx(tx, 'setAside', withSetAside(aside as SetAsideEntry[] | undefined, [next.aside])));
     await Promise.all([...writes, tx.done]);
     return true;
   });
@@ -88,7 +89,7 @@ export async function noteStatedLimit(limit_bytes: number): Promise<void> {
   await withDb(async (db) => {
     const tx = db.transaction('sync', 'readwrite');
     const limits = ((await tx.store.get('outboxLimits')) ?? {}) as OutboxLimits;
-    if (limits.stated_bytes !== limit_bytes) void tx.store.put({ ...limits, stated_bytes: limit_bytes }, 'outboxLimits');
+    if (limits.stated_bytes !== limit_bytes) void putSyncInTx(tx, 'outboxLimits', { ...limits, stated_bytes: limit_bytes });
     await tx.done;
   });
 }
@@ -117,7 +118,7 @@ export async function dropSetAside(mark: string): Promise<void> {
     const tx = db.transaction('sync', 'readwrite');
     const entries = ((await tx.store.get('setAside')) ?? []) as SetAsideEntry[];
     const next = entries.map((e) => (e.mark === mark && !e.dropped ? { ...e, dropped: { at_ms: at, because: 'chosen' as const } } : e));
-    await Promise.all([tx.store.put(next, 'setAside'), tx.done]);
+    await Promise.all([putSyncInTx(tx, 'setAside', next), tx.done]);
   });
   notifySyncChanged();
 }

@@ -157,7 +157,7 @@ export async function nextOutgoing(): Promise<OutboxEntry | undefined> {
     if (made.refused.length) {
       // Merged with the list as it is now (another tab may have added to it since it was read).
       const sync = tx.objectStore('sync');
-      void sync.get('setAside').then((now) => sync.put(withSetAside(now as SetAsideEntry[] | undefined, made.refused), 'setAside'));
+      void sync.get('setAside').then((now) => putSyncInTx(tx, 'setAside', withSetAside(now as SetAsideEntry[] | undefined, made.refused)));
     }
     const other = await outbox.index('by-created').openCursor();
     if (other || !made.entry) {
@@ -273,4 +273,9 @@ export async function markExported(through: string | undefined): Promise<void> {
     ]);
   });
   notifySyncChanged();
+}
+
+/** Removes one waiting bundle inside a caller's transaction (the outbox's refusal rules settle it). */
+export function removeOutboxEntryInTx(tx: { objectStore(name: 'outbox'): { delete(key: string): Promise<unknown> } }, id: string): Promise<unknown> {
+  return tx.objectStore('outbox').delete(id);
 }

@@ -5,7 +5,7 @@ import type { SiteRecord, SyncRecord } from '../../../core';
 import { dropSetAside, listSetAside, onSyncChanged, syncedVersion, type SetAsideView } from '../../db';
 import { useRecords } from '../../components/use-records';
 import { formatAgo } from '../../format';
-import { INTERNAL_WORDS } from '../../plain-words';
+import { INTERNAL_WORDS, plainError } from '../../plain-words';
 import { href } from '../../router';
 import { describeVersion, KIND_WORDS } from './describe';
 
@@ -46,7 +46,7 @@ function Item({ v, version, sites }: { v: SetAsideView; version: SyncRecord | un
         <div class="callout" role="group" aria-label="Not sending this version">
           <p>Not send this version? It stays on this phone and in its exports; only the office will not get it. A later edit is sent as usual.</p>
           <div class="row">
-            <button type="button" onClick={() => dropSetAside(v.mark).catch((e: unknown) => setError((e as Error).message))}>Yes, do not send it</button>
+            <button type="button" onClick={() => dropSetAside(v.mark).catch((e: unknown) => setError(plainError(e, { doing: 'save', fallback: 'the choice could not be stored on this phone.' })))}>Yes, do not send it</button>
             <button type="button" onClick={() => setAsking(false)}>Keep it here for now</button>
           </div>
         </div>

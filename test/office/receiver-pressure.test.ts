@@ -6,6 +6,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { existsSync } from 'node:fs';
 import { afterAll, expect, it } from 'vitest';
 import type { Bundle } from '../../core/index';
 import { run } from '../../office/cli/index';
@@ -87,3 +88,13 @@ it('answers pushes beyond the cap with 503 and Retry-After at once, stores nothi
     await db.close();
   }
 }, 300_000);
+
+it('refuses a cap that is not a whole number of pushes from 1, before opening anything', async () => {
+  for (const bad of ['0', '2.5', 'many', '10001']) {
+    let err = '';
+    const code = await run(['office', '--data', join(dir, 'never-made'), '--max-pushes', bad], { stdout: () => {}, stderr: (s) => (err += s), cwd: process.cwd() });
+    expect(code).toBe(1);
+    expect(err).toContain(`--max-pushes needs a whole number of pushes from 1 to 10000; got ${bad}`);
+  }
+  expect(existsSync(join(dir, 'never-made'))).toBe(false);
+});

@@ -36,6 +36,6 @@ export {
 export { bundleBytes } from './outbox';
 export { dropSetAside, listSetAside, noteStatedLimit, refusedAsTooLarge, searchRefused, setAsideRefused, type SetAsideView } from './outbox-refusals';
 export type { OutboxLimits, SetAsideEntry } from './outbox-state';
-export { getSyncValue, setSyncValue, updateSyncStatus } from './sync-store';
+export { getSyncValue, noteSyncProblem, setSyncValue, updateSyncStatus } from './sync-store';
 export { onSyncChanged } from './sync-events';
 export type { OutboxEntry, SyncKey, SyncProblem, SyncSettings, SyncStatusRecord, SyncValues } from './schema';

@@ -3,12 +3,12 @@
 // fires while a page is open. Each trigger only starts a run; the outbox in IndexedDB holds the data.
 import { onRecordsChanged } from '../db';
 import { syncNow } from './engine';
-import { SYNC_NOW_MESSAGE } from './push';
+import { SYNC_NOW_MESSAGE } from './names';
 
 /** Quiet time after a record change before a run starts, ms (several saves in a row go together). */
 export const AFTER_CHANGE_MS = 3000;
 
-/** Message the service worker posts to open pages when Background Sync fires (declared in push.ts). */
+/** Message the service worker posts to open pages when Background Sync fires (declared in names.ts). */
 export { SYNC_NOW_MESSAGE };
 
 /** Starts the automatic triggers. */

@@ -21,6 +21,6 @@ export { settleConflict } from './conflicts';
 export { applyIncoming, previewIncoming, syncedVersion, type IncomingResult } from './sync-merge';
 export { acknowledge, exportBundle, markExported, nextOutgoing, noteAttempt, waitingCount } from './outbox';
 export { dropSetAside, listSetAside, searchRefused, type SetAsideView } from './outbox-refusals';
-export { getSyncValue, setSyncValue, updateSyncStatus } from './sync-store';
+export { getSyncValue, noteSyncProblem, setSyncValue, updateSyncStatus } from './sync-store';
 export { onSyncChanged } from './sync-events';
 export type { SyncSettings, SyncStatusRecord } from './schema';

@@ -37,3 +37,8 @@ export async function updateSyncStatus(change: (s: SyncStatusRecord) => SyncStat
   notifySyncChanged();
   return next;
 }
+
+/** Records a failed exchange in the sync status, in words for the Sync screen (UTC ms now). */
+export async function noteSyncProblem(problem: { message: string; kind: 'retry' | 'fix' }): Promise<void> {
+  await updateSyncStatus((s) => ({ ...s, lastProblem: { message: problem.message, kind: problem.kind, at_ms: Date.now() } }));
+}

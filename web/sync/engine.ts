@@ -5,13 +5,14 @@
 // waits and asks the service worker's Background Sync to trigger one when the network returns; a failure
 // the user must fix (token, address) stops until the settings change or the user asks again.
 import { retryDelay_ms, type PushOutcome } from '../../core';
-import { applyIncoming, getSyncValue, updateSyncStatus, type SyncStatusRecord } from '../db';
+import { applyIncoming, getSyncValue, noteSyncProblem, updateSyncStatus, type SyncStatusRecord } from '../db';
 import { createStore } from '../store';
 import { pullBundles } from './http';
-import { noteProblem, PUSH_TAG, pushWaiting } from './push';
+import { PUSH_TAG } from './names';
+import { pushWaiting } from './push';
 import { loadSettings } from './settings';
 
-/** The tag the page registers for Background Sync; the service worker answers it (declared in push.ts). */
+/** The tag the page registers for Background Sync; the service worker answers it (declared in names.ts). */
 export { PUSH_TAG };
 
 /** How a run ended: nothing set up, everything done, or stopped on a problem (retry or fix). */
@@ -75,7 +76,7 @@ async function runOnce(): Promise<RunResult> {
 }
 
 async function stop(outcome: Exclude<PushOutcome, { kind: 'delivered' }>, attempts: number, noted = false): Promise<RunResult> {
-  if (!noted) await noteProblem(outcome);
+  if (!noted) await noteSyncProblem(outcome);
   if (outcome.kind === 'retry') {
     // ±20 % spread so many phones coming back at once do not knock together.
     const wait = outcome.after_ms ?? retryDelay_ms(attempts) * (0.8 + 0.4 * Math.random());

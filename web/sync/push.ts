@@ -7,7 +7,7 @@ import { readRefusal, statedLimit_bytes, type PushOutcome } from '../../core/ind
 // Module by module, not web/db's index: the service worker's build has no DOM, and the index holds hooks.
 import { acknowledge, nextOutgoing, noteAttempt } from '../db/outbox';
 import { noteStatedLimit, refusedAsTooLarge, searchRefused, setAsideRefused } from '../db/outbox-refusals';
-import { getSyncValue, updateSyncStatus } from '../db/sync-store';
+import { getSyncValue, noteSyncProblem } from '../db/sync-store';
 import type { SyncSettings } from '../db/schema';
 import { pushAnswer } from './http';
 
@@ -48,7 +48,7 @@ export async function pushWaiting(settings: SyncSettings): Promise<PushRun> {
       continue;
     }
     await noteAttempt(entry.id, Date.now());
-    await noteProblem(answer.outcome);
+    await noteSyncProblem(answer.outcome);
     return { kind: 'stopped', outcome: answer.outcome, attempts: entry.attempts + 1, sent };
   }
 }
@@ -56,9 +56,4 @@ export async function pushWaiting(settings: SyncSettings): Promise<PushRun> {
 /** The stored office endpoint, or undefined (read here so the service worker needs no page module). */
 export async function storedSettings(): Promise<SyncSettings | undefined> {
   return getSyncValue('settings');
-}
-
-/** Records a failed exchange in the sync status, in words for the Sync screen. */
-export async function noteProblem(outcome: Exclude<PushOutcome, { kind: 'delivered' }>): Promise<void> {
-  await updateSyncStatus((s) => ({ ...s, lastProblem: { message: outcome.message, kind: outcome.kind, at_ms: Date.now() } }));
 }

@@ -1,7 +1,7 @@
 // The key points as large handles on the plot: drag with a finger or a mouse, arrow keys move the focused
 // handle one reading a step; the plain name shows while a handle is dragged or has keyboard focus. Where
 // two would overlap one moves aside (handle-layout.ts) and a stem joins it to its point.
-import { useState } from 'preact/hooks';
+import { useRef, useState } from 'preact/hooks';
 import type { EventPoints } from '../../../core';
 import type { PlotGeometry } from '../../components/Plot';
 import { formatTime } from '../../format';
@@ -26,6 +26,9 @@ const LETTERS: Record<KeyPoint, string> = { riseStart_ms: 'R', peak_ms: 'P', inf
 /** Four handles positioned over the plot, each wholly inside it and never over another. */
 export function KeyPointHandles({ geometry, points, time_ms, y, timeZone, onMove, onStep }: HandlesProps) {
   const [active, setActive] = useState<KeyPoint>();
+  // How far (CSS px) the finger is from the point it holds: a handle set aside from its point moves the
+  // point by as much as the finger moves, never jumping to where the finger is.
+  const grab = useRef(0);
   const { area } = geometry;
   const shown = KEY_ORDER.map((key) => ({ key, x: geometry.xToPx(points[key]), i: nearestIndex(time_ms, points[key]) }))
     .filter((h) => Number.isFinite(h.x) && h.x >= area.left - 1 && h.x <= area.left + area.width + 1);
@@ -37,7 +40,7 @@ export function KeyPointHandles({ geometry, points, time_ms, y, timeZone, onMove
           {spots.map((p) => (p.x !== p.pointX || p.y !== p.pointY) && <line key={p.key} x1={p.pointX} y1={p.pointY} x2={p.x} y2={p.y} />)}
         </svg>
       )}
-      {spots.map(({ key, x: left, y: top }) => {
+      {spots.map(({ key, x: left, y: top, pointX }) => {
         const t = points[key];
         const i = shown.find((h) => h.key === key)!.i;
         const when = formatTime(t, timeZone);
@@ -49,6 +52,7 @@ export function KeyPointHandles({ geometry, points, time_ms, y, timeZone, onMove
             role="slider"
             class={`key-handle${active === key ? ' active' : ''}${place}`}
             data-handle={key}
+            data-point-x={pointX.toFixed(1)}
             style={{ left: `${left}px`, top: `${top}px` }}
             aria-label={KEY_NAMES[key]}
             aria-valuemin={0}
@@ -59,13 +63,14 @@ export function KeyPointHandles({ geometry, points, time_ms, y, timeZone, onMove
               e.stopPropagation();
               e.currentTarget.setPointerCapture?.(e.pointerId);
               e.currentTarget.focus({ preventScroll: true });
+              grab.current = pointX - (e.clientX - e.currentTarget.parentElement!.getBoundingClientRect().left);
               setActive(key);
             }}
             onPointerMove={(e) => {
               if (active !== key) return;
               e.stopPropagation();
               const box = e.currentTarget.parentElement!.getBoundingClientRect();
-              onMove(key, geometry.pxToX(e.clientX - box.left));
+              onMove(key, geometry.pxToX(e.clientX - box.left + grab.current));
             }}
             // The name shows while the finger is down (and for keyboard focus), never after the drag.
             onPointerUp={() => setActive(undefined)}

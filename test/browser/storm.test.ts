@@ -256,13 +256,10 @@ describe('storm screen on the demo site, offline', () => {
     // Two fingers moving apart between the rise start and the peak spread those two handles apart on screen.
     const rise = page.locator('[data-handle="riseStart_ms"]');
     const peak = page.locator('[data-handle="peak_ms"]');
-    // Measured at the points the handles stand for (a handle may sit aside from its point so none overlap).
-    const pointX = async (h: Locator) => Number(await h.getAttribute('data-point-x'));
-    const gap = async () => (await pointX(peak)) - (await pointX(rise));
+    const gap = async () => (await centre(peak)).x - (await centre(rise)).x;
     const before = await gap();
     const cdp = await page.context().newCDPSession(page);
-    const overlayLeft = (await page.locator('.storm-plot .plot-box').boundingBox())!.x;
-    const mid = { x: overlayLeft + ((await pointX(rise)) + (await pointX(peak))) / 2, y: box.y + box.height / 2 };
+    const mid = { x: ((await centre(rise)).x + (await centre(peak)).x) / 2, y: box.y + box.height / 2 };
     const fingers = (d: number) => [
       { x: mid.x - d, y: mid.y, id: 1 },
       { x: mid.x + d, y: mid.y, id: 2 },

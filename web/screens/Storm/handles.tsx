@@ -1,12 +1,10 @@
 // The key points as large handles on the plot: drag with a finger or a mouse, arrow keys move the focused
-// handle one reading a step; the plain name shows while a handle is dragged or has keyboard focus. Where
-// two would overlap one moves aside (handle-layout.ts) and a stem joins it to its point.
+// handle one reading a step; the plain name shows while a handle is dragged or has keyboard focus.
 import { useState } from 'preact/hooks';
 import type { EventPoints } from '../../../core';
 import type { PlotGeometry } from '../../components/Plot';
 import { formatTime } from '../../format';
 import { clockLabel, dayLabel } from '../../components/Plot/time-axis';
-import { placeHandles } from './handle-layout';
 import { KEY_NAMES, KEY_ORDER, nearestIndex, type KeyPoint } from './key-point-order';
 
 /** Props: the plot's geometry, the points (UTC ms), the series (times, y in display units) and callbacks. */
@@ -23,33 +21,29 @@ export interface HandlesProps {
 
 const LETTERS: Record<KeyPoint, string> = { riseStart_ms: 'R', peak_ms: 'P', inflection_ms: 'I', runoffEnd_ms: 'E' };
 
-/** Four handles positioned over the plot, each wholly inside it and never over another. */
+/** Four handles positioned over the plot. */
 export function KeyPointHandles({ geometry, points, time_ms, y, timeZone, onMove, onStep }: HandlesProps) {
   const [active, setActive] = useState<KeyPoint>();
   const { area } = geometry;
-  const shown = KEY_ORDER.map((key) => ({ key, x: geometry.xToPx(points[key]), i: nearestIndex(time_ms, points[key]) }))
-    .filter((h) => Number.isFinite(h.x) && h.x >= area.left - 1 && h.x <= area.left + area.width + 1);
-  const spots = placeHandles(shown.map((h) => ({ key: h.key, x: h.x, y: geometry.yToPx(y[h.i]) })), area);
   return (
     <>
-      {spots.some((p) => p.x !== p.pointX || p.y !== p.pointY) && (
-        <svg class="key-stems" aria-hidden="true" width="100%" height="100%">
-          {spots.map((p) => (p.x !== p.pointX || p.y !== p.pointY) && <line key={p.key} x1={p.pointX} y1={p.pointY} x2={p.x} y2={p.y} />)}
-        </svg>
-      )}
-      {spots.map(({ key, x: left, y: top }) => {
+      {KEY_ORDER.map((key) => {
         const t = points[key];
-        const i = shown.find((h) => h.key === key)!.i;
+        const i = nearestIndex(time_ms, t);
+        const left = geometry.xToPx(t);
+        const top = geometry.yToPx(y[i]);
+        if (!Number.isFinite(left) || left < area.left - 1 || left > area.left + area.width + 1) return null;
+        // The whole 44 px target stays inside the plot (a peak at the top is not cut off).
+        const clampedTop = Math.max(area.top + 22, Math.min(area.top + area.height - 22, Number.isFinite(top) ? top : area.top + area.height));
         const when = formatTime(t, timeZone);
-        const place = `${left > area.left + area.width / 2 ? ' name-left' : ''}${top < area.top + area.height / 2 ? ' name-below' : ''}`;
         return (
           <button
             key={key}
             type="button"
             role="slider"
-            class={`key-handle${active === key ? ' active' : ''}${place}`}
+            class={`key-handle${active === key ? ' active' : ''}${left > area.left + area.width / 2 ? ' name-left' : ''}`}
             data-handle={key}
-            style={{ left: `${left}px`, top: `${top}px` }}
+            style={{ left: `${left}px`, top: `${clampedTop}px` }}
             aria-label={KEY_NAMES[key]}
             aria-valuemin={0}
             aria-valuemax={time_ms.length - 1}
@@ -67,7 +61,6 @@ export function KeyPointHandles({ geometry, points, time_ms, y, timeZone, onMove
               const box = e.currentTarget.parentElement!.getBoundingClientRect();
               onMove(key, geometry.pxToX(e.clientX - box.left));
             }}
-            // The name shows while the finger is down (and for keyboard focus), never after the drag.
             onPointerUp={() => setActive(undefined)}
             onPointerCancel={() => setActive(undefined)}
             onKeyDown={(e) => {

@@ -3,7 +3,6 @@
 import { useState } from 'preact/hooks';
 import type { ScreenProps } from '../../router';
 import { useRecords } from '../../components/use-records';
-import { loadDemoSite } from '../../app/demo';
 import { listSites, readingsWithDischarge, latestReadings, type ReadingWithDischarge } from '../../db';
 import { formatAgo, formatQuantity } from '../../format';
 import { href, navigate } from '../../router';

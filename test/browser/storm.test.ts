@@ -13,6 +13,10 @@ import {
   findStorms,
   demoScenario,
   dischargeAt,
+  dischargeThrough,
+  joinStageRecord,
+  seriesFromReadings,
+  spotSeriesOf,
   findEventPoints,
   fromLocalInput,
   methodWithDefaults,
@@ -54,19 +58,21 @@ function numberIn(text: string): number {
 const shownVolume = (v: number) => `${Math.round(v).toLocaleString('en')} m³`;
 
 /**
- * The storm in Node: the demo's readings in the window the screen shows (read from its minute fields), one
- * reading per time (every demo staff check shares its minute with a logger reading, so the logger readings
- * are the series), discharge through the demo rating (no shifts), the core's key points.
+ * The storm in Node: the demo's stage record in the window the screen shows (read from its minute fields),
+ * joined by core as the phone joins it (spot readings and logger days, core's joinStageRecord), discharge
+ * through the demo rating in force (core's dischargeThrough), one discharge per time (core's
+ * seriesFromReadings: the logger wins at a shared time), the core's key points.
  */
 async function stormInNode(latest_ms: number) {
   const from_ms = fromLocalInput(await page.locator('#storm-from').inputValue(), ZONE);
   const to_ms = fromLocalInput(await page.locator('#storm-to').inputValue(), ZONE);
-  const rating = demoRating();
-  const all = demoLoggerRecord(demoScenario(latest_ms));
-  const times = Array.from(all.time_ms);
-  const inWindow = times.map((t, i) => i).filter((i) => times[i] >= from_ms && times[i] <= to_ms);
-  const series = { time_ms: inWindow.map((i) => times[i]), discharge_m3s: inWindow.map((i) => dischargeAt(rating, all.stage_m[i])) };
-  const area_km2 = demoScenario(latest_ms).site.area_km2!;
+  const scenario = demoScenario(latest_ms);
+  const record = joinStageRecord(spotSeriesOf(scenario.readings).spots, scenario.loggerDays, from_ms, to_ms);
+  const q = dischargeThrough([scenario.rating], record.time_ms, record.stage_m);
+  const made = seriesFromReadings({ time_ms: record.time_ms, discharge_m3s: q.discharge_m3s, source: record.source, extrapolated: q.extrapolated });
+  if (made.kind !== 'ready') throw new Error(`the demo window made no series in Node (${made.kind})`);
+  const series = { time_ms: Array.from(made.series.time_ms), discharge_m3s: Array.from(made.series.discharge_m3s) };
+  const area_km2 = scenario.site.area_km2!;
   const found = findEventPoints(series, { area_km2 });
   const figures = (method: SeparationMethod, points: EventPoints = found, rainfall_mm?: number) => {
     const { baseflow, baseflowAtPoints } = separateBaseflowDetailed(series, method, { points, area_km2 });

@@ -33,8 +33,7 @@ export function KeyPointHandles({ geometry, points, time_ms, y, timeZone, onMove
         const left = geometry.xToPx(t);
         const top = geometry.yToPx(y[i]);
         if (!Number.isFinite(left) || left < area.left - 1 || left > area.left + area.width + 1) return null;
-        // The whole 44 px target stays inside the plot (a peak at the top is not cut off).
-        const clampedTop = Math.max(area.top + 22, Math.min(area.top + area.height - 22, Number.isFinite(top) ? top : area.top + area.height));
+        const clampedTop = Math.max(area.top, Math.min(area.top + area.height, Number.isFinite(top) ? top : area.top + area.height));
         const when = formatTime(t, timeZone);
         return (
           <button

@@ -23,12 +23,15 @@ const DAY_MS = 86_400_000;
 /** The window shown when no storm is found: this many days up to the latest reading. */
 const FALLBACK_WINDOW_DAYS = 14;
 
+/** The first whole minute at or after t_ms (UTC ms): window ends the minute fields show exactly. */
+const wholeMinuteAfter = (t_ms: number): number => Math.ceil(t_ms / 60_000) * 60_000;
+
 /** A window widened about its middle to at least need_days, ending no later than last_ms. */
 function widened(win: TimeWindow, need_days: number | undefined, last_ms: number): TimeWindow {
   if (need_days === undefined || win.to_ms - win.from_ms >= need_days * DAY_MS) return win;
   const mid = (win.from_ms + win.to_ms) / 2;
-  // Whole minutes, as the window fields show it.
-  const to_ms = Math.min(last_ms, Math.ceil(Math.max(win.to_ms, mid + (need_days * DAY_MS) / 2) / 60_000) * 60_000);
+  // Whole minutes, as the window fields show it (the last reading's own minute, rounded up, as the end).
+  const to_ms = Math.min(wholeMinuteAfter(last_ms), wholeMinuteAfter(Math.max(win.to_ms, mid + (need_days * DAY_MS) / 2)));
   return { from_ms: to_ms - need_days * DAY_MS, to_ms };
 }
 
@@ -71,7 +74,7 @@ export function SiteStorm({ site }: { site: SiteRecord }) {
     if (draft.window) return draft.window;
     if (last_ms === undefined || !searchMade) return undefined;
     if (storms && storms.length > 0) return storms[0].window;
-    return { from_ms: last_ms - FALLBACK_WINDOW_DAYS * DAY_MS, to_ms: last_ms };
+    return { from_ms: wholeMinuteAfter(last_ms) - FALLBACK_WINDOW_DAYS * DAY_MS, to_ms: wholeMinuteAfter(last_ms) };
   }, [draft.window, last_ms, searchMade, storms]);
   const need_days = usesMinima(draft.method.kind) ? minimaWindow_days(draft.method.kind, area) : undefined;
   const win = baseWindow && last_ms !== undefined ? widened(baseWindow, need_days, last_ms) : baseWindow;

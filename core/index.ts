@@ -1,5 +1,6 @@
 // The public surface of the hydrometry core: pure functions on plain data (no DOM, no I/O, no clock).
 export * from './units';
+export { sortedIndex } from './sorted';
 export * from './rating/index';
 export * from './gauging/index';
 export * from './hydrograph/index';

@@ -1,4 +1,5 @@
 // A weighted local polynomial fit (tricube weights) giving the smoothed slope and curvature of a record at any time.
+import { sortedIndex } from '../sorted';
 
 /** Slope (m³/s per ms) and curvature (m³/s per ms²) of a local polynomial fit centred on a time. */
 export interface LocalShape {
@@ -38,7 +39,7 @@ export function localPolynomial(
 }
 
 function fitWithin(t: Float64Array, q: Float64Array, at: number, h: number): LocalShape | null {
-  const lo = lowerBound(t, at - h);
+  const lo = sortedIndex(t, at - h);
   let count = 0;
   M.fill(0);
   R.fill(0);
@@ -92,13 +93,3 @@ function solve(): boolean {
   return true;
 }
 
-function lowerBound(t: Float64Array, x: number): number {
-  let lo = 0;
-  let hi = t.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (t[mid] < x) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}

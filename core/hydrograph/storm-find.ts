@@ -10,6 +10,7 @@ import { usesKeyPoints, type SeparationMethod } from './methods';
 import { separateBaseflowDetailed } from './separate';
 import { summarizeEvent } from './summary';
 import type { EventPoints } from './series';
+import { sortedIndex } from '../sorted';
 
 /** A discharge record: times (UTC ms, ascending) and discharges (m³/s), as typed arrays. */
 export interface StormSearchSeries {
@@ -77,18 +78,6 @@ function sub(s: StormSearchSeries, a: number, b: number): StormSearchSeries {
   return { time_ms: s.time_ms.subarray(a, b), discharge_m3s: s.discharge_m3s.subarray(a, b) };
 }
 
-/** First index with t ≥ x (or > x when after). */
-function bound(t: Float64Array, x: number, after: boolean): number {
-  let lo = 0;
-  let hi = t.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (t[mid] < x || (after && t[mid] === x)) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}
-
 /** Key points of a series, or undefined where the core finds no storm (a RangeError). */
 function pointsOf(s: StormSearchSeries, area_km2: number | undefined): EventPoints | undefined {
   try {
@@ -135,19 +124,19 @@ export function findStorms(series: StormSearchSeries, options: { area_km2?: numb
       if (b - a < MIN_STORM_READINGS) continue;
       const p = pointsOf(sub(series, a, b), area_km2);
       if (!p) continue;
-      const rise = a + Math.min(b - a - 1, bound(series.time_ms.subarray(a, b), p.riseStart_ms, false));
-      const end = a + Math.min(b - a - 1, bound(series.time_ms.subarray(a, b), p.runoffEnd_ms, false));
-      const peak = a + Math.min(b - a - 1, bound(series.time_ms.subarray(a, b), p.peak_ms, false));
+      const rise = a + Math.min(b - a - 1, sortedIndex(series.time_ms.subarray(a, b), p.riseStart_ms, false));
+      const end = a + Math.min(b - a - 1, sortedIndex(series.time_ms.subarray(a, b), p.runoffEnd_ms, false));
+      const peak = a + Math.min(b - a - 1, sortedIndex(series.time_ms.subarray(a, b), p.peak_ms, false));
       parts.push([a, rise]);
       parts.push([end + 1, b]);
       if (!(series.discharge_m3s[peak] >= STORM_PEAK_RATIO * series.discharge_m3s[rise]) || end <= rise) continue;
       const window = stormWindow(p, area_km2, stretch);
-      const wa = bound(series.time_ms, window.from_ms, false);
-      const wb = bound(series.time_ms, window.to_ms, true);
+      const wa = sortedIndex(series.time_ms, window.from_ms, false);
+      const wb = sortedIndex(series.time_ms, window.to_ms, true);
       const f = figures(sub(series, wa, wb), method, area_km2);
       if (!f) continue;
       const q = series.discharge_m3s.subarray(wa, wb);
-      const at = bound(series.time_ms.subarray(wa, wb), f.points.peak_ms, false);
+      const at = sortedIndex(series.time_ms.subarray(wa, wb), f.points.peak_ms, false);
       found.push({
         points: f.points, window, peak_m3s: q[Math.min(at, q.length - 1)],
         duration_days: (f.points.runoffEnd_ms - f.points.riseStart_ms) / DAY_MS,

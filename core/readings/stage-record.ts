@@ -3,6 +3,7 @@
 // storm finding and analysis, the phone's and the office's exports). Typed arrays, no object per value.
 import type { LoggerDayBody } from '../records/index';
 import { READING_SOURCE_CODES } from '../records/source-codes';
+import { sortedIndex } from '../sorted';
 
 /** Milliseconds in a UTC day (the width of a logger-day record). */
 const DAY_MS = 86_400_000;
@@ -33,16 +34,6 @@ export interface StageRecord {
   spot: Int32Array;
   /** Index of the logger day (in the days given) a logger value comes from, or -1 for a spot reading. */
   day: Int32Array;
-}
-
-/** First index of t (ascending) with t[i] ≥ x, or > x when `after`. */
-function bound(t: ArrayLike<number>, x: number, after: boolean, lo = 0, hi = t.length): number {
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (t[mid] < x || (after && t[mid] === x)) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
 }
 
 interface LoggerPart {
@@ -79,8 +70,8 @@ function loggerPart(days: readonly StageLoggerDay[], from_ms: number, to_ms: num
       const i = order[m];
       const d = days[i];
       const start = d.day * DAY_MS;
-      const a = bound(d.offset_ms, from_ms - start, false);
-      const b = bound(d.offset_ms, to_ms - start, true);
+      const a = sortedIndex(d.offset_ms, from_ms - start, false);
+      const b = sortedIndex(d.offset_ms, to_ms - start, true);
       const firstOfRecord = out.n;
       for (let k = a; k < b; k++) {
         const t = start + d.offset_ms[k];
@@ -101,7 +92,7 @@ function loggerPart(days: readonly StageLoggerDay[], from_ms: number, to_ms: num
 
 /** Whether out holds time t among its entries from..to (ascending there). */
 function held(out: LoggerPart, from: number, to: number, t: number): boolean {
-  const at = bound(out.time_ms, t, false, from, to);
+  const at = sortedIndex(out.time_ms, t, false, from, to);
   return at < to && out.time_ms[at] === t;
 }
 
@@ -141,8 +132,8 @@ export function joinStageRecord(spots: SpotSeries, days: readonly StageLoggerDay
   for (let i = 1; i < st.length; i++) {
     if (!(st[i] >= st[i - 1])) throw new RangeError(`joinStageRecord needs spot readings in time order; reading ${i} is earlier than the one before`);
   }
-  const sa = bound(st, from_ms, false);
-  const sb = bound(st, to_ms, true);
+  const sa = sortedIndex(st, from_ms, false);
+  const sb = sortedIndex(st, to_ms, true);
   const logger = loggerPart(days, from_ms, to_ms);
   const n = sb - sa + logger.n;
   const out: StageRecord = {

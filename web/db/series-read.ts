@@ -4,9 +4,10 @@
 import type { SeriesChunk } from './schema';
 import { withDb } from './connection';
 import { dayOf } from './series-edit';
-import { joinStageRecord, type LoggerDayRecord, type StageRecord } from '../../core/index';
+import { joinStageRecord, sortedIndex, type LoggerDayRecord, type StageRecord } from '../../core/index';
 import { now_ms } from './clock';
 import { latestReading, LATEST_AHEAD_MS } from './readings';
+
 
 /**
  * The stage record of a window as parallel arrays: times (UTC ms, ascending), stages (m; logger values
@@ -32,21 +33,9 @@ export function chunkRange(siteId: string, from_ms: number, to_ms: number): IDBK
   return IDBKeyRange.bound([siteId, dayOf(from_ms)], [siteId, dayOf(to_ms)]);
 }
 
-/** First index in t (ascending) whose value is ≥ x (or > x when `after`). */
-function bound(t: Float64Array, x: number, after: boolean): number {
-  let lo = 0;
-  let hi = t.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (t[mid] < x || (after && t[mid] === x)) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}
-
 /** The spot readings of day chunks (in day order) with from_ms ≤ time_ms ≤ to_ms as one series. */
 export function joinChunks(chunks: readonly SeriesChunk[], from_ms: number, to_ms: number): Pick<ReadingSeries, 'time_ms' | 'stage_m' | 'source'> {
-  const spans = chunks.map((c) => [bound(c.time_ms, from_ms, false), bound(c.time_ms, to_ms, true)] as const);
+  const spans = chunks.map((c) => [sortedIndex(c.time_ms, from_ms, false), sortedIndex(c.time_ms, to_ms, true)] as const);
   let n = 0;
   for (const [a, b] of spans) n += Math.max(0, b - a);
   const out = { time_ms: new Float64Array(n), stage_m: new Float64Array(n), source: new Uint8Array(n) };

@@ -219,9 +219,9 @@ async function serve(
     throw new OfficeSetupError(`Could not listen on ${host}:${port}: ${e.code === 'EADDRINUSE' ? 'the port is in use' : e.message}`);
   });
   const store = where.database !== undefined ? 'a PostgreSQL server' : `the embedded database in ${where.data}`;
-  out.write(`Freshet office receiver on http://${host.includes(':') ? `[${host}]` : host}:${port}/bundles, records in ${store}; ` +
-    `app origins: ${origins.length > 0 ? origins.join(', ') : 'none (only non-browser clients)'}\n`);
-  return new Promise<number>((resolveExit) => {
+  // The stop handlers are in place before the line that says where it listens: whoever reads that line
+  // may stop the receiver at once (a supervisor, a test), and a signal must never find it unprepared.
+  const exit = new Promise<number>((resolveExit) => {
     const stop = () => {
       server.close();
       server.closeAllConnections();
@@ -230,4 +230,7 @@ async function serve(
     process.once('SIGINT', stop);
     process.once('SIGTERM', stop);
   });
+  out.write(`Freshet office receiver on http://${host.includes(':') ? `[${host}]` : host}:${port}/bundles, records in ${store}; ` +
+    `app origins: ${origins.length > 0 ? origins.join(', ') : 'none (only non-browser clients)'}\n`);
+  return exit;
 }

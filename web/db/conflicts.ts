@@ -10,12 +10,10 @@ import { StorageError, storageMessage } from './errors';
 import { putLoggerDaysInTx } from './logger-days';
 import { afterWrite, listAll, listRange, putRecordsInTx, removeIn, removeInTx, saveIn, type PlainStore, type SaveInput } from './records';
 import { putReadingsInTx, withReadingsWrite } from './readings-write';
-import { STORE_OF_KIND, SYNCED_STORES, type StoreName } from './stores';
+import { beyondReadingsWrite, SCOPES, STORE_OF_KIND } from './stores';
 
 /** What settling holds besides the readings writer's own stores: every other synced store and conflicts. */
-const SETTLE_ALSO = [...SYNCED_STORES, 'conflicts'].filter(
-  (s): s is Exclude<StoreName, 'readings' | 'series' | 'meta'> => s !== 'readings',
-);
+const SETTLE_ALSO = beyondReadingsWrite(SCOPES.settle);
 
 /** Keeps a losing version for review; resolves once it is durable. */
 export const saveConflict = (conflict: SaveInput<ConflictRecord>): Promise<ConflictRecord> => saveIn('conflicts', conflict);

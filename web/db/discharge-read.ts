@@ -6,6 +6,7 @@ import {
   dischargeThrough, stageRecordWithDischarge, withDischarge, type DischargeSeries, type ReadingWithDischarge, type StageRecordWithDischarge,
 } from '../../core/index';
 import { withDb } from './connection';
+import { SCOPES } from './stores';
 import { chunkRange, checkWindow, stageOf, stagePartsIn, type ReadingSeries } from './series-read';
 
 /** A reading series with, per reading, its discharge (m³/s; NaN with no rating in force), shift (m), extrapolation flag and rating. */
@@ -22,7 +23,7 @@ const ratingsUpTo = (siteId: string, to_ms: number): IDBKeyRange => IDBKeyRange.
 export async function readingsWithDischarge(siteId: string, from_ms: number, to_ms: number): Promise<ReadingWithDischarge[]> {
   checkWindow('readingsWithDischarge', from_ms, to_ms);
   const [readings, ratings] = await withDb(async (db) => {
-    const tx = db.transaction(['readings', 'ratings']);
+    const tx = db.transaction(SCOPES.readingsDischarge);
     return Promise.all([
       tx.objectStore('readings').index('by-site-time').getAll(IDBKeyRange.bound([siteId, from_ms], [siteId, to_ms])),
       tx.objectStore('ratings').index('by-site-from').getAll(ratingsUpTo(siteId, to_ms)),
@@ -39,7 +40,7 @@ export async function readingsWithDischarge(siteId: string, from_ms: number, to_
 export async function seriesWithDischarge(siteId: string, from_ms: number, to_ms: number): Promise<SeriesWithDischarge> {
   checkWindow('seriesWithDischarge', from_ms, to_ms);
   const [parts, ratings] = await withDb(async (db) => {
-    const tx = db.transaction(['series', 'loggerDays', 'ratings']);
+    const tx = db.transaction(SCOPES.seriesDischarge);
     return Promise.all([
       stagePartsIn(tx, siteId, from_ms, to_ms),
       tx.objectStore('ratings').index('by-site-from').getAll(ratingsUpTo(siteId, to_ms)),
@@ -57,7 +58,7 @@ export async function seriesWithDischarge(siteId: string, from_ms: number, to_ms
 export async function stageRecordIn(siteId: string, from_ms: number, to_ms: number): Promise<StageRecordWithDischarge> {
   checkWindow('stageRecordIn', from_ms, to_ms);
   const [readings, days, ratings] = await withDb(async (db) => {
-    const tx = db.transaction(['readings', 'loggerDays', 'ratings']);
+    const tx = db.transaction(SCOPES.recordDischarge);
     return Promise.all([
       tx.objectStore('readings').index('by-site-time').getAll(IDBKeyRange.bound([siteId, from_ms], [siteId, to_ms])),
       tx.objectStore('loggerDays').index('by-site-day').getAll(chunkRange(siteId, from_ms, to_ms)),

@@ -11,6 +11,7 @@ import { StorageError } from './errors';
 import { afterWrite } from './records';
 import { quietly } from './quietly';
 import { withReadingsWrite } from './readings-write';
+import { SCOPES } from './stores';
 
 /** A corrected logger record to store at one site: times (UTC ms, strictly ascending), raw values and corrections (m). */
 export interface LoggerImportInput {
@@ -78,7 +79,7 @@ export async function importLoggerRecord(input: LoggerImportInput, options: Logg
   const n = input.time_ms.length;
   // Through the readings writer's transaction: the single logger readings it checks against cannot
   // change between the check and the write.
-  const result = await withReadingsWrite(['loggerDays'], async (tx) => {
+  const result = await withReadingsWrite(SCOPES.loggerImport, async (tx) => {
     if (bodies.length === 0) {
       const rev = await stampInTx(tx, at);
       return { stored: 0, days: 0, duplicates: [], rev };

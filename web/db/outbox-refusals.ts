@@ -11,7 +11,7 @@ import { bundleBytes, markOf, mib, removeOutboxEntryInTx } from './outbox';
 import { putSyncInTx } from './sync-store';
 import { withSetAside, type OutboxLimits, type SetAsideEntry } from './outbox-state';
 import type { OutboxEntry } from './schema';
-import { STORE_OF_KIND, SYNCED_STORES } from './stores';
+import { SCOPES, STORE_OF_KIND } from './stores';
 import { notifySyncChanged } from './sync-events';
 
 /** The set-aside entry for a version the office refused. */
@@ -26,7 +26,7 @@ function refusedByOffice(record: SyncRecord, reason: string, at_ms: number): Set
 /** In one transaction: bundle `id` leaves the outbox and `change` gives the new limits and set-aside versions. False when it was gone. */
 async function settle(id: string, change: (entry: OutboxEntry, limits: OutboxLimits) => { limits: OutboxLimits; aside?: SetAsideEntry }): Promise<boolean> {
   const done = await withDb(async (db) => {
-    const tx = db.transaction(['outbox', 'sync'], 'readwrite');
+    const tx = db.transaction(SCOPES.outbox, 'readwrite');
     const sync = tx.objectStore('sync');
     const [entry, limits, aside] = await Promise.all([tx.objectStore('outbox').get(id), sync.get('outboxLimits'), sync.get('setAside')]);
     if (!entry) {
@@ -102,7 +102,7 @@ export interface SetAsideView extends SetAsideEntry {
 /** Every set-aside version with its state (newest first); `replaced` when the record was edited or deleted since. */
 export function listSetAside(): Promise<SetAsideView[]> {
   return withDb(async (db) => {
-    const tx = db.transaction([...SYNCED_STORES, 'sync'], 'readonly');
+    const tx = db.transaction(SCOPES.setAside, 'readonly');
     const entries = ((await tx.objectStore('sync').get('setAside')) ?? []) as SetAsideEntry[];
     const current = await Promise.all(entries.map((e) => tx.objectStore(STORE_OF_KIND[e.kind as SyncKind]).get(e.id) as Promise<{ rev?: string } | undefined>));
     return entries

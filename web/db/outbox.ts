@@ -11,7 +11,7 @@ import { withDb } from './connection';
 import { now_ms } from './clock';
 import type { OutboxEntry, SyncStatusRecord } from './schema';
 import { setAsideMarks, withSetAside, type OutboxLimits, type SetAsideEntry } from './outbox-state';
-import { STORE_OF_KIND, SYNCED_STORES } from './stores';
+import { SCOPES, STORE_OF_KIND, SYNCED_STORES } from './stores';
 import { notifySyncChanged } from './sync-events';
 import { putSyncInTx } from './sync-store';
 
@@ -54,7 +54,7 @@ async function mineAfter(tx: ReadTx, device: string, after: string | undefined):
 /** How many records wait for the office (written here, not yet acknowledged, not set aside). */
 export function waitingCount(): Promise<number> {
   return withDb(async (db) => {
-    const tx = db.transaction([...SYNCED_STORES, 'meta', 'sync'], 'readonly');
+    const tx = db.transaction(SCOPES.waiting, 'readonly');
     const sync = tx.objectStore('sync');
     const [device, acked, aside] = await Promise.all([tx.objectStore('meta').get('deviceId'), sync.get('acked'), sync.get('setAside')]);
     if (typeof device !== 'string') return 0;
@@ -93,7 +93,7 @@ function refusedHere(w: { mark: string; record: SyncRecord }, reason: string, at
 export async function nextOutgoing(): Promise<OutboxEntry | undefined> {
   const at = now_ms();
   const kept = await withDb(async (db) => {
-    const tx = db.transaction(['outbox', 'sync'], 'readonly');
+    const tx = db.transaction(SCOPES.outbox, 'readonly');
     const sync = tx.objectStore('sync');
     const [cursor, limits, aside] = await Promise.all([tx.objectStore('outbox').index('by-created').openCursor(), sync.get('outboxLimits'), sync.get('setAside')]);
     return { entry: cursor?.value, limits: (limits ?? {}) as OutboxLimits, skip: setAsideMarks(aside as SetAsideEntry[] | undefined) };
@@ -110,7 +110,7 @@ export async function nextOutgoing(): Promise<OutboxEntry | undefined> {
   // Read in one transaction, then kept in another that only writes the outbox and the sync store (records
   // are read, never written here); if another tab kept a bundle meanwhile, that one goes first.
   const made = await withDb(async (db) => {
-    const tx = db.transaction([...SYNCED_STORES, 'meta', 'sync'], 'readonly');
+    const tx = db.transaction(SCOPES.waiting, 'readonly');
     const sync = tx.objectStore('sync');
     const [device, acked, limitsRead, asideRead] = await Promise.all([
       tx.objectStore('meta').get('deviceId'), sync.get('acked'), sync.get('outboxLimits'), sync.get('setAside'),
@@ -152,7 +152,7 @@ export async function nextOutgoing(): Promise<OutboxEntry | undefined> {
   });
   if (!made || (!made.entry && made.refused.length === 0)) return undefined;
   const entry = await withDb(async (db) => {
-    const tx = db.transaction(['outbox', 'sync'], 'readwrite');
+    const tx = db.transaction(SCOPES.outbox, 'readwrite');
     const outbox = tx.objectStore('outbox');
     if (made.refused.length) {
       // Merged with the list as it is now (another tab may have added to it since it was read).
@@ -185,7 +185,7 @@ export function mib(bytes: number): string {
 export async function acknowledge(id: string): Promise<boolean> {
   const at = now_ms();
   const done = await withDb(async (db) => {
-    const tx = db.transaction(['outbox', 'sync'], 'readwrite');
+    const tx = db.transaction(SCOPES.outbox, 'readwrite');
     const sync = tx.objectStore('sync');
     const [entry, acked, status, limitsRead] = await Promise.all([tx.objectStore('outbox').get(id), sync.get('acked'), sync.get('status'), sync.get('outboxLimits')]);
     if (!entry) {
@@ -235,7 +235,7 @@ export interface ExportFile {
 export function exportBundle(changesOnly: boolean): Promise<ExportFile> {
   const at = now_ms();
   return withDb(async (db) => {
-    const tx = db.transaction([...SYNCED_STORES, 'meta', 'sync'], 'readonly');
+    const tx = db.transaction(SCOPES.waiting, 'readonly');
     const [storedDevice, acked, exported] = await Promise.all([
       tx.objectStore('meta').get('deviceId'), tx.objectStore('sync').get('acked'), tx.objectStore('sync').get('exported'),
     ]);

@@ -2,6 +2,7 @@
 import { ratingInForce } from '../../core/rating/index';
 import type { GaugingRecord, RatingRecord } from '../../core/records/index';
 import { withDb } from './connection';
+import { SCOPES } from './stores';
 import { listRange, restoreIn, saveIn, tombstoneIn, type ReadOptions, type SaveInput } from './records';
 
 /** Validates and saves a rating (new id when absent); resolves with the stored record once it is durable. */
@@ -24,7 +25,7 @@ export async function ratingInForceAt(siteId: string, time_ms: number): Promise<
 /** A site's ratings (oldest validFrom_ms first) and gaugings (oldest first), read in one transaction; no tombstones. */
 export function ratingsAndGaugings(siteId: string): Promise<{ ratings: RatingRecord[]; gaugings: GaugingRecord[] }> {
   return withDb(async (db) => {
-    const tx = db.transaction(['ratings', 'gaugings']);
+    const tx = db.transaction(SCOPES.ratingsGaugings);
     const [ratings, gaugings] = await Promise.all([
       tx.objectStore('ratings').index('by-site-from').getAll(IDBKeyRange.bound([siteId, -Infinity], [siteId, Infinity])),
       tx.objectStore('gaugings').index('by-site-time').getAll(IDBKeyRange.bound([siteId, -Infinity], [siteId, Infinity])),

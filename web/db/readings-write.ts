@@ -16,6 +16,7 @@ import type { FreshetDB, ReadingsStores, ReadingsTx } from './schema';
 import { putChunksInTx, updateSeriesInTx } from './series-edit';
 import { abortError, DEFAULT_IMPORT_BATCH, planReadingsAdd, type ImportOptions, type ImportResult } from './readings-add';
 import { quietly } from './quietly';
+import { beyondReadingsWrite, SCOPES } from './stores';
 
 export { DEFAULT_IMPORT_BATCH, type ImportDuplicate, type ImportOptions, type ImportProgress, type ImportResult } from './readings-add';
 export { type ReadingsStores, type ReadingsTx };
@@ -34,7 +35,7 @@ export async function withReadingsWrite<T>(
   fn: (tx: ReadingsTx) => Promise<T>,
 ): Promise<T> {
   const result = await withDb(async (db) => {
-    const tx = db.transaction(['readings', 'series', 'meta', ...also], 'readwrite', DURABLE);
+    const tx = db.transaction([...SCOPES.readingsWrite, ...also], 'readwrite', DURABLE);
     return inTx(tx, async () => {
       // Widened to every store (see ReadingsTx): the scope opened here is readings, series, meta and `also`.
       const value = await fn(tx as unknown as ReadingsTx);
@@ -100,9 +101,9 @@ export async function saveReading(input: SaveInput<ReadingRecord>, options: Save
   const { id: given, body } = splitReading(input);
   const id = given ?? crypto.randomUUID();
   const at = now_ms();
-  const also: OtherStore[] = options.draftId !== undefined ? ['conflicts', 'drafts'] : ['conflicts'];
+  const also = beyondReadingsWrite(options.draftId !== undefined ? SCOPES.saveWithDraft : SCOPES.save);
   const saved = await withDb(async (db) => {
-    const tx = db.transaction(['readings', 'series', 'meta', ...also], 'readwrite', DURABLE);
+    const tx = db.transaction([...SCOPES.readingsWrite, ...also], 'readwrite', DURABLE);
     return inTx(tx, async () => {
       // The new revision sorts above the one it replaces, and carries its `seen` list on (core/sync) with
       // what this device's own kept versions of the reading knew.
@@ -128,7 +129,7 @@ export async function saveReading(input: SaveInput<ReadingRecord>, options: Save
 async function setDeleted(id: string, deleted: boolean): Promise<ReadingRecord | undefined> {
   const at = now_ms();
   const changed = await withDb(async (db) => {
-    const tx = db.transaction(['readings', 'series', 'meta', 'conflicts'], 'readwrite', DURABLE);
+    const tx = db.transaction([...SCOPES.readingsWrite, ...beyondReadingsWrite(SCOPES.save)], 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const existing = await tx.objectStore('readings').get(id);
       if (!existing) throw new StorageError('not-found', storageMessage('not-found'));
@@ -169,7 +170,7 @@ export function restoreReading(id: string): Promise<ReadingRecord | undefined> {
  */
 export async function importReadings(readings: readonly ReadingBody[], options: ImportOptions = {}): Promise<ImportResult> {
   const result = await withDb(async (db) => {
-    const tx = db.transaction(['readings', 'series', 'meta'], 'readwrite', DURABLE);
+    const tx = db.transaction(SCOPES.readingsWrite, 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const r = await addReadingsInTx(tx as unknown as ReadingsTx, readings, now_ms(), options); // see ReadingsTx
       await tx.done;

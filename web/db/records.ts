@@ -6,7 +6,7 @@ import {
 } from '../../core/records/index';
 import { ownKeptBases, seenAfter, stampOf, type VersionStamp } from '../../core/sync/index';
 import type { FreshetDB } from './schema';
-import { KIND_OF_STORE, type RecordStore } from './stores';
+import { KIND_OF_STORE, SCOPES, type RecordStore } from './stores';
 
 /** Stores this module writes (saveIn and its kin): every record store but readings and loggerDays (stores.ts). */
 export type PlainStore = Exclude<RecordStore, 'readings' | 'loggerDays'>;
@@ -110,7 +110,7 @@ export async function saveIn<S extends PlainStore>(store: S, input: SaveInput<Re
   const id = given ?? crypto.randomUUID();
   const at = now_ms();
   const saved = await withDb(async (db) => {
-    const tx = db.transaction(uniqueStores([store, 'meta', 'conflicts', ...(options.draftId !== undefined ? ['drafts' as const] : [])]), 'readwrite', DURABLE);
+    const tx = db.transaction(uniqueStores([store, ...(options.draftId !== undefined ? SCOPES.saveWithDraft : SCOPES.save)]), 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const s = tx.objectStore(store);
       if (options.draftId !== undefined) quietly(tx.objectStore('drafts').delete(options.draftId));
@@ -141,7 +141,7 @@ async function setDeleted<S extends PlainStore>(store: S, id: string, deleted: b
   const kind = KIND_OF_STORE[store];
   const at = now_ms();
   const changed = await withDb(async (db) => {
-    const tx = db.transaction(uniqueStores([store, 'meta', 'conflicts']), 'readwrite', DURABLE);
+    const tx = db.transaction(uniqueStores([store, ...SCOPES.save]), 'readwrite', DURABLE);
     return inTx(tx, async () => {
       const s = tx.objectStore(store);
       const existing = (await s.get(id)) as RecordOf<S> | undefined;

@@ -5,6 +5,7 @@ import type {
 } from '../../core/records/index';
 import type { Bundle } from '../../core/exchange/index';
 import type { OutboxLimits, SetAsideEntry } from './outbox-state';
+import type { ReadingsWriteStore } from './stores';
 
 /** Name of the app's database. */
 export const DB_NAME = 'freshet';
@@ -130,7 +131,7 @@ export interface FreshetDB extends DBSchema {
 }
 
 /** Stores every readings write holds: the readings, their series, and meta for the revision clock. */
-export type ReadingsStores = 'readings' | 'series' | 'meta';
+export type ReadingsStores = ReadingsWriteStore;
 
 /**
  * A readwrite transaction of the readings writer: it holds the readings, series and meta stores and the

@@ -3,6 +3,7 @@
 // plots and the storm analysis need, at a fraction of the cost of reading whole records.
 import type { SeriesChunk } from './schema';
 import { withDb } from './connection';
+import { SCOPES } from './stores';
 import { dayOf } from './series-edit';
 import { joinStageRecord, sortedIndex, type LoggerDayRecord, type StageRecord } from '../../core/index';
 import { now_ms } from './clock';
@@ -64,7 +65,7 @@ export function stageOf(parts: StageParts, from_ms: number, to_ms: number): Read
 export async function readingSeries(siteId: string, from_ms: number, to_ms: number): Promise<ReadingSeries> {
   checkWindow('readingSeries', from_ms, to_ms);
   const parts = await withDb(async (db) => {
-    const tx = db.transaction(['series', 'loggerDays']);
+    const tx = db.transaction(SCOPES.series);
     return stagePartsIn(tx, siteId, from_ms, to_ms);
   });
   return stageOf(parts, from_ms, to_ms);

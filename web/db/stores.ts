@@ -60,3 +60,47 @@ export const STORE_OF_KIND = Object.fromEntries(SYNCED_STORES.map((s) => [STORES
 export function storesWrittenBy(writer: string): StoreName[] {
   return names.filter((s) => STORES[s].writer === writer);
 }
+
+/**
+ * The store list of every multi-store transaction, named by what the transaction does: no module spells a
+ * store list by hand (test/db/store-lists.test.ts). A single-store transaction names its one store.
+ */
+export const SCOPES = {
+  /** Every write of readings: the readings, their series (kept in step) and meta (the revision clock). */
+  readingsWrite: ['readings', 'series', 'meta'],
+  /** What a save or delete holds beside the record's own store: meta (its revision) and conflicts (its kept versions). */
+  save: ['meta', 'conflicts'],
+  /** A save that also removes the form's draft in the same transaction. */
+  saveWithDraft: ['meta', 'conflicts', 'drafts'],
+  /** A logger import, beside the readings write: the logger days. */
+  loggerImport: ['loggerDays'],
+  /** A merge of incoming records: every synced store, series (written with readings), conflicts, meta, sync. */
+  merge: [...SYNCED_STORES, 'series', 'conflicts', 'meta', 'sync'],
+  /** Settling a conflict: every synced store and conflicts (beside the readings write's own stores). */
+  settle: [...SYNCED_STORES, 'conflicts'],
+  /** The outbox and its marks, limits and set-aside list (the sync store). */
+  outbox: ['outbox', 'sync'],
+  /** What waits to be sent: every synced store, the device id (meta) and the acknowledged mark (sync). */
+  waiting: [...SYNCED_STORES, 'meta', 'sync'],
+  /** The set-aside versions with the records they name: every synced store and sync. */
+  setAside: [...SYNCED_STORES, 'sync'],
+  /** Spot readings with the site's ratings (their discharge). */
+  readingsDischarge: ['readings', 'ratings'],
+  /** A stage series (spot readings' chunks and logger days) with the site's ratings. */
+  seriesDischarge: ['series', 'loggerDays', 'ratings'],
+  /** A stage record (spot readings and logger days) with the site's ratings. */
+  recordDischarge: ['readings', 'loggerDays', 'ratings'],
+  /** A stage series: the spot readings' day chunks and the logger days. */
+  series: ['series', 'loggerDays'],
+  /** A site's ratings with its gaugings. */
+  ratingsGaugings: ['ratings', 'gaugings'],
+} as const satisfies Record<string, readonly StoreName[]>;
+
+/** The stores every readings write holds. */
+export type ReadingsWriteStore = (typeof SCOPES.readingsWrite)[number];
+
+/** `stores` less those every readings write holds already: what a caller of the readings writer asks for beside them. */
+export function beyondReadingsWrite<S extends StoreName>(stores: readonly S[]): Exclude<S, ReadingsWriteStore>[] {
+  const own: readonly StoreName[] = SCOPES.readingsWrite;
+  return stores.filter((s): s is Exclude<S, ReadingsWriteStore> => !own.includes(s));
+}

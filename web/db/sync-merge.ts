@@ -13,15 +13,13 @@ import { putLoggerDaysInTx } from './logger-days';
 import { afterWrite, putRecordsInTx, removeInTx, type PlainStore } from './records';
 import type { FreshetDB } from './schema';
 import { putReadingsInTx, withReadingsWrite } from './readings-write';
-import { STORE_OF_KIND, SYNCED_STORES, type StoreName } from './stores';
+import { beyondReadingsWrite, SCOPES, STORE_OF_KIND, type StoreName } from './stores';
 import { putSyncInTx } from './sync-store';
 
-/** The stores a merge holds: every synced store (and series, written with readings), conflicts, meta, sync. */
-const SCOPE: StoreName[] = [...SYNCED_STORES, 'series', 'conflicts', 'meta', 'sync'];
 type MergeTx = IDBPTransaction<FreshetDB, StoreName[], 'readonly'>;
 type MergeWriteTx = IDBPTransaction<FreshetDB, StoreName[], 'readwrite'>;
 /** What the merge asks of the readings writer beyond its own stores (readings, series, meta). */
-const MERGE_ALSO = SCOPE.filter((s): s is Exclude<StoreName, 'readings' | 'series' | 'meta'> => s !== 'readings' && s !== 'series' && s !== 'meta');
+const MERGE_ALSO = beyondReadingsWrite(SCOPES.merge);
 
 /** What a merge did (or would do): the counts for the screen and how many winners were dated ahead. */
 export interface IncomingResult {
@@ -73,7 +71,7 @@ export async function previewIncoming(records: readonly SyncRecord[]): Promise<I
   checkAll(records);
   const at = now_ms();
   return withDb(async (db) => {
-    const tx = db.transaction([...SCOPE], 'readonly');
+    const tx = db.transaction([...SCOPES.merge], 'readonly');
     const current = await readCurrent(tx, records);
     return { summary: planMerge(records, current.frontiers, at).summary };
   });

@@ -33,4 +33,4 @@ export { driftTable, driftCorrections, loggerValueAt, type DriftCheck, type Drif
 export {
   LOGGER_DAY_MS, loggerDayId, splitLoggerDays, mergeLoggerDay, loggerDayStages, type CorrectedLogger, type LoggerDayContext, type LoggerDayMerge,
 } from './logger-days';
-export { loggerGaps, usualStep_ms, type LoggerGap } from './logger-gaps';
+export { loggerGaps, type LoggerGap } from './logger-gaps';

@@ -1,5 +1,7 @@
 // Where a logger record has holes: steps longer than one and a half times its usual step (the median),
-// e.g. the hour that vanishes when a logger on daylight-saving time is read as standard time.
+// e.g. the hour that vanishes when a logger on daylight-saving time is read as standard time. The usual step
+// is the storm finding's own (core/hydrograph/bridging-limit.ts): one measure of a record's step.
+import { usualStep_ms } from '../hydrograph/bridging-limit';
 
 /** A hole in a record: the lines either side and the times (UTC ms) of the values either side. */
 export interface LoggerGap {
@@ -7,16 +9,6 @@ export interface LoggerGap {
   beforeLine: number;
   from_ms: number;
   to_ms: number;
-}
-
-/** The record's usual step, ms: the median of its steps (0 with fewer than two values). */
-export function usualStep_ms(time_ms: ArrayLike<number>): number {
-  const n = time_ms.length;
-  if (n < 2) return 0;
-  const steps = new Float64Array(n - 1);
-  for (let i = 1; i < n; i++) steps[i - 1] = time_ms[i] - time_ms[i - 1];
-  steps.sort();
-  return steps[(steps.length - 1) >> 1];
 }
 
 /** Steps longer than 1.5 × the usual step in a record sorted by time, first `limit` of them, oldest first. */

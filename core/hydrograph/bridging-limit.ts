@@ -1,4 +1,5 @@
-// The bridging limit of DOMAIN.md §4: the longest gap inside a record that is bridged rather than ending it.
+// The bridging limit of DOMAIN.md §4: the longest gap inside a record that is bridged rather than ending it,
+// and the record's usual step it is counted in (also the measure of a logger file's holes, logger-gaps.ts).
 
 const HOUR_MS = 3_600_000;
 /** The bridging limit is at least this long, ms (1 h). */
@@ -7,6 +8,16 @@ export const BRIDGING_LIMIT_MIN_MS = HOUR_MS;
 export const BRIDGING_LIMIT_MAX_MS = 6 * HOUR_MS;
 /** The bridging limit spans this many of the record's usual steps (before the bounds above). */
 export const BRIDGING_LIMIT_STEPS = 12;
+
+/** The record's usual step, ms: the median of its steps (the lower middle one of an even count; 0 with fewer than two values). */
+export function usualStep_ms(time_ms: ArrayLike<number>): number {
+  const n = time_ms.length;
+  if (n < 2) return 0;
+  const steps = new Float64Array(n - 1);
+  for (let i = 1; i < n; i++) steps[i - 1] = time_ms[i] - time_ms[i - 1];
+  steps.sort();
+  return steps[(steps.length - 1) >> 1];
+}
 
 /**
  * The bridging limit (ms) of a record whose usual step is usualStep_ms (ms): max(12 × step, 1 h), never

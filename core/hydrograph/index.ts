@@ -37,7 +37,7 @@ export type { UnitHydrographOptions } from './unit-hydrograph';
 export { recessionConstant } from './recession';
 export type { RecessionFit } from './recession';
 export { phiIndex } from './phi-index';
-export { bridgingLimit_ms, BRIDGING_LIMIT_MAX_MS, BRIDGING_LIMIT_MIN_MS, BRIDGING_LIMIT_STEPS } from './bridging-limit';
+export { bridgingLimit_ms, usualStep_ms, BRIDGING_LIMIT_MAX_MS, BRIDGING_LIMIT_MIN_MS, BRIDGING_LIMIT_STEPS } from './bridging-limit';
 export { dailyOnlyReason } from './daily-only';
 export type { FilterRestart } from './split';
 export type { PhiIndexResult } from './phi-index';

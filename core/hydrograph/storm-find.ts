@@ -3,8 +3,7 @@
 // each continuous stretch is searched for storms (key points on the whole stretch, then again on the parts
 // before and after each storm found), and each storm's figures are those of the analysis it opens: its
 // window, its key points found again there, and the method given.
-import { usualStep_ms } from '../exchange/logger-gaps';
-import { bridgingLimit_ms } from './bridging-limit';
+import { bridgingLimit_ms, usualStep_ms } from './bridging-limit';
 import { findEventPointsDetailed, runoffDuration_days } from './key-points';
 import { usesKeyPoints, type SeparationMethod } from './methods';
 import { separateBaseflowDetailed } from './separate';

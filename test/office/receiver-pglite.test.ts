@@ -1,14 +1,5 @@
 // The bundle protocol against the embedded database (PGlite) in a temp folder, one folder for the file.
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { openOfficeDatabase } from '../../office/receiver/open';
 import { describeProtocol } from '../support/office/protocol-suite';
+import { pgliteEngine } from '../support/office/receiver-under-test';
 
-const dir = mkdtempSync(join(tmpdir(), 'freshet-office-'));
-describeProtocol({
-  name: 'PGlite',
-  port: 4581,
-  open: () => openOfficeDatabase({ data: dir }),
-  dispose: async () => rmSync(dir, { recursive: true, force: true }),
-});
+describeProtocol(pgliteEngine(4581, 'freshet-office-'));

@@ -1,64 +1,32 @@
 // The bundle protocol's tests (push, pull, refusals, CORS, merge of current versions), run once per engine:
 // PGlite in a temp folder and, when one is available, a PostgreSQL server. The protocol under test is the
 // sync issue's: 201 for a new bundle, 200 for one already received, a JSON reason for every refusal.
-import type { Server } from 'node:http';
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { beforeEach, describe, expect, it } from 'vitest';
 import { bundleChecksum, nextRev, parseBundle, type Bundle, type SyncRecord } from '../../../core/index';
-import type { Database } from '../../../office/receiver/db';
 import { createDevice, revokeDevice } from '../../../office/receiver/devices';
-import { createReceiver } from '../../../office/receiver/http';
 import { bundleOf, pullAll, push, readingRecords, siteRecord, T0_MS } from './phones';
+import { useReceiver, type Engine } from './receiver-under-test';
+
+export type { Engine };
 
 /** The origin the suite allows for CORS (a port of ours that nothing listens on). */
 const APP_ORIGIN = 'http://127.0.0.1:4619';
 /** Size limit the suite's receiver is started with, bytes (small, so the oversized case stays quick). */
 const LIMIT_BYTES = 256 * 1024;
 
-/** How a test file provides its engine: a name, a free port of ours, and a database opener and closer. */
-export interface Engine {
-  name: string;
-  port: number;
-  open: () => Promise<Database>;
-  /** Removes what open() created (temp folder, test database) after close. */
-  dispose?: () => Promise<void>;
-}
-
-async function count(db: Database, table: string): Promise<number> {
-  const [r] = await db.query<{ n: string }>(`select count(*)::text as n from ${table}`);
-  return Number(r.n);
-}
-
 /** Registers the protocol tests for one engine. */
 export function describeProtocol(engine: Engine): void {
   describe(`office receiver on ${engine.name}`, () => {
-    let db: Database;
-    let server: Server;
     const log: string[] = [];
-    const base = `http://127.0.0.1:${engine.port}`;
+    const receiver = useReceiver(engine, { origin: APP_ORIGIN, maxBundleBytes: LIMIT_BYTES, log: (l) => log.push(l) });
+    const { base } = receiver;
     let tokenA = '';
     let tokenB = '';
 
-    beforeAll(async () => {
-      db = await engine.open();
-      server = createReceiver({ db, origins: [APP_ORIGIN], maxBundleBytes: LIMIT_BYTES, log: (l) => log.push(l) });
-      await new Promise<void>((r) => server.listen(engine.port, '127.0.0.1', r));
-    }, 120_000);
-
-    afterAll(async () => {
-      await new Promise<void>((r) => {
-        server.closeAllConnections();
-        server.close(() => r());
-      });
-      await db.close();
-      await engine.dispose?.();
-    });
-
     beforeEach(async () => {
-      // TRUNCATE fires no row triggers, so the append-only guard on record_versions does not object.
-      await db.exec('truncate record_versions, current_records, office_bundles, office_devices restart identity cascade');
       log.length = 0;
-      tokenA = await createDevice(db, 'phone A');
-      tokenB = await createDevice(db, 'phone B');
+      tokenA = await createDevice(receiver.db, 'phone A');
+      tokenB = await createDevice(receiver.db, 'phone B');
     });
 
     it('stores a new bundle (201) and answers a repeat push with 200, doubling nothing', async () => {
@@ -69,10 +37,10 @@ export function describeProtocol(engine: Engine): void {
       const again = await push(base, tokenA, b);
       expect(again.status).toBe(200);
       expect(again.body).toMatchObject({ bundle: b.id, records: 21, status: 'already-received' });
-      expect(await count(db, 'record_versions')).toBe(21);
-      expect(await count(db, 'current_records')).toBe(21);
-      expect(await count(db, 'office_bundles')).toBe(1);
-      const [row] = await db.query<{ body: { stage_m: number }; deleted: boolean }>(
+      expect(await receiver.count('record_versions')).toBe(21);
+      expect(await receiver.count('current_records')).toBe(21);
+      expect(await receiver.count('office_bundles')).toBe(1);
+      const [row] = await receiver.db.query<{ body: { stage_m: number }; deleted: boolean }>(
         'select body, deleted from record_versions where id = $1', [b.records[5].id]);
       expect(row.body.stage_m).toBe((b.records[5].body as { stage_m: number }).stage_m);
       expect(row.deleted).toBe(false);
@@ -85,8 +53,8 @@ export function describeProtocol(engine: Engine): void {
       const answers = await Promise.all(Array.from({ length: 8 }, () => push(base, tokenA, b)));
       const statuses = answers.map((a) => a.status).sort();
       expect(statuses).toEqual([200, 200, 200, 200, 200, 200, 200, 201]);
-      expect(await count(db, 'record_versions')).toBe(50);
-      expect(await count(db, 'office_bundles')).toBe(1);
+      expect(await receiver.count('record_versions')).toBe(50);
+      expect(await receiver.count('office_bundles')).toBe(1);
     });
 
     it('hands a second device the other devices\' bundles after its cursor, not its own', async () => {
@@ -120,18 +88,18 @@ export function describeProtocol(engine: Engine): void {
       expect(none.status).toBe(401);
       expect(none.body.error).toBe('token-missing');
       expect((await pullAll(base, 'y'.repeat(43))).status).toBe(401);
-      expect(await count(db, 'record_versions')).toBe(0);
+      expect(await receiver.count('record_versions')).toBe(0);
     });
 
     it('refuses a revoked device with 403, for push and pull', async () => {
-      expect(await revokeDevice(db, 'phone B')).toBe(true);
+      expect(await revokeDevice(receiver.db, 'phone B')).toBe(true);
       const b = bundleOf('dev-b', readingRecords('dev-b', 3));
       const r = await push(base, tokenB, b);
       expect(r.status).toBe(403);
       expect(r.body.error).toBe('token-revoked');
       expect(String(r.body.message)).toMatch(/revoked/);
       expect((await pullAll(base, tokenB)).status).toBe(403);
-      expect(await count(db, 'office_bundles')).toBe(0);
+      expect(await receiver.count('office_bundles')).toBe(0);
     });
 
     const refusals: [string, (b: Bundle) => unknown, number, string][] = [
@@ -151,8 +119,8 @@ export function describeProtocol(engine: Engine): void {
         expect(r.status).toBe(status);
         expect(r.body.error).toBe(reason);
         expect(typeof r.body.message).toBe('string');
-        expect(await count(db, 'record_versions')).toBe(0);
-        expect(await count(db, 'office_bundles')).toBe(0);
+        expect(await receiver.count('record_versions')).toBe(0);
+        expect(await receiver.count('office_bundles')).toBe(0);
       });
     }
 
@@ -169,7 +137,7 @@ export function describeProtocol(engine: Engine): void {
       expect(r.status).toBe(413);
       expect(r.body.error).toBe('size');
       expect(String(r.body.message)).toContain('0.3 MiB');
-      expect(await count(db, 'record_versions')).toBe(0);
+      expect(await receiver.count('record_versions')).toBe(0);
     });
 
     it('refuses an Idempotency-Key that is not the bundle id', async () => {
@@ -177,7 +145,7 @@ export function describeProtocol(engine: Engine): void {
       const r = await push(base, tokenA, b, { 'Idempotency-Key': '00000000-0000-4000-8000-000000000000' });
       expect(r.status).toBe(400);
       expect(r.body.error).toBe('key');
-      expect(await count(db, 'record_versions')).toBe(0);
+      expect(await receiver.count('record_versions')).toBe(0);
     });
 
     it('refuses the same (kind, id, rev) with another body as an integrity error, logs it, and stores none of that bundle', async () => {
@@ -191,10 +159,10 @@ export function describeProtocol(engine: Engine): void {
       expect(r.body.error).toBe('revision-reused');
       expect(String(r.body.message)).toContain(readings[1].id);
       expect(log.some((l) => l.includes(`bundle=${clash.id}`) && l.includes('outcome=409 revision-reused'))).toBe(true);
-      expect(await count(db, 'record_versions')).toBe(4);
-      const [kept] = await db.query<{ stage_m: number }>(`select (body->>'stage_m')::float8 as stage_m from record_versions where id = $1`, [readings[1].id]);
+      expect(await receiver.count('record_versions')).toBe(4);
+      const [kept] = await receiver.db.query<{ stage_m: number }>(`select (body->>'stage_m')::float8 as stage_m from record_versions where id = $1`, [readings[1].id]);
       expect(kept.stage_m).toBe(readings[1].body.stage_m);
-      expect(await db.query('select 1 from record_versions where id = $1', [fresh.id])).toEqual([]);
+      expect(await receiver.db.query('select 1 from record_versions where id = $1', [fresh.id])).toEqual([]);
     });
 
     it('refuses a bundle id reused for other records (409) rather than answering 200', async () => {
@@ -205,7 +173,7 @@ export function describeProtocol(engine: Engine): void {
       const r = await push(base, tokenA, reused);
       expect(r.status).toBe(409);
       expect(r.body.error).toBe('bundle-id-reused');
-      expect(await count(db, 'record_versions')).toBe(2);
+      expect(await receiver.count('record_versions')).toBe(2);
     });
 
     it('keeps every version and makes the higher revision current, whatever the arrival order', async () => {
@@ -213,14 +181,14 @@ export function describeProtocol(engine: Engine): void {
       const later = { ...site, rev: nextRev(site.rev, T0_MS + 60_000, 'dev-b'), body: { ...site.body, name: 'Tarn Brook at Mossgiel Bridge' } } as SyncRecord;
       expect((await push(base, tokenB, bundleOf('dev-b', [later]))).status).toBe(201);
       expect((await push(base, tokenA, bundleOf('dev-a', [site]))).status).toBe(201);
-      const [cur] = await db.query<{ rev: string; name: string }>(`select rev, body->>'name' as name from current_records where id = $1`, [site.id]);
+      const [cur] = await receiver.db.query<{ rev: string; name: string }>(`select rev, body->>'name' as name from current_records where id = $1`, [site.id]);
       expect(cur).toEqual({ rev: later.rev, name: 'Tarn Brook at Mossgiel Bridge' });
-      expect(await count(db, 'record_versions')).toBe(2);
+      expect(await receiver.count('record_versions')).toBe(2);
       const gone = { ...site, rev: nextRev(later.rev, T0_MS + 120_000, 'dev-a'), deleted: true } as SyncRecord;
       expect((await push(base, tokenA, bundleOf('dev-a', [gone]))).status).toBe(201);
-      const [after] = await db.query<{ rev: string; deleted: boolean }>('select rev, deleted from current_records where id = $1', [site.id]);
+      const [after] = await receiver.db.query<{ rev: string; deleted: boolean }>('select rev, deleted from current_records where id = $1', [site.id]);
       expect(after).toEqual({ rev: gone.rev, deleted: true });
-      await expect(db.query('update record_versions set deleted = false')).rejects.toThrow(/append-only/);
+      await expect(receiver.db.query('update record_versions set deleted = false')).rejects.toThrow(/append-only/);
     });
 
     it('answers CORS preflights for the configured origin only', async () => {
@@ -260,7 +228,7 @@ export function describeProtocol(engine: Engine): void {
 
     it('never skips a bundle while many pushes commit and a device pulls at the same time', async () => {
       const tokens = [tokenA];
-      for (let i = 0; i < 5; i++) tokens.push(await createDevice(db, `field phone ${i}`));
+      for (let i = 0; i < 5; i++) tokens.push(await createDevice(receiver.db, `field phone ${i}`));
       const pushed: string[] = [];
       const pushes = tokens.flatMap((t, d) => Array.from({ length: 6 }, async (_, k) => {
         const b = bundleOf(`dev-${d}`, readingRecords(`dev-${d}`, 30, (d * 6 + k) * 30));

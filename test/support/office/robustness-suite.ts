@@ -2,23 +2,17 @@
 // read: text PostgreSQL refuses (NUL, a lone surrogate), JSON nested 10,000 levels, posts without a
 // token (refused before the body is read), and the rule that a phone pulls every bundle it did not make
 // itself. Run once per engine, like the protocol suite. The refusals follow core/exchange/README.md.
-import { request, type Server } from 'node:http';
+import { request } from 'node:http';
 import { connect, type Socket } from 'node:net';
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { beforeEach, describe, expect, it } from 'vitest';
 import { bundleChecksum, MAX_BUNDLE_DEPTH, type Bundle, type SyncRecord } from '../../../core/index';
-import type { Database } from '../../../office/receiver/db';
 import { createDevice } from '../../../office/receiver/devices';
 import { createReceiver } from '../../../office/receiver/http';
 import { bundleOf, pullAll, push, readingRecords, siteRecord } from './phones';
-import type { Engine } from './protocol-suite';
+import { useReceiver, type Engine } from './receiver-under-test';
 
 const APP_ORIGIN = 'http://127.0.0.1:4649';
 const LIMIT_BYTES = 256 * 1024;
-
-async function count(db: Database, table: string): Promise<number> {
-  const [r] = await db.query<{ n: string }>(`select count(*)::text as n from ${table}`);
-  return Number(r.n);
-}
 
 /** The bundle with record `i`'s body changed by `edit`, checksummed again (as a phone would make it). */
 function withBody(b: Bundle, i: number, edit: (body: Record<string, unknown>) => Record<string, unknown>): Bundle {
@@ -43,29 +37,12 @@ function answerBeforeBody(port: number, headers: Record<string, string>): Promis
 /** Registers the robustness tests for one engine. */
 export function describeRobustness(engine: Engine): void {
   describe(`office receiver on ${engine.name}: what it cannot store, strangers, pull by device`, () => {
-    let db: Database;
-    let server: Server;
-    const base = `http://127.0.0.1:${engine.port}`;
+    const receiver = useReceiver(engine, { origin: APP_ORIGIN, maxBundleBytes: LIMIT_BYTES });
+    const { base } = receiver;
     let token = '';
 
-    beforeAll(async () => {
-      db = await engine.open();
-      server = createReceiver({ db, origins: [APP_ORIGIN], maxBundleBytes: LIMIT_BYTES, log: () => {} });
-      await new Promise<void>((r) => server.listen(engine.port, '127.0.0.1', r));
-    }, 120_000);
-
-    afterAll(async () => {
-      await new Promise<void>((r) => {
-        server.closeAllConnections();
-        server.close(() => r());
-      });
-      await db.close();
-      await engine.dispose?.();
-    });
-
     beforeEach(async () => {
-      await db.exec('truncate record_versions, current_records, office_bundles, office_devices restart identity cascade');
-      token = await createDevice(db, 'phone A');
+      token = await createDevice(receiver.db, 'phone A');
     });
 
     // PostgreSQL's jsonb refuses \u0000 (SQLSTATE 22P05) and an unpaired surrogate escape (22P02)
@@ -87,8 +64,8 @@ export function describeRobustness(engine: Engine): void {
         expect(r.status).toBe(400);
         expect(r.body).toMatchObject({ reason: 'record', error: 'record', index: 3, kind: 'reading', id: b.records[3].id });
         expect(String(r.body.message)).toMatch(/^Record 4 of the bundle/);
-        expect(await count(db, 'record_versions')).toBe(0);
-        expect(await count(db, 'office_bundles')).toBe(0);
+        expect(await receiver.count('record_versions')).toBe(0);
+        expect(await receiver.count('office_bundles')).toBe(0);
         // The same phone's next, clean bundle is taken: the refusal blocked nothing.
         expect((await push(base, token, bundleOf('dev-a', readingRecords('dev-a', 2)))).status).toBe(201);
       });
@@ -131,7 +108,7 @@ export function describeRobustness(engine: Engine): void {
     });
 
     it('closes connections beyond its cap at once and cuts off a body that does not arrive in time (408)', async () => {
-      const small = createReceiver({ db, origins: [], maxBundleBytes: LIMIT_BYTES, log: () => {}, maxConnections: 3, bodyReadLimit_ms: 400 });
+      const small = createReceiver({ db: receiver.db, origins: [], maxBundleBytes: LIMIT_BYTES, log: () => {}, maxConnections: 3, bodyReadLimit_ms: 400 });
       const port = engine.port + 10;
       await new Promise<void>((r) => small.listen(port, '127.0.0.1', r));
       try {
@@ -155,7 +132,7 @@ export function describeRobustness(engine: Engine): void {
 
     it('answers 503 busy with Retry-After when the bodies being read would pass its memory budget', async () => {
       // Budget: 4 bundles of the largest size (office/receiver/intake.ts); each stalled post announces the largest.
-      const small = createReceiver({ db, origins: [], maxBundleBytes: 200 * 1024, log: () => {}, bodyReadLimit_ms: 1500 });
+      const small = createReceiver({ db: receiver.db, origins: [], maxBundleBytes: 200 * 1024, log: () => {}, bodyReadLimit_ms: 1500 });
       const port = engine.port + 11;
       await new Promise<void>((r) => small.listen(port, '127.0.0.1', r));
       try {
@@ -175,7 +152,7 @@ export function describeRobustness(engine: Engine): void {
     });
 
     it('hands a reinstalled phone (new device id, same token) every bundle, its old self\'s included', async () => {
-      const tokenB = await createDevice(db, 'phone B');
+      const tokenB = await createDevice(receiver.db, 'phone B');
       const a1 = bundleOf('dev-a', [siteRecord('dev-a'), ...readingRecords('dev-a', 3)]);
       const b1 = bundleOf('dev-b', readingRecords('dev-b', 2, 50));
       expect((await push(base, token, a1)).status).toBe(201);

@@ -11,21 +11,14 @@ import Papa from 'papaparse';
 import { afterAll, describe, expect, it } from 'vitest';
 import { driftCorrections, readingsToCsv, stageExportRows } from '../../core';
 import { importLoggerRecord, nextOutgoing, saveRating, saveReading, saveSite, stageRecordIn } from '../../web/db';
-import { run } from '../../office/cli/index';
 import { useFreshDb } from '../support/db';
 import { rating, reading, site, T0 } from '../support/records';
 import { validateWaterml } from '../support/waterml-kit';
+import { freshet } from '../support/office/run-freshet';
 
 useFreshDb();
 const dir = mkdtempSync(join(tmpdir(), 'freshet-logger-office-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-async function freshet(args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const code = await run(args, { stdout: (s) => (out += s), stderr: (s) => (err += s), cwd: process.cwd() });
-  return { code, out, err };
-}
 
 const Q = 15 * 60_000;
 const H = 3_600_000;

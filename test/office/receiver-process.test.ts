@@ -7,24 +7,16 @@ import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSy
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { run } from '../../office/cli/index';
 import { tokenHash } from '../../office/receiver/devices';
 import { openOfficeDatabase } from '../../office/receiver/open';
 import { killWhileStoring } from '../support/office/crash';
 import { validateWaterml } from '../support/waterml-kit';
+import { freshet } from '../support/office/run-freshet';
 import { bundleOf, push, readingRecords, siteRecord } from '../support/office/phones';
 import { POSTGRES_URL, throwawayDatabase } from '../support/office/postgres';
 
 const dir = mkdtempSync(join(tmpdir(), 'freshet-office-process-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
-/** Runs `freshet <args>` through the dispatcher in this process; resolves to the exit status and what it wrote. */
-async function freshet(args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const code = await run(args, { stdout: (s) => (out += s), stderr: (s) => (err += s), cwd: process.cwd() });
-  return { code, out, err };
-}
 
 /** Runs `freshet office <args>`. */
 const office = (args: string[]) => freshet(['office', ...args]);

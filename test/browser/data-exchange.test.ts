@@ -8,31 +8,27 @@ import { join } from 'node:path';
 import Papa from 'papaparse';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_SITE_ID } from '../../core';
-import { launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import type { Preview } from '../support/browser/harness';
+import { loadDemoSite, openApp, type AppSession } from '../support/browser/app';
 import { seriousViolations } from '../support/browser/axe';
 import { validateWaterml } from '../support/waterml-kit';
 
 let server: Preview;
-let browser: Browser;
 let page: Page;
+let app: AppSession | undefined;
 const dir = mkdtempSync(join(tmpdir(), 'freshet-data-'));
 // Two days ago, on the whole minute: inside the default export window (30 days up to the latest reading).
 const T = Math.floor((Date.now() - 2 * 86_400_000) / 60_000) * 60_000;
 const iso = (ms: number) => new Date(ms).toISOString().replace('.000Z', 'Z');
 
 beforeAll(async () => {
-  server = await startPreview(4560);
-  browser = await launchBrowser();
-  page = await browser.context.newPage();
-  await page.goto(`${server.url}#/sites`);
-  await page.getByRole('button', { name: 'Load the demo site' }).click();
-  await page.waitForFunction((id) => location.hash === `#/sites/${id}`, DEMO_SITE_ID, { timeout: 60_000 });
+  app = await openApp(4560, { hash: '#/sites', controlled: false });
+  ({ server, page } = app);
+  await loadDemoSite(page);
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
+  await app?.close();
 });
 
 async function download(what: string): Promise<string> {

@@ -12,40 +12,33 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_SITE_ID, midSection, toLocalInput, verticalMeanVelocity, type PointVelocities } from '../../core';
 import { formatQuantity } from '../../web/format';
-import { ARTIFACTS, launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import { ARTIFACTS, type Browser, type Preview } from '../support/browser/harness';
+import { goTo, loadDemoSite, openApp, type AppSession } from '../support/browser/app';
 import { boxes, intersects, within, wrappedTexts } from '../support/browser/geometry';
 
 const ZONE = 'Pacific/Auckland';
 let server: Preview;
 let browser: Browser;
 let page: Page;
+let app: AppSession | undefined;
 let siteId = '';
 const pageErrors: string[] = [];
 
 async function shot(name: string): Promise<void> {
   await page.screenshot({ path: join(ARTIFACTS, `day-${name}.png`) });
 }
-async function go(hash: string): Promise<void> {
-  await page.goto(server.url + hash);
-  await page.locator('#screen-title').waitFor();
-}
+const go = (hash: string): Promise<void> => goTo(page, server.url, hash);
 
 beforeAll(async () => {
-  server = await startPreview(4287);
-  browser = await launchBrowser();
-  page = await browser.context.newPage();
-  page.on('pageerror', (e) => pageErrors.push(e.message));
-  await page.goto(`${server.url}#/sites`);
-  await page.waitForFunction(() => !!navigator.serviceWorker.controller);
-  await page.getByRole('button', { name: 'Load the demo site' }).click();
-  await page.waitForFunction((id) => location.hash === `#/sites/${id}`, DEMO_SITE_ID, { timeout: 60_000 });
+  app = await openApp(4287, { hash: '#/sites', pageErrors });
+  ({ server, browser, page } = app);
+  await loadDemoSite(page);
   await browser.context.setOffline(true);
 });
 
 afterAll(async () => {
   expect(pageErrors).toEqual([]);
-  await browser?.close();
-  await server?.stop();
+  await app?.close();
 });
 
 // Invented section: 13 verticals 0.5 m apart, edges dry; vertical 9 read at 0.2 and 0.8 depth.

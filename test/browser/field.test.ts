@@ -5,12 +5,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_SITE_ID, demoRating, demoScenario, dischargeAt } from '../../core';
 import { significant } from '../../web/format';
-import { ARTIFACTS, launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import { ARTIFACTS, type Browser, type Preview } from '../support/browser/harness';
+import { goTo, openApp, type AppSession } from '../support/browser/app';
 import { seriousViolations } from '../support/browser/axe';
 
 let server: Preview;
 let browser: Browser;
 let page: Page;
+let app: AppSession | undefined;
 
 async function shot(name: string): Promise<void> {
   await page.screenshot({ path: join(ARTIFACTS, `field-${name}.png`) });
@@ -38,25 +40,18 @@ async function storedReadings(siteId: string): Promise<{ all: number; live: numb
     siteId,
   );
 }
-async function go(hash: string): Promise<void> {
-  await page.goto(server.url + hash);
-  await page.locator('#screen-title').waitFor();
-}
+const go = (hash: string): Promise<void> => goTo(page, server.url, hash);
 async function typeStage(text: string): Promise<void> {
   await page.locator('#stage').fill(text);
 }
 
 beforeAll(async () => {
-  server = await startPreview(4183);
-  browser = await launchBrowser();
-  page = await browser.context.newPage();
-  await page.goto(server.url);
-  await page.waitForFunction(() => !!navigator.serviceWorker.controller);
+  app = await openApp(4183);
+  ({ server, browser, page } = app);
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
+  await app?.close();
 });
 
 describe('demo site', () => {

@@ -11,11 +11,13 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { findEventPoints, toIsoWithOffset, toLocalInput } from '../../core';
 import { formatQuantity } from '../../web/format';
-import { ARTIFACTS, launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import { ARTIFACTS, type Browser, type Preview } from '../support/browser/harness';
+import { goTo, openApp, type AppSession } from '../support/browser/app';
 
 let server: Preview;
 let browser: Browser;
 let page: Page;
+let app: AppSession | undefined;
 let siteId = '';
 
 const ZONE = 'Pacific/Auckland';
@@ -41,26 +43,19 @@ function loggerFile(): string {
   return `${lines.join('\r\n')}\r\n`;
 }
 
-async function go(hash: string): Promise<void> {
-  await page.goto(server.url + hash);
-  await page.locator('#screen-title').waitFor();
-}
+const go = (hash: string): Promise<void> => goTo(page, server.url, hash);
 async function noSidewaysScroll(): Promise<void> {
   expect(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth + 1)).toBe(true);
 }
 
 beforeAll(async () => {
-  server = await startPreview(4533);
-  browser = await launchBrowser();
-  page = await browser.context.newPage();
-  await page.goto(server.url);
-  await page.waitForFunction(() => !!navigator.serviceWorker.controller);
+  app = await openApp(4533);
+  ({ server, browser, page } = app);
   await browser.context.setOffline(true);
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
+  await app?.close();
 });
 
 describe('a logger record from import to export and storm, offline at 360×640', () => {

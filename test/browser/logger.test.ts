@@ -7,12 +7,13 @@
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { ARTIFACTS, launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import { ARTIFACTS, type Preview } from '../support/browser/harness';
+import { goTo, openApp, type AppSession } from '../support/browser/app';
 import { seriousViolations } from '../support/browser/axe';
 
 let server: Preview;
-let browser: Browser;
 let page: Page;
+let app: AppSession | undefined;
 let siteId = '';
 
 const ROWS = 100_000;
@@ -42,22 +43,15 @@ function loggerFile(): string {
 async function shot(name: string): Promise<void> {
   await page.screenshot({ path: join(ARTIFACTS, `logger-${name}.png`), fullPage: true });
 }
-async function go(hash: string): Promise<void> {
-  await page.goto(server.url + hash);
-  await page.locator('#screen-title').waitFor();
-}
+const go = (hash: string): Promise<void> => goTo(page, server.url, hash);
 
 beforeAll(async () => {
-  server = await startPreview(4530);
-  browser = await launchBrowser();
-  page = await browser.context.newPage();
-  await page.goto(server.url);
-  await page.waitForFunction(() => !!navigator.serviceWorker.controller);
+  app = await openApp(4530);
+  ({ server, page } = app);
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
+  await app?.close();
 });
 
 describe('check readings at the bank', () => {

@@ -6,12 +6,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_SITE_ID, demoScenario, dischargeAt, fitSegments, midSection, type Rating } from '../../core';
 import { formatQuantity } from '../../web/format';
-import { ARTIFACTS, launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import { ARTIFACTS, type Browser, type Preview } from '../support/browser/harness';
+import { goTo, openApp, type AppSession } from '../support/browser/app';
 import { seriousViolations } from '../support/browser/axe';
 
 let server: Preview;
 let browser: Browser;
 let page: Page;
+let app: AppSession | undefined;
 let siteId = '';
 /** Uncaught errors in the page: none are allowed (checked after all tests). */
 const pageErrors: string[] = [];
@@ -24,26 +26,18 @@ async function shot(name: string): Promise<void> {
 async function noSeriousViolations(where: string): Promise<void> {
   expect(await seriousViolations(page), where).toEqual([]);
 }
-async function go(hash: string): Promise<void> {
-  await page.goto(server.url + hash);
-  await page.locator('#screen-title').waitFor();
-}
+const go = (hash: string): Promise<void> => goTo(page, server.url, hash);
 
 beforeAll(async () => {
-  server = await startPreview(4460);
-  browser = await launchBrowser();
-  page = await browser.context.newPage();
-  page.on('pageerror', (e) => pageErrors.push(e.message));
-  await page.goto(server.url);
-  await page.waitForFunction(() => !!navigator.serviceWorker.controller);
+  app = await openApp(4460, { pageErrors });
+  ({ server, browser, page } = app);
   // Everything below runs from the service worker's cache with no network.
   await browser.context.setOffline(true);
 });
 
 afterAll(async () => {
   expect(pageErrors).toEqual([]);
-  await browser?.close();
-  await server?.stop();
+  await app?.close();
 });
 
 describe('the demo site', () => {

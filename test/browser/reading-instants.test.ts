@@ -3,11 +3,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_SITE_ID } from '../../core';
-import { launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import type { Preview } from '../support/browser/harness';
+import { loadDemoSite, openApp, type AppSession } from '../support/browser/app';
 
 let server: Preview;
-let browser: Browser;
 let page: Page;
+let app: AppSession | undefined;
 
 /** The stored readings of a site, straight from IndexedDB (the test may look; screens may not). */
 async function stored(siteId: string): Promise<{ time_ms: number; stage_m: number; warnings: string[] }[]> {
@@ -38,19 +39,15 @@ async function saveStage(text: string): Promise<void> {
 }
 
 beforeAll(async () => {
-  server = await startPreview(4293);
-  browser = await launchBrowser();
-  page = await browser.context.newPage();
-  await page.goto(`${server.url}#/sites`);
-  await page.getByRole('button', { name: 'Load the demo site' }).click();
-  await page.waitForURL(new RegExp(`#/sites/${DEMO_SITE_ID}$`), { timeout: 60_000 });
+  app = await openApp(4293, { hash: '#/sites', controlled: false });
+  ({ server, page } = app);
+  await loadDemoSite(page);
   await page.goto(`${server.url}#/record/${DEMO_SITE_ID}`);
   await page.locator('#stage').waitFor();
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
+  await app?.close();
 });
 
 describe('readings saved within one minute', () => {

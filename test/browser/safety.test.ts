@@ -9,12 +9,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import * as core from '../../core';
-import { launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import type { Preview } from '../support/browser/harness';
+import { goTo, openApp, type AppSession } from '../support/browser/app';
 
 const { DEMO_SITE_ID } = core;
 let server: Preview;
-let browser: Browser;
 let page: Page;
+let app: AppSession | undefined;
 
 // Internal names: snake_case identifiers, camelCase record fields, raw millisecond counts, error class
 // names, NaN/undefined; and every camelCase function exported by the core (e.g. separateBaseflow).
@@ -23,10 +24,7 @@ let page: Page;
 const LEAK = /\b[A-Za-z]+_[A-Za-z0-9_]+\b|\b(jumpLimit|timeZone|displayUnits|siteId|readingId|gaugedRange|baseflowAtPoints|bfiMax|followsClock)\b|\d{11,}|\bUTC ms\b|epoch|milliseconds|RecordValidationError|StorageError|RangeError|\bNaN\b|\bundefined\b/;
 const CORE_NAMES = Object.keys(core).filter((k) => /^[a-z]+[A-Z]/.test(k));
 
-async function go(hash: string): Promise<void> {
-  await page.goto(server.url + hash);
-  await page.locator('#screen-title').waitFor();
-}
+const go = (hash: string): Promise<void> => goTo(page, server.url, hash);
 /** The text a user can read, with their own typed text (echoed in quotes) taken out. */
 async function visibleText(): Promise<string> {
   // The time-zone list (option names such as "Africa/Addis_Ababa") is not a message: leave selects out.
@@ -66,21 +64,19 @@ async function storedReadings(siteId: string): Promise<{ time_ms: number; stage_
 }
 
 beforeAll(async () => {
-  server = await startPreview(4621);
-  browser = await launchBrowser();
-  await browser.context.addInitScript(() => {
-    const w = window as unknown as { __csp: string[] };
-    w.__csp = [];
-    document.addEventListener('securitypolicyviolation', (e) => w.__csp.push(`${e.effectiveDirective} ${e.blockedURI}`));
+  app = await openApp(4621, {
+    beforePage: (b) =>
+      b.context.addInitScript(() => {
+        const w = window as unknown as { __csp: string[] };
+        w.__csp = [];
+        document.addEventListener('securitypolicyviolation', (e) => w.__csp.push(`${e.effectiveDirective} ${e.blockedURI}`));
+      }),
   });
-  page = await browser.context.newPage();
-  await page.goto(server.url);
-  await page.waitForFunction(() => !!navigator.serviceWorker.controller);
+  ({ server, page } = app);
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
+  await app?.close();
 });
 
 describe('Content-Security-Policy (issue 10 item 10)', () => {

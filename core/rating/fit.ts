@@ -1,6 +1,6 @@
 import { tryJohnsonOffset } from './johnson';
 import { logLineAt } from './log-regression';
-import { brentMinimize } from './minimize';
+import { scanThenBrent } from './minimize';
 import type { GaugingPoint, RatingSegment } from './types';
 import { requireFinite } from './validate';
 
@@ -98,32 +98,16 @@ export function fitRating(points: readonly GaugingPoint[], options: FitRatingOpt
     const tLo = Math.log(span * OFFSET_NEAREST_FRACTION);
     const tHi = Math.log(span * OFFSET_SEARCH_SPANS);
     const sseAt = (t: number): number => logLineAt(stage, lnQ, minH - Math.exp(t), scratch).sse;
-    const candidates: number[] = [];
-    for (let k = 0; k < GRID_POINTS; k++) candidates.push(tLo + ((tHi - tLo) * k) / (GRID_POINTS - 1));
-    if (johnsonOffset_m !== undefined) {
-      const tJ = Math.log(minH - johnsonOffset_m);
-      if (tJ > tLo && tJ < tHi) candidates.push(tJ);
-    }
-    candidates.sort((a, b) => a - b);
-    let best = 0;
-    let bestSse = Infinity;
-    for (let k = 0; k < candidates.length; k++) {
-      const s = sseAt(candidates[k]);
-      if (s < bestSse) {
-        bestSse = s;
-        best = k;
-      }
-    }
-    const a = candidates[Math.max(0, best - 1)];
-    const b = candidates[Math.min(candidates.length - 1, best + 1)];
-    const min = brentMinimize(sseAt, a, b, candidates[best]);
-    offset = minH - Math.exp(min.x);
+    // Johnson's estimate seeds the scan when it falls inside the range.
+    const tJ = johnsonOffset_m !== undefined ? Math.log(minH - johnsonOffset_m) : NaN;
+    const t = scanThenBrent(sseAt, tLo, tHi, GRID_POINTS, tJ > tLo && tJ < tHi ? [tJ] : []);
+    offset = minH - Math.exp(t);
     const edge = 1e-6 * (tHi - tLo);
-    if (min.x - tLo <= edge) {
+    if (t - tLo <= edge) {
       warnings.push(
         `The offset ended at the top of its search range, just below the lowest gauged stage ${minH} m; it is poorly determined by these gaugings, so consider fixing it from a survey of the control.`,
       );
-    } else if (tHi - min.x <= edge) {
+    } else if (tHi - t <= edge) {
       warnings.push(
         `The offset ended at the bottom of its search range (${OFFSET_SEARCH_SPANS} stage spans below the lowest gauging); it is poorly determined by these gaugings, so consider fixing it from a survey of the control.`,
       );

@@ -1,4 +1,4 @@
-import { brentMinimize } from './minimize';
+import { scanThenBrent } from './minimize';
 import type { GaugingPoint, RatingSegment } from './types';
 
 /** Two segments fitted together under continuity at the breakpoint, and their log-space sum of squares. */
@@ -93,24 +93,7 @@ export function fitJoined(
   const upperOffset = (t: number) => breakpoint_m - Math.exp(t);
   const tOf = (distance: number) => Math.min(tHi, Math.max(tLo, Math.log(Math.max(distance, 1e-300))));
 
-  const searchT = (f: (t: number) => number, seed: number): number => {
-    const grid: number[] = [];
-    for (let k = 0; k < GRID_POINTS; k++) grid.push(tLo + ((tHi - tLo) * k) / (GRID_POINTS - 1));
-    grid.push(seed);
-    grid.sort((a, b) => a - b);
-    let best = 0;
-    let bestF = Infinity;
-    for (let k = 0; k < grid.length; k++) {
-      const v = f(grid[k]);
-      if (v < bestF) {
-        bestF = v;
-        best = k;
-      }
-    }
-    const a = grid[Math.max(0, best - 1)];
-    const b = grid[Math.min(grid.length - 1, best + 1)];
-    return a < b ? brentMinimize(f, a, b, grid[best]).x : grid[best];
-  };
+  const searchT = (f: (t: number) => number, seed: number): number => scanThenBrent(f, tLo, tHi, GRID_POINTS, [seed]);
 
   const seed1 = tOf(minLow - seeds.lowerOffset_m);
   const seed2 = tOf(breakpoint_m - seeds.upperOffset_m);

@@ -90,3 +90,30 @@ export function brentMinimize(
   }
   return { x, value: fx, evaluations };
 }
+
+/**
+ * Minimises f over [lo, hi] when f may have several dips: scans `gridPoints` equally spaced points and
+ * the `seeds` (each already inside [lo, hi]), then refines by Brent's method between the best point's
+ * neighbours. Returns the abscissa found. Throws a RangeError unless lo < hi and gridPoints ≥ 2.
+ */
+export function scanThenBrent(f: (x: number) => number, lo: number, hi: number, gridPoints: number, seeds: readonly number[] = []): number {
+  if (!(lo < hi) || !(gridPoints >= 2)) {
+    throw new RangeError(`scanThenBrent needs lo < hi and at least 2 grid points; got [${lo}, ${hi}] and ${gridPoints}`);
+  }
+  const grid: number[] = [];
+  for (let k = 0; k < gridPoints; k++) grid.push(lo + ((hi - lo) * k) / (gridPoints - 1));
+  grid.push(...seeds);
+  grid.sort((a, b) => a - b);
+  let best = 0;
+  let bestF = Infinity;
+  for (let k = 0; k < grid.length; k++) {
+    const v = f(grid[k]);
+    if (v < bestF) {
+      bestF = v;
+      best = k;
+    }
+  }
+  const a = grid[Math.max(0, best - 1)];
+  const b = grid[Math.min(grid.length - 1, best + 1)];
+  return brentMinimize(f, a, b, grid[best]).x;
+}

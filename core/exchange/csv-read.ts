@@ -1,5 +1,6 @@
 // Reading CSV text into records of fields (RFC 4180, with ',' ';' or tab between fields), keeping the
 // line each record starts on so that an import can name the line of every problem.
+import { withoutBom } from './text-file';
 
 /** One record of a CSV file: its fields and the 1-based line it starts on. */
 export interface CsvRecord {
@@ -26,7 +27,7 @@ export class CsvSyntaxError extends RangeError {
  * text after a closing quote.
  */
 export function readCsvRecords(text: string, delimiter: ',' | ';' | '\t' = ','): CsvRecord[] {
-  const s = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+  const s = withoutBom(text);
   const records: CsvRecord[] = [];
   let line = 1;
   let start = 1;

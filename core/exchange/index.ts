@@ -9,6 +9,7 @@ export { stormToCsv, type SeparatedStorm } from './storm-csv';
 export { DEFAULT_BUNDLE_BYTES, MIN_BUNDLE_BYTES, MAX_BUNDLE_BYTES_HEADER, bundleBudget, recordsThatFit, statedLimit_bytes, utf8Length, type BundleLimits } from './bundle-size';
 export { BUNDLE_FORMAT, BUNDLE_VERSION, BundleError, bundleChecksum, bundleRecordProblem, makeBundle, parseBundle, type Bundle, type BundleErrorReason, type BundleInput } from './bundle';
 export { sha256Hex, utf8Bytes } from './sha256';
+export { bundleJson, withoutBom } from './text-file';
 export { MAX_BUNDLE_DEPTH, nestedDeeperThan } from './nesting';
 export { escapeXml, gmlId } from './xml-write';
 export { watermlTimeseries, WATERML_QUALITY, type TimeseriesDocumentInput } from './waterml-timeseries';

@@ -2,6 +2,7 @@
 // line, which column is the time, stage, quality and note, the stage unit and the decimal mark. The
 // screen shows the guess for the user to confirm or change; nothing here is imported.
 import { readCsvRecords } from './csv-read';
+import { withoutBom } from './text-file';
 import { parseIsoWithOffset, type CsvStageUnit, type ReadingCsvMapping } from './readings-csv-import';
 
 /** The guess: a mapping (with undefined where no column was found) and the first records to preview. */
@@ -20,7 +21,7 @@ const find = (names: readonly string[], re: RegExp, not?: RegExp) => {
 
 /** Guesses the layout of a readings CSV from its text (only the first lines are read). */
 export function guessReadingsMapping(text: string, rows = 5): MappingGuess {
-  const head = text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/, 40);
+  const head = withoutBom(text).split(/\r\n|\n|\r/, 40);
   const lines = head.filter((l) => l.trim() !== '');
   const first = lines[0] ?? '';
   // The separator found on every one of the first lines, most often; on a tie tab, then ';' (a comma may be a decimal mark).

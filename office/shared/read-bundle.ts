@@ -2,7 +2,7 @@
 // one plain line.
 import { readFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
-import { BundleError, parseBundle, type Bundle } from '../../core/exchange/index';
+import { BundleError, bundleJson, parseBundle, type Bundle } from '../../core/exchange/index';
 import { CliError } from './io';
 
 /** The checked bundle in file `path` (relative to cwd), or a CliError (exit 1) saying what is wrong with it. */
@@ -18,8 +18,7 @@ export async function readBundleFile(command: string, path: string, cwd: string)
   }
   let json: unknown;
   try {
-    // A byte-order mark is not JSON; a file saved by an editor may start with one.
-    json = JSON.parse(text.replace(/^\uFEFF/, ''));
+    json = bundleJson(text);
   } catch (err) {
     throw new CliError(`freshet ${command}: ${path} is not a bundle: it is not valid JSON (${(err as Error).message.split('\n')[0]})`);
   }

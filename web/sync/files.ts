@@ -1,6 +1,6 @@
 // Bundle files: made for the share sheet (where the browser accepts the file) or a download, and read back
 // with every check of the format before anything is shown or stored.
-import { BundleError, parseBundle, type Bundle } from '../../core';
+import { BundleError, bundleJson, parseBundle, type Bundle } from '../../core';
 
 /** Largest bundle file read, bytes (about a year of 5-minute logger readings at several sites). */
 export const MAX_FILE_BYTES = 200 * 1024 * 1024;
@@ -55,7 +55,7 @@ export async function readBundleFile(file: Blob): Promise<Bundle> {
   }
   let parsed: unknown;
   try {
-    parsed = JSON.parse(await file.text());
+    parsed = bundleJson(await file.text());
   } catch {
     throw new BundleError('shape', 'This file is not a Freshet bundle: it is not JSON text. Choose a file the app saved as a bundle.');
   }

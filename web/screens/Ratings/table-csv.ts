@@ -1,7 +1,7 @@
 // Rating tables as CSV: reading one the office hands out (stage, discharge). Writing one is core's
 // ratingTablesToCsv, the one writer for the export and the rating screen.
 // Pure: text in, rows out; every refusal names the line.
-import { CsvSyntaxError, M3S_PER_CFS, M_PER_FT, readCsvRecords, type CsvRecord, type TableRow, type UnitSystem } from '../../../core';
+import { CsvSyntaxError, M3S_PER_CFS, M_PER_FT, readCsvRecords, withoutBom, type CsvRecord, type TableRow, type UnitSystem } from '../../../core';
 import { parseDecimal } from '../../format';
 
 /** The rows of a table CSV in SI, and the units its header said (or the site's when it said none). */
@@ -43,7 +43,7 @@ function dischargeUnitOf(header: string): 'm³/s' | 'ft³/s' | undefined {
  * naming the line; needs at least 3 rows.
  */
 export function parseTableCsv(text: string, siteUnits: UnitSystem): ParsedTable {
-  const body = text.replace(/^\uFEFF/, '');
+  const body = withoutBom(text);
   const firstLine = body.split(/\r\n|\n|\r/).find((l) => l.trim() !== '');
   if (firstLine === undefined) throw new TableCsvError(1, 'the file is empty; a table needs a stage and a discharge on each line.');
   // A semicolon file is the usual one where the decimal mark is a comma.

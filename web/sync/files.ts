@@ -1,6 +1,7 @@
 // Bundle files: made for the share sheet (where the browser accepts the file) or a download, and read back
 // with every check of the format before anything is shown or stored.
 import { BundleError, bundleJson, parseBundle, type Bundle } from '../../core';
+import { downloadFile } from '../save-file';
 
 /** Largest bundle file read, bytes (about a year of 5-minute logger readings at several sites). */
 export const MAX_FILE_BYTES = 200 * 1024 * 1024;
@@ -39,12 +40,7 @@ export async function shareOrDownload(bundle: Bundle, changesOnly: boolean, shar
       }
     }
   }
-  const url = URL.createObjectURL(new File([JSON.stringify(bundle)], name, { type: 'application/json' }));
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = name;
-  a.click();
-  setTimeout(() => URL.revokeObjectURL(url), 10_000);
+  downloadFile(new File([JSON.stringify(bundle)], name, { type: 'application/json' }));
   return { kind: 'downloaded', name };
 }
 

@@ -7,7 +7,7 @@ import {
 } from '../../../core';
 import { latestStageTime, listGaugings, listRatings, stageRecordIn } from '../../db';
 import { describedBy, Field } from '../../components/Field';
-import { saveTextFile } from './save-file';
+import { saveTextFile } from '../../save-file';
 
 /** What can be exported, with the label the screen shows and whether it reads the window of readings. */
 const KINDS = {

@@ -3,6 +3,7 @@ import { useMemo, useState } from 'preact/hooks';
 import { fromDisplay, ratingTable, ratingTablesToCsv, toDisplay, type RatingRecord, type SiteRecord } from '../../../core';
 import { Field } from '../../components/Field';
 import { formatQuantity, parseDecimal } from '../../format';
+import { downloadFile } from '../../save-file';
 
 /** The table of one rating, from its zero-flow stage (or gauged low) to above its gauged top. */
 export function RatingTableView({ site, rating }: { site: SiteRecord; rating: RatingRecord }) {
@@ -43,12 +44,7 @@ export function RatingTableView({ site, rating }: { site: SiteRecord; rating: Ra
     } catch (err) {
       if ((err as Error).name === 'AbortError') return;
     }
-    const url = URL.createObjectURL(file);
-    const a = document.createElement('a');
-    a.href = url;
-    a.download = csvName;
-    a.click();
-    setTimeout(() => URL.revokeObjectURL(url), 10_000);
+    downloadFile(file);
     setMessage(`Saved as ${csvName}.`);
   }
 

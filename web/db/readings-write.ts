@@ -12,14 +12,16 @@ import { now_ms, observeRevsInTx, stampInTx } from './clock';
 import { StorageError, storageMessage } from './errors';
 import { afterWrite, DURABLE, inTx, keptInTx, removeInTx, withSeen, type SaveInput } from './records';
 import { isAhead } from '../../core/sync/index';
-import type { FreshetDB, ReadingsStores, ReadingsTx } from './schema';
+import type { FreshetDB, ReadingsTx } from './schema';
 import { putChunksInTx, updateSeriesInTx } from './series-edit';
 import { abortError, DEFAULT_IMPORT_BATCH, planReadingsAdd, type ImportOptions, type ImportResult } from './readings-add';
 import { quietly } from './quietly';
-import { beyondReadingsWrite, SCOPES } from './stores';
+import { beyondReadingsWrite, SCOPES, type ReadingsWriteStore } from './stores';
 
 export { DEFAULT_IMPORT_BATCH, type ImportDuplicate, type ImportOptions, type ImportProgress, type ImportResult } from './readings-add';
-export { type ReadingsStores, type ReadingsTx };
+export { type ReadingsTx };
+/** Stores every readings write holds: the readings, their series, and meta for the revision clock. */
+export type ReadingsStores = ReadingsWriteStore;
 
 /** Other stores a caller may write in the same transaction as readings. */
 export type OtherStore = Exclude<StoreNames<FreshetDB>, ReadingsStores>;

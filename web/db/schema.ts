@@ -5,7 +5,6 @@ import type {
 } from '../../core/records/index';
 import type { Bundle } from '../../core/exchange/index';
 import type { OutboxLimits, SetAsideEntry } from './outbox-state';
-import type { ReadingsWriteStore } from './stores';
 
 /** Name of the app's database. */
 export const DB_NAME = 'freshet';
@@ -129,9 +128,6 @@ export interface FreshetDB extends DBSchema {
   /** Logger records, one record per site and UTC day (since version 3); they sync as kind 'logger-day'. */
   loggerDays: { key: string; value: LoggerDayRecord; indexes: { 'by-site-day': [string, number]; 'by-rev': string } };
 }
-
-/** Stores every readings write holds: the readings, their series, and meta for the revision clock. */
-export type ReadingsStores = ReadingsWriteStore;
 
 /**
  * A readwrite transaction of the readings writer: it holds the readings, series and meta stores and the

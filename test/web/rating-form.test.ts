@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { dischargeAt, M3S_PER_CFS, M_PER_FT, ratingContinuity } from '../../core';
-import { blankRatingForm, parseRatingForm, previewStages, segmentTexts, type RatingForm } from '../../web/screens/Ratings/rating-form';
+import { blankRatingForm, parseRatingForm, previewStages, readValidFrom, segmentTexts, type RatingForm } from '../../web/screens/Ratings/rating-form';
 
 const ctx = { units: 'metric' as const, timeZone: 'Pacific/Auckland', now_ms: Date.UTC(2026, 5, 1, 0, 0) };
 const form = (over: Partial<RatingForm> = {}): RatingForm => ({
@@ -55,5 +55,17 @@ describe('parseRatingForm', () => {
     if (!two.ok) throw new Error('refused');
     // exact: 5·0.7² = 2.45 below, 9·0.5^1.6 = 2.969 above: a 21 % jump
     expect(ratingContinuity({ segments: two.segments }).breakpoints[0].jump_pct).toBeCloseTo((100 * (9 * 0.5 ** 1.6 - 2.45)) / 2.45, 10);
+  });
+});
+
+describe('readValidFrom (the hand entry, the fit and the table import)', () => {
+  it('reads a local time in the site zone, allows the minute being typed, refuses a later time and an unreadable one', () => {
+    // Pacific/Auckland is UTC+12 in June (NZST; IANA tz database): 2026-06-01 12:00 local = 00:00 UTC.
+    expect(readValidFrom('2026-06-01T12:00', ctx.timeZone, ctx.now_ms)).toEqual({ ok: true, validFrom_ms: ctx.now_ms });
+    expect(readValidFrom('2026-06-01T12:01', ctx.timeZone, ctx.now_ms)).toEqual({ ok: true, validFrom_ms: ctx.now_ms + 60_000 });
+    expect(readValidFrom('2026-06-01T12:02', ctx.timeZone, ctx.now_ms)).toEqual({ ok: false, problem: 'future' });
+    expect(readValidFrom('June first', ctx.timeZone, ctx.now_ms)).toEqual({ ok: false, problem: 'unreadable' });
+    // 2026-09-27 02:30 does not exist in Auckland (clocks go from 02:00 to 03:00; IANA tz database).
+    expect(readValidFrom('2026-09-27T02:30', ctx.timeZone, Date.UTC(2027, 0, 1))).toEqual({ ok: false, problem: 'unreadable' });
   });
 });

@@ -2,7 +2,7 @@
 // (breakpoint typed or slid), offset found by the fit (Johnson's estimate as its start) or fixed. Shows
 // the standard error, each gauging's deviation and the core's warnings; "Keep this rating" saves it.
 import { useMemo, useState } from 'preact/hooks';
-import { fromLocalInput, johnsonOffset, toDisplay, toLocalInput, type SiteRecord } from '../../../core';
+import { johnsonOffset, toDisplay, toLocalInput, type SiteRecord } from '../../../core';
 import { ratingsAndGaugings, saveRating } from '../../db';
 import { useRecords } from '../../components/use-records';
 import { errorOf, Field } from '../../components/Field';
@@ -12,6 +12,7 @@ import { rangeText, segmentFormula, unitLabels } from './describe';
 import { NumberField } from '../../components/NumberField';
 import { DEFAULT_FIT_CHOICES, defaultSelection, plainFitWarning, runFit, type FitChoices } from './fit-choice';
 import { plainError } from '../../plain-words';
+import { readValidFrom } from './rating-form';
 
 /** The fit screen of one site. */
 export function FitRating({ site }: { site: SiteRecord }) {
@@ -50,14 +51,12 @@ function FitForm({ site, gaugings }: { site: SiteRecord; gaugings: Awaited<Retur
   async function keep() {
     setFailure(undefined);
     if (!outcome.ok) return;
-    let validFrom_ms: number;
-    try {
-      validFrom_ms = fromLocalInput(validFromText, site.timeZone);
-      if (validFrom_ms > Date.now() + 60_000) throw new RangeError('future');
-    } catch {
+    const from = readValidFrom(validFromText, site.timeZone, Date.now());
+    if (!from.ok) {
       setFailure('Not saved: give the date and time the rating applies from, not in the future.');
       return;
     }
+    const { validFrom_ms } = from;
     try {
       const saved = await saveRating({
         siteId: site.id, validFrom_ms, segments: outcome.fit.rating.segments, gaugedRange_m: outcome.fit.rating.gaugedRange_m, shifts: [],

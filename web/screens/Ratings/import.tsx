@@ -1,7 +1,7 @@
 // Importing the office's rating table (CSV of stage, discharge): fitted to one or two segments with the
 // fit's standard error, or kept as the table itself with log–log interpolation between its rows.
 import { useMemo, useState } from 'preact/hooks';
-import { fitSegments, fromDisplay, fromLocalInput, ratingFromTable, toDisplay, toLocalInput, type Rating, type SiteRecord } from '../../../core';
+import { fitSegments, fromDisplay, ratingFromTable, toDisplay, toLocalInput, type Rating, type SiteRecord } from '../../../core';
 import { saveRating } from '../../db';
 import { Field } from '../../components/Field';
 import { formatQuantity, parseDecimal } from '../../format';
@@ -10,6 +10,7 @@ import { segmentFormula, unitLabels } from './describe';
 import { NumberField } from '../../components/NumberField';
 import { plainFitMessage } from './fit-choice';
 import { plainError } from '../../plain-words';
+import { readValidFrom } from './rating-form';
 import { parseTableCsv, TableCsvError, type ParsedTable } from './table-csv';
 
 type Keep = 'fit1' | 'fit2' | 'table';
@@ -61,14 +62,12 @@ export function ImportTable({ site }: { site: SiteRecord }) {
   async function save() {
     setFailure(undefined);
     if (!result || 'error' in result || !table?.ok) return;
-    let validFrom_ms: number;
-    try {
-      validFrom_ms = fromLocalInput(validFromText, site.timeZone);
-      if (validFrom_ms > Date.now() + 60_000) throw new RangeError('future');
-    } catch {
+    const from = readValidFrom(validFromText, site.timeZone, Date.now());
+    if (!from.ok) {
       setFailure('Not saved: give the date and time the rating applies from, not in the future.');
       return;
     }
+    const { validFrom_ms } = from;
     const lo = rangeText[0].trim() ? parseDecimal(rangeText[0]) : undefined;
     const hi = rangeText[1].trim() ? parseDecimal(rangeText[1]) : undefined;
     if ((rangeText[0].trim() && lo === undefined) || (rangeText[1].trim() && hi === undefined) || (lo === undefined) !== (hi === undefined) || (lo !== undefined && hi !== undefined && lo > hi)) {

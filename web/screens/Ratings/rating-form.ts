@@ -55,6 +55,24 @@ export function segmentTexts(segments: readonly RatingSegment[], units: UnitSyst
   }));
 }
 
+/** A rating may apply from a typed time up to this far ahead of the clock, ms (1 min: the minute being typed). */
+const VALID_FROM_AHEAD_MS = 60_000;
+
+/**
+ * The time a rating applies from, typed as a local date and time in the site's zone: the UTC ms, or why
+ * it cannot be used ('unreadable': not a date and time, or a time the clock skips; 'future': after now).
+ * The one rule of the hand entry, the fit and the table import.
+ */
+export function readValidFrom(text: string, timeZone: string, now_ms: number): { ok: true; validFrom_ms: number } | { ok: false; problem: 'unreadable' | 'future' } {
+  let validFrom_ms: number;
+  try {
+    validFrom_ms = fromLocalInput(text, timeZone);
+  } catch {
+    return { ok: false, problem: 'unreadable' };
+  }
+  return validFrom_ms > now_ms + VALID_FROM_AHEAD_MS ? { ok: false, problem: 'future' } : { ok: true, validFrom_ms };
+}
+
 /**
  * Reads the form: every number must be a number; coefficient and exponent above 0; each segment's start
  * above the one before and its offset below its start (above the first); the gauged range low ≤ high;
@@ -72,13 +90,11 @@ export function parseRatingForm(form: RatingForm, ctx: FormContext): ParsedRatin
     if (v === undefined) errors.push({ field, text: `The ${what} must be a number, like ${example}; got “${text.trim()}”.` });
     return v;
   };
-  let validFrom_ms: number | undefined;
-  try {
-    validFrom_ms = fromLocalInput(form.validFromText, ctx.timeZone);
-    if (validFrom_ms > ctx.now_ms + 60_000) {
-      errors.push({ field: 'validFrom', text: 'The rating cannot apply from a time in the future; give today’s date or an earlier one.' });
-    }
-  } catch {
+  const validFrom = readValidFrom(form.validFromText, ctx.timeZone, ctx.now_ms);
+  const validFrom_ms = validFrom.ok ? validFrom.validFrom_ms : undefined;
+  if (!validFrom.ok && validFrom.problem === 'future') {
+    errors.push({ field: 'validFrom', text: 'The rating cannot apply from a time in the future; give today’s date or an earlier one.' });
+  } else if (!validFrom.ok) {
     errors.push({ field: 'validFrom', text: 'Give the date and time the rating applies from.' });
   }
   if (form.segments.length === 0) errors.push({ field: 'segments', text: 'A rating needs at least one segment.' });

@@ -7,6 +7,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import { goByHash, until as waitUntil } from '../support/browser/app';
 import { startTestEndpoint, type TestEndpoint } from '../support/browser/test-endpoint';
 
 const APP_PORT = 4494;
@@ -18,24 +19,15 @@ let phone: Browser;
 /** The last good exchange the phone had stored when the page of the first test closed. */
 let lastExchange = 0;
 
-async function until(what: string, check: () => boolean | Promise<boolean>, timeout_ms = 30_000): Promise<void> {
-  const end = Date.now() + timeout_ms;
-  while (!(await check())) {
-    if (Date.now() > end) throw new Error(`Timed out waiting until ${what}`);
-    await new Promise((r) => setTimeout(r, 100));
-  }
-}
+/** The shared until, polling every 100 ms as this file always has. */
+const until = (what: string, check: () => boolean | Promise<boolean>, timeout_ms = 30_000) => waitUntil(what, check, timeout_ms, 100);
 
 const pause = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** Every request the office endpoint saw from this test's one phone: pulls, pushes and CORS preflights. */
 const officeRequests = () => endpoint.pulls.length + endpoint.pushes.length + endpoint.preflights;
 
-async function go(page: Page, hash: string): Promise<void> {
-  await page.evaluate((h) => (location.hash = h), hash);
-  await page.waitForFunction((h) => location.hash === h, hash);
-  await page.locator('#screen-title').waitFor();
-}
+const go = goByHash;
 
 /** The time of the last good exchange the phone stored (0 before any), read from IndexedDB. */
 function lastSuccess(page: Page): Promise<number> {

@@ -5,6 +5,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import { goByHash, until } from '../support/browser/app';
 import { seriousViolations } from '../support/browser/axe';
 import { startTestEndpoint, type TestEndpoint } from '../support/browser/test-endpoint';
 
@@ -19,19 +20,7 @@ const T = Math.floor((Date.now() - 86_400_000) / 60_000) * 60_000;
 const iso = (ms: number) => new Date(ms).toISOString().replace('.000Z', 'Z');
 const noteOf = (r: { body: unknown }) => (r.body as { note?: string }).note ?? '';
 
-async function until(what: string, check: () => boolean | Promise<boolean>, timeout_ms = 30_000): Promise<void> {
-  const end = Date.now() + timeout_ms;
-  while (!(await check())) {
-    if (Date.now() > end) throw new Error(`Timed out waiting until ${what}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
-}
-
-async function go(hash: string): Promise<void> {
-  await page.evaluate((h) => (location.hash = h), hash);
-  await page.waitForFunction((h) => location.hash === h, hash);
-  await page.locator('#screen-title').waitFor();
-}
+const go = (hash: string): Promise<void> => goByHash(page, hash);
 
 async function syncNow(): Promise<void> {
   await go('#/sync');

@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { formatRev, makeBundle, type SyncRecord } from '../../core';
 import { launchBrowser, startPreview, type Browser, type Preview } from '../support/browser/harness';
+import { goByHash, until } from '../support/browser/app';
 import { seriousViolations } from '../support/browser/axe';
 import { startTestEndpoint, type TestEndpoint } from '../support/browser/test-endpoint';
 
@@ -20,14 +21,6 @@ let a: Page;
 let b: Page;
 let siteId = '';
 
-async function until(what: string, check: () => boolean | Promise<boolean>, timeout_ms = 30_000): Promise<void> {
-  const end = Date.now() + timeout_ms;
-  while (!(await check())) {
-    if (Date.now() > end) throw new Error(`Timed out waiting until ${what}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
-}
-
 async function open(browser: Browser): Promise<Page> {
   const page = await browser.context.newPage();
   await page.goto(server.url);
@@ -35,12 +28,7 @@ async function open(browser: Browser): Promise<Page> {
   return page;
 }
 
-/** Moves inside the app by its hash route (no reload, so it works offline too). */
-async function go(page: Page, hash: string): Promise<void> {
-  await page.evaluate((h) => (location.hash = h), hash);
-  await page.waitForFunction((h) => location.hash === h, hash);
-  await page.locator('#screen-title').waitFor();
-}
+const go = goByHash;
 
 async function setEndpoint(page: Page, token: string): Promise<void> {
   await go(page, '#/sync');

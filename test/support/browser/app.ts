@@ -59,3 +59,19 @@ export async function loadDemoSite(page: Page): Promise<void> {
   await page.getByRole('button', { name: 'Load the demo site' }).click();
   await page.waitForFunction((id) => location.hash === `#/sites/${id}`, DEMO_SITE_ID, { timeout: 60_000 });
 }
+
+/** Moves inside the app by its hash route (no reload, so it works offline too) and waits for the screen's title. */
+export async function goByHash(page: Page, hash: string): Promise<void> {
+  await page.evaluate((h) => (location.hash = h), hash);
+  await page.waitForFunction((h) => location.hash === h, hash);
+  await page.locator('#screen-title').waitFor();
+}
+
+/** Resolves once `check` holds, asking every `poll_ms`; throws "Timed out waiting until <what>" after `timeout_ms`. */
+export async function until(what: string, check: () => boolean | Promise<boolean>, timeout_ms = 30_000, poll_ms = 200): Promise<void> {
+  const end = Date.now() + timeout_ms;
+  while (!(await check())) {
+    if (Date.now() > end) throw new Error(`Timed out waiting until ${what}`);
+    await new Promise((r) => setTimeout(r, poll_ms));
+  }
+}

@@ -3,25 +3,14 @@
 // of 15-minute readings (2,880) with their discharges (as the compact series; as whole records and a bare
 // getAll of them for comparison). Prints JSON lines; asserts nothing.
 // Run: node --import tsx test/bench/db.browser.ts
-import { launchBrowser, startPreview } from '../support/browser/harness';
-import { buildDbPages, DB_PAGES_DIR } from '../support/browser/pages/build';
-import { emit, figure, sig3 } from './measure';
+import { openTestPage } from '../support/browser/pages/build';
+import { emit, figure, median, sig3 } from './measure';
 
 const N = Number(process.env.FRESHET_BENCH_READINGS ?? 100_000);
 const ROUNDS = Number(process.env.FRESHET_BENCH_ROUNDS ?? 3);
 
-function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  return s[Math.floor(s.length / 2)];
-}
-
-buildDbPages();
-const server = await startPreview(4312, DB_PAGES_DIR);
-const browser = await launchBrowser();
+const { page, close } = await openTestPage(4312, 'db.html');
 try {
-  const page = await browser.context.newPage();
-  await page.goto(`${server.url}db.html`);
-  await page.waitForFunction(() => document.body.dataset.ready === 'true');
   const imports: number[] = [];
   const bare: number[] = [];
   // Alternate the two so drift in the machine's load affects both alike.
@@ -50,6 +39,5 @@ try {
     rows: window30.rows, runs: 21,
   });
 } finally {
-  await browser.close();
-  await server.stop();
+  await close();
 }

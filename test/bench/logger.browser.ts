@@ -3,25 +3,14 @@
 // its ratio to the floor of a bare put loop of the same day records measured in the same run, and the
 // worker's parse throughput in rows per second. Prints JSON lines; asserts nothing.
 // Run: node --import tsx test/bench/logger.browser.ts
-import { launchBrowser, startPreview } from '../support/browser/harness';
-import { buildDbPages, DB_PAGES_DIR } from '../support/browser/pages/build';
-import { emit, sig3 } from './measure';
+import { openTestPage } from '../support/browser/pages/build';
+import { emit, median, sig3 } from './measure';
 
 const N = Number(process.env.FRESHET_BENCH_LOGGER_ROWS ?? 100_000);
 const ROUNDS = Number(process.env.FRESHET_BENCH_ROUNDS ?? 5);
 
-function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  return s[Math.floor(s.length / 2)];
-}
-
-buildDbPages();
-const server = await startPreview(4531, DB_PAGES_DIR);
-const browser = await launchBrowser();
+const { page, close } = await openTestPage(4531, 'logger.html');
 try {
-  const page = await browser.context.newPage();
-  await page.goto(`${server.url}logger.html`);
-  await page.waitForFunction(() => document.body.dataset.ready === 'true');
   const runs: { parse_ms: number; correct_ms: number; store_ms: number; total_ms: number; stored: number }[] = [];
   const floor: number[] = [];
   // Alternate the two so drift in the machine's load affects both alike.
@@ -40,6 +29,5 @@ try {
   emit({ name: 'logger-import-100k-ratio', value: sig3(total / bare), target: 'informative', import_ms: sig3(total), bare_day_put_ms: sig3(bare), rows: N });
   emit({ name: 'logger-parse-rows-per-s', value: sig3(N / (parse / 1000)), target: 'informative', unit: 'rows/s', parse_ms: sig3(parse), rows: N });
 } finally {
-  await browser.close();
-  await server.stop();
+  await close();
 }

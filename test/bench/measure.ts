@@ -19,6 +19,12 @@ export function medianMs(fn: () => unknown, runs = 15, warmup = 3): number {
   return times[Math.floor(times.length / 2)];
 }
 
+/** The median of `xs` (the upper middle one of an even count). */
+export function median(xs: readonly number[]): number {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)];
+}
+
 /** Rounds to 3 significant figures for printing. */
 export function sig3(x: number): number {
   return Number(x.toPrecision(3));

@@ -9,7 +9,7 @@ import type { Database } from '../../office/receiver/db';
 import { createDevice } from '../../office/receiver/devices';
 import { pullBundles, storeBundle } from '../../office/receiver/store';
 import { bundleOf, readingRecords } from '../support/office/phones';
-import { figure, sig3 } from './measure';
+import { figure, median, sig3 } from './measure';
 import { onEachEngine } from './office-engines';
 
 const READINGS = Number(process.env.FRESHET_BENCH_GROWTH_READINGS ?? 1_000_000);
@@ -19,11 +19,6 @@ const WARMUP = 4;
 
 function mean(xs: readonly number[]): number {
   return xs.reduce((a, b) => a + b, 0) / xs.length;
-}
-
-function median(xs: readonly number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  return s[s.length >> 1];
 }
 
 async function deviceNo(db: Database, name: string): Promise<number> {

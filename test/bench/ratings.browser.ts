@@ -4,7 +4,7 @@
 // Run (after a build): node --import tsx test/bench/ratings.browser.ts
 import { formatRev, validateBody, type GaugingBody, type RatingBody, type SiteBody } from '../../core';
 import { launchBrowser, startPreview } from '../support/browser/harness';
-import { emit, sig3 } from './measure';
+import { emit, median, sig3 } from './measure';
 
 const RUNS = Number(process.env.FRESHET_BENCH_ROUNDS ?? 3) * 7;
 const SITE_ID = '0be0c4a0-0000-4000-8000-000000000001';
@@ -37,11 +37,6 @@ function records(): { sites: object[]; ratings: object[]; gaugings: object[] } {
     return { ...envelope(`0be0c4a0-0000-4000-8002-${String(i).padStart(12, '0')}`), ...body };
   });
   return { sites: [{ ...envelope(SITE_ID), ...site }], ratings, gaugings };
-}
-
-function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  return s[Math.floor(s.length / 2)];
 }
 
 const server = await startPreview(4461);

@@ -2,17 +2,11 @@
 // baseflow, figures and every method, redraw) against a redraw alone, and a 100,000-reading hydrograph
 // drawn with its baseflow and shading against the bare series, each pair measured in the same run.
 // Prints JSON lines; asserts nothing. Run: node --import tsx test/bench/storm-plot.browser.ts
-import { launchBrowser, startPreview } from '../support/browser/harness';
-import { buildDbPages, DB_PAGES_DIR } from '../support/browser/pages/build';
+import { openTestPage } from '../support/browser/pages/build';
 import { emit, sig3 } from './measure';
 
-buildDbPages();
-const server = await startPreview(4435, DB_PAGES_DIR);
-const browser = await launchBrowser();
+const { page, close } = await openTestPage(4435, 'plot.html');
 try {
-  const page = await browser.context.newPage();
-  await page.goto(`${server.url}plot.html`);
-  await page.waitForFunction(() => document.body.dataset.ready === 'true');
   const drag = await page.evaluate(() => window.freshetPlotTest.dragStep(2000, 41));
   emit({
     name: 'storm-drag-step-recompute-redraw-2000-ms', value: sig3(drag.drag_ms), target: '< 16', unit: 'ms', readings: 2000, steps: 41,
@@ -23,6 +17,5 @@ try {
   emit({ name: 'storm-plot-render-100k-with-baseflow-ms', value: sig3(render.withBaseflow_ms), target: '< 100', unit: 'ms', readings: 100_000, runs: 9 });
   emit({ name: 'storm-plot-render-100k-to-bare-ratio', value: sig3(render.withBaseflow_ms / render.bare_ms), target: 'informative', with_baseflow_ms: sig3(render.withBaseflow_ms), bare_ms: sig3(render.bare_ms) });
 } finally {
-  await browser.close();
-  await server.stop();
+  await close();
 }

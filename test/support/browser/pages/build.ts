@@ -1,7 +1,8 @@
 // Builds the storage test page (test/support/browser/pages) into dist-test-pages/ for the browser test and benchmark.
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
-import { ROOT } from '../harness';
+import type { Page } from 'playwright-core';
+import { launchBrowser, ROOT, startPreview } from '../harness';
 
 /** Folder (relative to the repo root) the storage test page is built into. */
 export const DB_PAGES_DIR = 'dist-test-pages';
@@ -13,4 +14,30 @@ export function buildDbPages(): void {
     stdio: ['ignore', 'inherit', 'inherit'],
   });
   if (r.status !== 0) throw new Error('vite build of test/support/browser/pages failed');
+}
+
+/**
+ * Builds the test pages, serves them on 127.0.0.1:`port`, launches Chromium and opens `name` (db.html,
+ * logger.html, plot.html) once the page says it is ready. `close` closes the browser and stops the server.
+ */
+export async function openTestPage(port: number, name: string): Promise<{ page: Page; close: () => Promise<void> }> {
+  buildDbPages();
+  const server = await startPreview(port, DB_PAGES_DIR);
+  const browser = await launchBrowser().catch(async (e: unknown) => {
+    await server.stop();
+    throw e;
+  });
+  const close = async (): Promise<void> => {
+    await browser.close();
+    await server.stop();
+  };
+  try {
+    const page = await browser.context.newPage();
+    await page.goto(`${server.url}${name}`);
+    await page.waitForFunction(() => document.body.dataset.ready === 'true');
+    return { page, close };
+  } catch (e) {
+    await close();
+    throw e;
+  }
 }

@@ -20,11 +20,23 @@ export interface Database extends Queryable {
   exec(sql: string): Promise<void>;
   /** Closes the connection(s); for PGlite, flushes the folder. */
   close(): Promise<void>;
+  /**
+   * True once this database can answer nothing more and must be opened again (PGlite: its engine was
+   * closed or aborted; keep-open.ts then reopens it). Absent for a server, whose pool reconnects itself.
+   */
+  lost?(): boolean;
 }
 
 /** Opens (and on first use creates) a PGlite database in folder `dir`; creating one takes ~10–30 s. */
 export async function openPglite(dir: string): Promise<Database> {
   const db = await PGlite.create(dir);
+  // An engine that aborted (WebAssembly trap, exit) answers nothing more; closed is PGlite's own flag.
+  let aborted = false;
+  const watch = (err: unknown): never => {
+    const e = err as { name?: unknown; message?: unknown } | null;
+    if (e?.name === 'RuntimeError' || e?.name === 'ExitStatus' || /^Aborted\(/.test(String(e?.message))) aborted = true;
+    throw err;
+  };
   // PGlite runs PostgreSQL in this thread. Queued statements resume one another through promise
   // callbacks, which run before the event loop reads sockets again, so a queue of pushes could keep the
   // HTTP server from reading for many seconds (long enough for its keep-alive timer to drop connections
@@ -33,7 +45,7 @@ export async function openPglite(dir: string): Promise<Database> {
   const wrap = (q: { query: PGlite['query'] }): Queryable => ({
     async query<T>(sql: string, params: readonly unknown[] = []) {
       await yieldToEventLoop();
-      const r = await q.query<T>(sql, [...params]);
+      const r = await q.query<T>(sql, [...params]).catch(watch);
       return r.rows;
     },
   });
@@ -43,12 +55,13 @@ export async function openPglite(dir: string): Promise<Database> {
     // PGlite is one connection: its transaction() queues every other query and transaction behind this one.
     transaction: async (fn) => {
       await yieldToEventLoop();
-      return db.transaction((tx) => fn(wrap(tx)));
+      return db.transaction((tx) => fn(wrap(tx))).catch(watch);
     },
     async exec(sql) {
-      await db.exec(sql);
+      await db.exec(sql).catch(watch);
     },
     close: () => db.close(),
+    lost: () => aborted || db.closed || !db.ready,
   };
 }
 

@@ -11,6 +11,7 @@ import { authenticate, type AuthenticatedDevice } from './devices';
 import { IntegrityError, pullBundles, storeBundle, type StoreOptions } from './store';
 import { BODY_BUDGET_BUNDLES, BODY_READ_LIMIT_MS, BodyBudget, DEFAULT_MAX_CONNECTIONS, readBody, tooLarge } from './intake';
 import { findUnstorableRecord, isDataError, positionOf, Refusal } from './refusal';
+import { DatabaseDown } from './keep-open';
 
 /** Largest bundle the receiver accepts by default, bytes of request body (16 MiB, ~40,000 readings). */
 export const DEFAULT_MAX_BUNDLE_BYTES = 16 * 1024 * 1024;
@@ -75,7 +76,8 @@ export function createReceiver(options: ReceiverOptions): Server {
 function answerFailure(res: ServerResponse, err: unknown, fields: LogFields): number {
   const refusal = err instanceof Refusal
     ? err
-    : new Refusal(503, 'unavailable', 'The office receiver could not reach its database just now; nothing was stored. The phone tries again later.', undefined, DATABASE_RETRY_S);
+    : new Refusal(503, 'unavailable', 'The office receiver could not reach its database just now; nothing was stored. The phone tries again later.', undefined,
+      err instanceof DatabaseDown ? err.retryAfter_s : DATABASE_RETRY_S);
   fields.outcome = err instanceof Refusal ? err.reason : `error: ${err instanceof Error ? err.message : String(err)}`;
   if (res.headersSent) {
     res.destroy();

@@ -2,12 +2,18 @@
 // WebAssembly, in a folder) and a PostgreSQL server through `pg`. Everything above this file writes the
 // same SQL for both; the only differences handled here are connection handling and the result types.
 import { PGlite } from '@electric-sql/pglite';
+import { runNamed } from './pglite-named';
 import pg from 'pg';
 
 /** One query: positional parameters ($1, $2, …) and rows as plain objects. */
 export interface Queryable {
-  /** Runs one statement; bigint columns should be cast to text in the SQL (the engines return them differently). */
-  query<T = Record<string, unknown>>(sql: string, params?: readonly unknown[]): Promise<T[]>;
+  /**
+   * Runs one statement; bigint columns should be cast to text in the SQL (the engines return them
+   * differently). With a `name` the statement is prepared once per connection under that name and then
+   * only run (no parsing or planning again): give every column as text in the SQL, since a named
+   * statement's columns come back as text (or null) on PGlite.
+   */
+  query<T = Record<string, unknown>>(sql: string, params?: readonly unknown[], name?: string): Promise<T[]>;
 }
 
 /** A database the receiver can use: queries, transactions (all or nothing), several statements, close. */
@@ -42,20 +48,22 @@ export async function openPglite(dir: string): Promise<Database> {
   // HTTP server from reading for many seconds (long enough for its keep-alive timer to drop connections
   // whose next request had already arrived). Yielding to the event loop before each statement lets the
   // server read and answer between statements.
-  const wrap = (q: { query: PGlite['query'] }): Queryable => ({
-    async query<T>(sql: string, params: readonly unknown[] = []) {
+  const prepared = new Set<string>();
+  const wrap = (q: { query: PGlite['query'] }, inTransaction: boolean): Queryable => ({
+    async query<T>(sql: string, params: readonly unknown[] = [], name?: string) {
       await yieldToEventLoop();
+      if (name !== undefined) return runNamed<T>(db, prepared, name, sql, params, inTransaction).catch(watch);
       const r = await q.query<T>(sql, [...params]).catch(watch);
       return r.rows;
     },
   });
   return {
     engine: 'pglite',
-    ...wrap(db),
+    ...wrap(db, false),
     // PGlite is one connection: its transaction() queues every other query and transaction behind this one.
     transaction: async (fn) => {
       await yieldToEventLoop();
-      return db.transaction((tx) => fn(wrap(tx))).catch(watch);
+      return db.transaction((tx) => fn(wrap(tx, true))).catch(watch);
     },
     async exec(sql) {
       await db.exec(sql).catch(watch);
@@ -78,8 +86,9 @@ export async function openPostgres(url: string, poolSize = 10): Promise<Database
   // A pool's idle client can report an error (server restart); log it rather than crash the process.
   pool.on('error', (err) => console.error(`database connection error: ${err.message}`));
   const wrap = (c: { query: pg.Pool['query'] }): Queryable => ({
-    async query<T>(sql: string, params: readonly unknown[] = []) {
-      const r = await c.query(sql, [...params]);
+    async query<T>(sql: string, params: readonly unknown[] = [], name?: string) {
+      // pg prepares a named statement on each connection the first time it runs there.
+      const r = await c.query(name === undefined ? sql : { name, text: sql, values: [...params] }, name === undefined ? [...params] : undefined);
       return r.rows as T[];
     },
   });

@@ -128,7 +128,7 @@ export function keepOpen(first: Database, reopen: () => Promise<Database>, optio
   return {
     engine: first.engine,
     lost: () => current === null,
-    query: <T>(sql: string, params?: readonly unknown[]) => use((db) => db.query<T>(sql, params)),
+    query: <T>(sql: string, params?: readonly unknown[], name?: string) => use((db) => db.query<T>(sql, params, name)),
     transaction: <T>(fn: (tx: Queryable) => Promise<T>) => use((db) => db.transaction(fn)),
     exec: (sql: string) => use((db) => db.exec(sql)),
     async close() {

@@ -114,17 +114,17 @@ export function parseBundle(x: unknown, sha256OfText?: Sha256OfText): Bundle {
   if (bundleChecksum(o.records as SyncRecord[], sha256OfText) !== o.checksum) {
     throw new BundleError('checksum', 'The bundle is damaged: its records do not match its checksum. Ask for the file again.');
   }
-  const seen = new Map<string, string>();
-  o.records.forEach((r, i) => {
+  // Each version's index by kind, id and revision; only a repeated one is serialised to compare contents.
+  const seen = new Map<string, number>();
+  o.records.forEach((r, i, all) => {
     const problem = bundleRecordProblem(r);
     if (problem) throw new BundleError('record', `Record ${i + 1} of the bundle ${problem}.`, i);
     const key = `${r.kind}\u0000${r.id}\u0000${r.rev}`;
-    const body = JSON.stringify(r);
     const before = seen.get(key);
-    if (before !== undefined && before !== body) {
+    if (before !== undefined && JSON.stringify(all[before]) !== JSON.stringify(r)) {
       throw new BundleError('record', `Record ${i + 1} of the bundle repeats a ${r.kind} revision already in it with different content.`, i);
     }
-    seen.set(key, body);
+    if (before === undefined) seen.set(key, i);
   });
   return o as unknown as Bundle;
 }

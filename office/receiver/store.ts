@@ -100,6 +100,12 @@ export async function storeBundle(
 //    sort as strings (core/records/hlc.ts), so they are compared byte by byte (collation "C"), never by the
 //    database's language collation. Within the bundle the highest revision of each record is taken first
 //    (an upsert may touch a row once per statement).
+// Where a bundle's time goes (PGlite, CPU per bundle of 100 readings, one run on a busy machine): the
+// statement about 5.5 ms against 2.5 ms for a bare insert of the same rows into one table; of the
+// difference, the `cur` upsert is the largest part (about 2.5 ms: each body written a second time, its key
+// and the site index), then the document (0.5 to 1 ms) and the clash check (about 0.5 ms). Parsing,
+// checksum and validation in Node add about 1.5 ms. A current table without the bodies (read from
+// record_versions) would be the next step; it needs a migration.
 // Every lookup is by primary key, so the cost per bundle does not grow with the database. Every CTE sees
 // the snapshot from before the statement, so `clash` never sees this bundle's own versions. No row locks are
 // needed: PUSH_LOCK keeps other pushes out until this one commits.

@@ -4,7 +4,7 @@ import { isIP } from 'node:net';
 import { createReceiver, DEFAULT_MAX_BUNDLE_BYTES } from './http';
 import { DEFAULT_MAX_PUSHES } from './admission';
 import { createDevice, listDevices, revokeDevice } from './devices';
-import { openOfficeDatabase, OfficeSetupError, type StoreLocation } from './open';
+import { openOfficeDatabase, openServingDatabase, OfficeSetupError, type StoreLocation } from './open';
 import { importBundle } from './import-files';
 import { CliError } from '../shared/io';
 import { readBundleFile } from '../shared/read-bundle';
@@ -209,7 +209,7 @@ async function serve(
   if (!Number.isInteger(maxPushes) || maxPushes < 1 || maxPushes > 10_000) {
     throw new OfficeSetupError(`--max-pushes needs a whole number of pushes from 1 to 10000; got ${values['max-pushes']}`);
   }
-  const db = await openOfficeDatabase(where);
+  const db = await openServingDatabase(where);
   const server = createReceiver({ db, origins, maxBundleBytes: Math.round(mb * 1024 * 1024), maxPushes });
   await new Promise<void>((resolveListen, reject) => {
     server.once('error', reject);

@@ -77,11 +77,13 @@ export async function authenticate(
 ): Promise<{ ok: true; device: AuthenticatedDevice } | { ok: false; reason: TokenRefusal }> {
   const m = /^Bearer\s+([A-Za-z0-9_-]{16,200})\s*$/.exec(authorization ?? '');
   if (!m) return { ok: false, reason: authorization ? 'unknown' : 'missing' };
-  const rows = await db.query<{ device_no: number; name: string; revoked: boolean }>(
-    'select device_no, name, revoked_at is not null as revoked from office_devices where token_hash = $1',
+  // Asked on every request: a named statement (prepared once per connection), its columns as text.
+  const rows = await db.query<{ device_no: string; name: string; revoked: string }>(
+    'select device_no::text as device_no, name, (revoked_at is not null)::text as revoked from office_devices where token_hash = $1',
     [tokenHash(m[1])],
+    'freshet_authenticate',
   );
   if (rows.length === 0) return { ok: false, reason: 'unknown' };
-  if (rows[0].revoked) return { ok: false, reason: 'revoked' };
+  if (rows[0].revoked === 'true') return { ok: false, reason: 'revoked' };
   return { ok: true, device: { deviceNo: Number(rows[0].device_no), name: rows[0].name } };
 }

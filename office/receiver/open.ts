@@ -5,6 +5,7 @@ import { closeSync, existsSync, mkdirSync, openSync, readFileSync, rmSync, write
 import { join, resolve } from 'node:path';
 import { openPglite, openPostgres, type Database } from './db';
 import { migrate } from './migrations';
+import { keepOpen } from './keep-open';
 
 /** Where the office keeps its records: a folder for PGlite, or a PostgreSQL server's URL. */
 export interface StoreLocation {
@@ -70,6 +71,16 @@ export async function openOfficeDatabase(where: StoreLocation, report?: (line: s
   }
 }
 
+/**
+ * The database the receiver serves from: as openOfficeDatabase, and an embedded one is opened again
+ * whenever its engine stops (keep-open.ts), with progress lines to `log`.
+ */
+export async function openServingDatabase(where: StoreLocation, log?: (line: string) => void): Promise<Database> {
+  const db = await openOfficeDatabase(where);
+  if (where.database !== undefined) return db;
+  return keepOpen(db, () => openOfficeDatabase(where), { log });
+}
+
 // A lock file holding the owner's process id. A lock left by a process that no longer runs (killed) is
 // taken over; one held by a live process is refused with a sentence saying what to do.
 function lockFolder(dir: string): () => void {
@@ -79,7 +90,14 @@ function lockFolder(dir: string): () => void {
       const fd = openSync(file, 'wx', 0o600);
       writeSync(fd, String(process.pid));
       closeSync(fd);
-      return () => rmSync(file, { force: true });
+      // Only its own lock is removed: after a lost engine let go of the folder, another process may hold it.
+      return () => {
+        try {
+          if (readFileSync(file, 'utf8').trim() === String(process.pid)) rmSync(file, { force: true });
+        } catch {
+          // Already gone.
+        }
+      };
     } catch (err) {
       if ((err as NodeJS.ErrnoException).code !== 'EEXIST') throw err;
       const pid = Number(readFileSync(file, 'utf8').trim());

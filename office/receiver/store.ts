@@ -59,8 +59,8 @@ export async function storeBundle(
     // is one connection that runs one transaction at a time: there the lock would only cost a statement.
     if (db.engine === 'postgres') await tx.query('select pg_advisory_xact_lock($1)', [PUSH_LOCK]);
     const [written] = await tx.query<{
-      had_seq: string | null; had_checksum: string | null; seq: string | null; inserted: string; clashes: Clash[] | null;
-    }>(INGEST_SQL, [document, bundle.id, deviceNo, bundle.device, bundle.created, bundle.checksum, bundle.records.length]);
+      had_seq: string | null; had_checksum: string | null; seq: string | null; inserted: string; clashes: string | null;
+    }>(INGEST_SQL, [document, bundle.id, deviceNo, bundle.device, bundle.created, bundle.checksum, bundle.records.length], 'freshet_ingest');
     if (written.had_seq !== null) {
       if (written.had_checksum !== bundle.checksum) {
         throw new IntegrityError(
@@ -70,7 +70,7 @@ export async function storeBundle(
       }
       return { status: 'had', seq: Number(written.had_seq) };
     }
-    const clashes = written.clashes ?? [];
+    const clashes = written.clashes === null ? [] : (JSON.parse(written.clashes) as Clash[]);
     if (clashes.length > 0) {
       const c = clashes[0];
       throw new IntegrityError(
@@ -85,7 +85,8 @@ export async function storeBundle(
 }
 
 // The whole bundle in one set-based statement (one round trip; on a busy machine each costs more than the
-// work): $1 the bundle document, $2 its id, $3 the device number, $4 the bundle's device, $5 created,
+// work), prepared once per connection under a name (parsing and planning it cost about a quarter of a
+// bundle's time on PGlite); every column is text, as a named statement gives it: $1 the bundle document, $2 its id, $3 the device number, $4 the bundle's device, $5 created,
 // $6 checksum, $7 record count.
 //  - had: the bundle id already stored; then nothing is written and the caller compares checksums.
 //  - x: the bundle's records, read out of the document by the database (the document is sent once; large
@@ -99,6 +100,12 @@ export async function storeBundle(
 //    sort as strings (core/records/hlc.ts), so they are compared byte by byte (collation "C"), never by the
 //    database's language collation. Within the bundle the highest revision of each record is taken first
 //    (an upsert may touch a row once per statement).
+// Where a bundle's time goes (PGlite, CPU per bundle of 100 readings, one run on a busy machine): the
+// statement about 5.5 ms against 2.5 ms for a bare insert of the same rows into one table; of the
+// difference, the `cur` upsert is the largest part (about 2.5 ms: each body written a second time, its key
+// and the site index), then the document (0.5 to 1 ms) and the clash check (about 0.5 ms). Parsing,
+// checksum and validation in Node add about 1.5 ms. A current table without the bodies (read from
+// record_versions) would be the next step; it needs a migration.
 // Every lookup is by primary key, so the cost per bundle does not grow with the database. Every CTE sees
 // the snapshot from before the statement, so `clash` never sees this bundle's own versions. No row locks are
 // needed: PUSH_LOCK keeps other pushes out until this one commits.
@@ -141,9 +148,9 @@ select (select seq from had)::text as had_seq,
        (select checksum from had) as had_checksum,
        (select seq from b)::text as seq,
        (select count(*) from ins)::text as inserted,
-       (select json_agg(clash) from clash) as clashes,
-       (select count(*) from cur) as cur,
-       (select count(*) from dev) as dev`;
+       (select json_agg(clash) from clash)::text as clashes,
+       (select count(*) from cur)::text as cur,
+       (select count(*) from dev)::text as dev`;
 
 /** One page of a pull: the bundle documents (JSON text, in cursor order), the next cursor, and whether more wait. */
 export interface PullPage {

@@ -5,7 +5,7 @@
 // record's fault (400), never the office's (503).
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import { performance } from 'node:perf_hooks';
-import { BundleError, parseBundle, type Bundle } from '../../core/index';
+import { BundleError, parseBundle, refuseBundleBlobs, type Bundle } from '../../core/index';
 import type { Database } from './db';
 import { createPushGate, type PushGate } from './admission';
 import { authenticate, type AuthenticatedDevice } from './devices';
@@ -189,6 +189,7 @@ async function push(
   }
   let bundle: Bundle;
   try {
+    refuseBundleBlobs(json);
     bundle = parseBundle(json);
   } catch (err) {
     if (!(err instanceof BundleError)) throw err;

@@ -9,6 +9,8 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import type { Database } from '../../../office/receiver/db';
 import { createDevice, revokeDevice } from '../../../office/receiver/devices';
 import { createReceiver } from '../../../office/receiver/http';
+import { encodeBundleBlobs } from '../../../core/index';
+import { bundleOf, push, readingRecords } from './phones';
 import type { Engine } from './protocol-suite';
 
 /** The origin the suite allows for CORS (a port of ours that nothing listens on). */
@@ -185,6 +187,19 @@ export function describeBlobs(engine: Engine): void {
       expect((await fetch(`${base}/blobs/sha256-${ABC_SHA256}`, { method: 'DELETE', headers: auth })).status).toBe(405);
       expect((await fetch(`${base}/blobs/sha256-${ABC_SHA256.toUpperCase()}`, { headers: auth })).status).toBe(404);
       expect((await fetch(`${base}/blobs/${ABC_SHA256}`, { headers: auth })).status).toBe(404);
+    });
+
+    it('refuses a pushed bundle that carries photo bytes (400 shape): photos go by PUT /blobs', async () => {
+      const bytes = new Uint8Array(randomBytes(300));
+      const b = bundleOf('dev-a', readingRecords('dev-a', 2));
+      const withBytes = JSON.stringify({ ...b, blobs: encodeBundleBlobs(new Map([[sha(bytes), { type: 'image/jpeg', bytes }]])) });
+      const res = await push(base, token, withBytes, { 'Idempotency-Key': b.id });
+      expect(res.status).toBe(400);
+      expect(res.body.reason).toBe('shape');
+      expect(await blobCount(db)).toBe(0);
+      const [n] = await db.query<{ n: string }>('select count(*)::text as n from office_bundles');
+      expect(n.n).toBe('0');
+      expect((await push(base, token, b)).status).toBe(201);
     });
 
     it('answers 503 with Retry-After when its database fails, and stores nothing', async () => {

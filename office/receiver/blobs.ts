@@ -6,6 +6,7 @@
 import { createHash } from 'node:crypto';
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import type { Queryable } from './db';
+import { blobInfo, insertBlob, readBlob } from './blob-store';
 import { BODY_READ_LIMIT_MS, BUSY_RETRY_S, type BodyBudget } from './intake';
 import { Refusal } from './refusal';
 
@@ -61,16 +62,16 @@ export async function handleBlob(req: IncomingMessage, res: ServerResponse, path
   fields.device = await ctx.authorise();
   if (req.method === 'PUT') return put(req, res, sha256, fields, ctx);
   if (req.method === 'HEAD') {
-    const [row] = await ctx.db.query<{ type: string; bytes: number }>('select type, bytes from office_blobs where sha256 = $1', [sha256]);
+    const row = await blobInfo(ctx.db, sha256);
     if (row === undefined) throw notHeld(sha256);
     fields.outcome = 'held';
     res.writeHead(200, { 'Content-Type': row.type, 'Content-Length': String(row.bytes), 'Cache-Control': 'no-store' });
     res.end();
     return 200;
   }
-  const [row] = await ctx.db.query<{ type: string; data: Uint8Array }>('select type, data from office_blobs where sha256 = $1', [sha256]);
+  const row = await readBlob(ctx.db, sha256);
   if (row === undefined) throw notHeld(sha256);
-  const data = Buffer.from(row.data.buffer, row.data.byteOffset, row.data.byteLength);
+  const data = row.data;
   fields.outcome = `sent ${data.length} bytes`;
   res.writeHead(200, {
     'Content-Type': row.type,
@@ -96,24 +97,20 @@ async function put(req: IncomingMessage, res: ServerResponse, sha256: string, fi
     res.setHeader('Connection', 'close');
     throw blobTooLarge();
   }
-  const [held] = await ctx.db.query<{ bytes: number }>('select bytes from office_blobs where sha256 = $1', [sha256]);
+  const held = await blobInfo(ctx.db, sha256);
   if (held !== undefined) {
     // Already held (the name is the hash of the bytes the office checked): the body is not needed.
     fields.outcome = 'already held';
-    return sendJson(res, 200, { sha256, bytes: Number(held.bytes), stored: 'held' });
+    return sendJson(res, 200, { sha256, bytes: held.bytes, stored: 'held' });
   }
   const { data, hex } = await readHashedBody(req, ctx.budget, ctx.bodyReadLimit_ms ?? BODY_READ_LIMIT_MS);
   if (data.length === 0) throw new Refusal(400, 'size', 'The photo arrived empty; nothing was stored. Send it again.');
   if (hex !== sha256) {
     throw new Refusal(400, 'hash', `The photo's bytes do not match its name (they hash to ${hex.slice(0, 12)}…, the name says ${sha256.slice(0, 12)}…): it was damaged on the way. Nothing was stored; send it again.`);
   }
-  const inserted = await ctx.db.query(
-    `insert into office_blobs (sha256, type, bytes, data) values ($1, $2, $3, $4)
-     on conflict (sha256) do nothing returning 1 as new`,
-    [sha256, type, data.length, data],
-  );
-  fields.outcome = inserted.length > 0 ? `stored ${data.length} bytes` : 'already held';
-  return sendJson(res, inserted.length > 0 ? 201 : 200, { sha256, bytes: data.length, stored: inserted.length > 0 ? 'new' : 'held' });
+  const isNew = await insertBlob(ctx.db, sha256, type, data);
+  fields.outcome = isNew ? `stored ${data.length} bytes` : 'already held';
+  return sendJson(res, isNew ? 201 : 200, { sha256, bytes: data.length, stored: isNew ? 'new' : 'held' });
 }
 
 /** The refusal of a photo over MAX_BLOB_BYTES, with the limit in MiB. */

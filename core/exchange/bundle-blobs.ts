@@ -2,16 +2,16 @@
 // checksum, each entry checked by its own SHA-256 (README.md here, "Photo bytes in a bundle file"):
 //   "blobs": { "sha256-<hex>": { "type": "image/jpeg", "base64": "<standard base64, no line breaks>" } }
 // A bundle pushed by HTTP never carries it (photo bytes go by PUT /blobs).
+import { MAX_PHOTO_BYTES, PHOTO_TYPES } from '../records/index';
 import { base64Decode, base64DecodedLength, base64Encode } from './base64';
 import { BundleError, parseBundle, type Bundle } from './bundle';
 import { sha256Hex } from './sha256';
 
 /** The top-level field of a bundle file that carries photo bytes. */
 export const BUNDLE_BLOBS_FIELD = 'blobs';
-/** Media types photo bytes may have. */
-export const BLOB_TYPES: readonly string[] = ['image/jpeg', 'image/png', 'image/webp'];
-/** Largest photo bytes in a bundle file, bytes (16 MiB, the office receiver's stated limit). */
-export const MAX_BLOB_BYTES = 16_777_216;
+// Media types and the largest size photo bytes may have: the photo record's own (core/records/photo-types.ts).
+const BLOB_TYPES: readonly string[] = PHOTO_TYPES;
+const MAX_BLOB_BYTES = MAX_PHOTO_BYTES;
 
 /** Photo bytes and their media type. */
 export interface BlobBytes {

@@ -5,17 +5,18 @@
 // read; the body is read within the blob limit, the read-time limit and the memory budget shared with pushes.
 import { createHash } from 'node:crypto';
 import type { IncomingMessage, ServerResponse } from 'node:http';
+import { MAX_PHOTO_BYTES, PHOTO_TYPES } from '../../core/index';
 import type { Queryable } from './db';
 import { blobInfo, insertBlob, readBlob } from './blob-store';
 import { BODY_READ_LIMIT_MS, BUSY_RETRY_S, type BodyBudget } from './intake';
 import { Refusal } from './refusal';
 
-/** The largest photo the receiver takes, bytes (16 MiB); stated in every answer's MAX_BLOB_BYTES_HEADER. */
-export const MAX_BLOB_BYTES = 16_777_216;
+/** The largest photo the receiver takes, bytes (16 MiB, the photo record's limit); stated in every answer's MAX_BLOB_BYTES_HEADER. */
+export const MAX_BLOB_BYTES = MAX_PHOTO_BYTES;
 /** The answer header that states the receiver's photo limit in bytes (on every answer). */
 export const MAX_BLOB_BYTES_HEADER = 'Freshet-Max-Blob-Bytes';
-/** The media types a photo may have. */
-export const BLOB_TYPES: readonly string[] = ['image/jpeg', 'image/png', 'image/webp'];
+/** The media types a photo may have (the photo record's). */
+export const BLOB_TYPES: readonly string[] = PHOTO_TYPES;
 /** The path of the blob endpoint, below the base. */
 export const BLOBS_PATH = '/blobs';
 

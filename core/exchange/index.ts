@@ -39,3 +39,4 @@ export {
   BUNDLE_BLOBS_FIELD, BundleBlobError, bundleFileParts, decodeBundleBlobs, encodeBundleBlobs, refuseBundleBlobs,
   type BlobBytes, type BundleBlobsField,
 } from './bundle-blobs';
+export { photoExtension, photoFilesByOwner, photoNamer } from './photo-names';

@@ -175,6 +175,23 @@ export function describeBlobs(engine: Engine): void {
       expect(await blobCount(db)).toBe(0);
     });
 
+    it('cuts off a photo whose body does not arrive within the read-time limit (408), storing nothing', async () => {
+      const slow = createReceiver({ db, origins: [], log: () => {}, bodyReadLimit_ms: 300 });
+      await new Promise<void>((r) => slow.listen(0, '127.0.0.1', r));
+      try {
+        const slowBase = `http://127.0.0.1:${(slow.address() as AddressInfo).port}`;
+        const res = await rawPut(slowBase, sha(randomBytes(10)), { 'Content-Type': 'image/jpeg', 'Content-Length': '5000', Authorization: `Bearer ${token}` }, Buffer.alloc(100));
+        expect(res.status).toBe(408);
+        expect(JSON.parse(res.body).reason).toBe('slow');
+        expect(await blobCount(db)).toBe(0);
+      } finally {
+        await new Promise<void>((r) => {
+          slow.closeAllConnections();
+          slow.close(() => r());
+        });
+      }
+    });
+
     it('answers the preflight with PUT and Content-Type allowed, and refuses other methods and names', async () => {
       const pre = await fetch(`${base}/blobs/sha256-${ABC_SHA256}`, {
         method: 'OPTIONS', headers: { Origin: APP_ORIGIN, 'Access-Control-Request-Method': 'PUT', 'Access-Control-Request-Headers': 'authorization, content-type' },

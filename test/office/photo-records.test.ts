@@ -11,9 +11,11 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { nextRev, parseBundle, type PhotoBody, type SyncRecord } from '../../core/index';
 import type { Database } from '../../office/receiver/db';
+import { heldBlobs } from '../../office/receiver/blob-store';
 import { createDevice } from '../../office/receiver/devices';
 import { createReceiver } from '../../office/receiver/http';
 import { openOfficeDatabase } from '../../office/receiver/open';
+import { sitePhotosFromDatabase } from '../../office/receiver/photo-source';
 import { POSTGRES_URL, skipWithoutPostgres, throwawayDatabase } from '../support/office/postgres';
 import { bundleOf, pullAll, push, readingRecords, SITE_ID, siteRecord, T0_MS } from '../support/office/phones';
 
@@ -109,6 +111,11 @@ for (const engine of engines) {
       expect(second.bundles.flatMap((b) => parseBundle(b).records)).toEqual([tombstone]);
       const stillThere = await fetch(`${base}/blobs/sha256-${sha(bytes)}`, { method: 'HEAD', headers: { Authorization: `Bearer ${tokenB}` } });
       expect(stillThere.status).toBe(200);
+      // What `freshet photos` reads on this engine: the deleted photo is left out, the bytes are held.
+      const source = await sitePhotosFromDatabase('photos', db, 'TB-02');
+      expect(source.site.id).toBe(SITE_ID);
+      expect(source.photos.map((p) => p.id)).not.toContain(taken.id);
+      expect(await heldBlobs(db, [sha(bytes), sha(new Uint8Array(1))])).toEqual(new Set([sha(bytes)]));
     });
 
     it('stores a photo record whose bytes have not arrived; GET answers 404 until they do', async () => {

@@ -2,7 +2,8 @@
 // aspect kept (exact arithmetic), a smaller picture is never scaled up, and a picture with no pixels is
 // refused with a sentence. The hash helper agrees with Node's crypto (FIPS 180-2 Appendix B.1 for "abc").
 import { describe, expect, it } from 'vitest';
-import { scaledSize, sha256Of } from '../../web/photos/resize';
+import { scaledSize } from '../../web/photos/resize';
+import { sha256Of } from '../../web/photos/hash';
 import { PHOTO_LONG_EDGE_PX } from '../../web/photos/resize-protocol';
 
 describe('the stored size of a photo', () => {

@@ -1,6 +1,7 @@
 // Making a chosen picture ready to store (run in the photo worker): decode with the camera's orientation
 // applied, scale to a long edge of PHOTO_LONG_EDGE_PX (never up), encode as JPEG, hash with SHA-256.
 import { MAX_PHOTO_BYTES, PHOTO_TYPES, type PhotoType } from '../../core/records/index';
+import { sha256Of } from './hash';
 import { PHOTO_JPEG_QUALITY, PHOTO_LONG_EDGE_PX, type PreparedPhoto, type ReadyBytes } from './resize-protocol';
 
 /** The size of a w × h picture scaled so its longer side is at most `longEdge` (aspect kept, whole px, never up). */
@@ -8,14 +9,6 @@ export function scaledSize(w: number, h: number, longEdge = PHOTO_LONG_EDGE_PX):
   if (!(w >= 1 && h >= 1)) throw new RangeError(`A picture needs a width and height of at least 1 px; this one is ${w} × ${h}.`);
   const scale = Math.min(1, longEdge / Math.max(w, h));
   return { width: Math.max(1, Math.round(w * scale)), height: Math.max(1, Math.round(h * scale)) };
-}
-
-/** SHA-256 of the bytes as 64 lower-case hex digits (Web Crypto). */
-export async function sha256Of(bytes: ArrayBuffer): Promise<string> {
-  const digest = new Uint8Array(await crypto.subtle.digest('SHA-256', bytes));
-  let out = '';
-  for (const b of digest) out += b.toString(16).padStart(2, '0');
-  return out;
 }
 
 async function ready(blob: Blob, type: PhotoType): Promise<ReadyBytes> {

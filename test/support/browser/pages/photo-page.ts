@@ -48,6 +48,7 @@ const api = {
   async prepare(width: number, height: number, options: { type?: 'image/jpeg' | 'image/png'; orientation?: number; keepOriginal?: boolean } = {}) {
     const file = await picture(width, height, options.type ?? 'image/jpeg', options.orientation);
     const p = await prepareInWorker(file, options.keepOriginal === true);
+    if ('refused' in p) throw new Error(p.refused);
     const w = p.width_px;
     const h = p.height_px;
     const corners = { topLeft: await colourAt(p.image.blob, 2, 2), bottomRight: await colourAt(p.image.blob, w - 3, h - 3), topRight: await colourAt(p.image.blob, w - 3, 2) };
@@ -60,7 +61,8 @@ const api = {
   },
   /** What the worker says of a file that is not a picture. */
   async refuse(): Promise<string> {
-    return prepareInWorker(new Blob(['not a picture'], { type: 'image/jpeg' }), false).then(() => 'accepted', (e: unknown) => (e as Error).message);
+    const p = await prepareInWorker(new Blob(['not a picture'], { type: 'image/jpeg' }), false);
+    return 'refused' in p ? p.refused : 'accepted';
   },
 };
 

@@ -25,7 +25,8 @@ version in PostgreSQL (embedded in a folder by default, or a server).
 
   freshet office --data <folder> [--port 8787] [--host 127.0.0.1] [--origin <app origin>]…
                  [--database <postgres URL>] [--behind-proxy] [--max-bundle-mb 16] [--max-pushes 64]
-      Start the receiver. Pushes: POST /bundles; pulls: GET /bundles?after=<cursor>.
+      Start the receiver. Pushes: POST /bundles; pulls: GET /bundles?after=<cursor>; photo bytes:
+      PUT, HEAD, GET /blobs/sha256-<hex> (kept in the same database as the records).
       --max-pushes: pushes taken at once; more are told to come back later (503 with Retry-After).
       --origin may be given several times: the web addresses the app is served from (CORS).
       Listening anywhere but this machine (127.0.0.1, ::1, localhost) needs --behind-proxy:

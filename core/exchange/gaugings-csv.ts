@@ -10,6 +10,8 @@ export interface SiteCsvOptions {
   siteCode: string;
   timeZone: string;
   units: UnitSystem;
+  /** When given: a last column `photos` naming each record's photos (by record id; names joined by spaces). */
+  photos?: ReadonlyMap<string, readonly string[]>;
 }
 
 /** The gaugings as a CSV document in the order given; mean stage and discharge in `units`. */
@@ -23,6 +25,7 @@ export function gaugingsToCsv(gaugings: readonly GaugingRecord[], options: SiteC
     { name: `discharge_${q}`, kind: 'number' }, { name: 'method', kind: 'text' }, { name: 'grade', kind: 'text' },
     { name: 'verticals', kind: 'number' }, { name: 'observer', kind: 'text' }, { name: 'note', kind: 'text' },
     { name: 'id', kind: 'text' }, { name: 'rev', kind: 'text' },
+    ...(options.photos ? [{ name: 'photos', kind: 'text' } as const] : []),
   ];
   const rows = gaugings.map((g) => [
     siteCode,
@@ -36,6 +39,7 @@ export function gaugingsToCsv(gaugings: readonly GaugingRecord[], options: SiteC
     g.note,
     g.id,
     g.rev,
+    ...(options.photos ? [(options.photos.get(g.id) ?? []).join(' ')] : []),
   ]);
   return csvTable(columns, rows);
 }

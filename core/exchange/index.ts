@@ -35,3 +35,9 @@ export {
   LOGGER_DAY_MS, loggerDayId, splitLoggerDays, mergeLoggerDay, loggerDayStages, type CorrectedLogger, type LoggerDayContext, type LoggerDayMerge,
 } from './logger-days';
 export { loggerGaps, type LoggerGap } from './logger-gaps';
+export { base64Decode, base64DecodedLength, base64Encode } from './base64';
+export {
+  BUNDLE_BLOBS_FIELD, BundleBlobError, bundleFileParts, decodeBundleBlobs, encodeBundleBlobs, refuseBundleBlobs,
+  type BlobBytes, type BundleBlobsField,
+} from './bundle-blobs';
+export { photoExtension, photoFilesByOwner, photoNamer } from './photo-names';

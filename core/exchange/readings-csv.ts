@@ -26,6 +26,8 @@ export interface ReadingCsvOptions {
   siteCode: string;
   timeZone: string;
   units: UnitSystem;
+  /** When given: a last column `photos` naming each reading's photos (by reading id; names joined by spaces). */
+  photos?: ReadonlyMap<string, readonly string[]>;
 }
 
 /**
@@ -45,6 +47,7 @@ export function readingsToCsv(rows: readonly ReadingExportRow[], options: Readin
     { name: 'note', kind: 'text' }, { name: `logger_raw_${h}`, kind: 'number' }, { name: `correction_${h}`, kind: 'number' }, { name: 'warnings', kind: 'text' }, { name: 'latitude_deg', kind: 'number' },
     { name: 'longitude_deg', kind: 'number' }, { name: 'gps_accuracy_m', kind: 'number' }, { name: 'id', kind: 'text' },
     { name: 'rev', kind: 'text' },
+    ...(options.photos ? [{ name: 'photos', kind: 'text' } as const] : []),
   ];
   const stageDecimals = units === 'us' ? 3 : 4;
   const out = rows.map((r) => {
@@ -68,6 +71,7 @@ export function readingsToCsv(rows: readonly ReadingExportRow[], options: Readin
       csvNumber(x.gps?.accuracy_m),
       x.id,
       x.rev,
+      ...(options.photos ? [(options.photos.get(x.id) ?? []).join(' ')] : []),
     ];
   });
   return csvTable(columns, out);

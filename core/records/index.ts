@@ -1,5 +1,6 @@
 // Records shared by storage and sync: plain-data types, revisions (hybrid logical clock), validation.
 export * from './types';
+export * from './photo-types';
 export { RecordValidationError, describeValue } from './validation-error';
 export { textProblem, textProblemWords, textRefusal, cleanText, jsonTextProblem, TEXT_RULE_WORDS, type TextProblem } from './text';
 export { MAX_TIME_MS, MAX_TEXT_LENGTH, isUuid } from './checks';
@@ -12,6 +13,7 @@ export { validateRatingBody } from './validate-rating';
 export { validateAnalysisBody } from './validate-analysis';
 export { validateLoggerDayBody, MAX_LOGGER_DAY_VALUES, MAX_ABS_CORRECTION_M } from './validate-logger-day';
 export { validateDraftBody } from './validate-draft';
+export { validatePhotoBody, isSha256Hex } from './validate-photo';
 export { validateBody, validateRecord, validateSyncRecord, validateConflictBody, isSyncKind } from './validate-record';
 export { toSyncRecord, fromSyncRecord } from './sync-record';
 export { READING_SOURCE_CODES, readingSourceOfCode, type ReadingSourceCode } from './source-codes';

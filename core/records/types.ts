@@ -5,6 +5,7 @@ import type { UnitSystem } from '../units';
 import type { PointVelocities } from '../gauging/vertical-velocity';
 import type { EventPoints } from '../hydrograph/series';
 import type { EventSummary } from '../hydrograph/summary';
+import type { PhotoBody } from './photo-types';
 
 /** Fields every stored record carries: id (UUID), rev (hybrid-logical-clock string), updated_ms, tombstone. */
 export interface RecordEnvelope {
@@ -223,12 +224,13 @@ export interface SyncBodies {
   rating: RatingBody;
   analysis: AnalysisBody;
   'logger-day': LoggerDayBody;
+  photo: PhotoBody;
 }
 
 /** Kinds of records that sync with the office. */
 export type SyncKind = keyof SyncBodies;
 /** All kinds that sync, in a fixed order. */
-export const SYNC_KINDS: readonly SyncKind[] = ['site', 'reading', 'gauging', 'rating', 'analysis', 'logger-day'];
+export const SYNC_KINDS: readonly SyncKind[] = ['site', 'reading', 'gauging', 'rating', 'analysis', 'logger-day', 'photo'];
 
 /** The unit of exchange: one record as it travels in a bundle; body holds the fields plus updated_ms. */
 export type SyncRecord<K extends SyncKind = SyncKind> = {
@@ -261,6 +263,8 @@ export type RatingRecord = RecordEnvelope & RatingBody;
 export type AnalysisRecord = RecordEnvelope & AnalysisBody;
 /** A stored day of a logger record. */
 export type LoggerDayRecord = RecordEnvelope & LoggerDayBody;
+/** A stored photo record (the bytes are kept apart, by their SHA-256). */
+export type PhotoRecord = RecordEnvelope & PhotoBody;
 /** A stored draft (local only, never synced). */
 export type DraftRecord = RecordEnvelope & DraftBody;
 /** A stored conflict (local only, never synced). */
@@ -274,6 +278,7 @@ export interface StoredRecords {
   rating: RatingRecord;
   analysis: AnalysisRecord;
   'logger-day': LoggerDayRecord;
+  photo: PhotoRecord;
   draft: DraftRecord;
   conflict: ConflictRecord;
 }

@@ -11,6 +11,7 @@ import { validateLoggerDayBody } from './validate-logger-day';
 import { validateGaugingBody } from './validate-gauging';
 import { validateRatingBody } from './validate-rating';
 import { validateReadingBody } from './validate-reading';
+import { validatePhotoBody } from './validate-photo';
 import { validateSiteBody } from './validate-site';
 
 /** Checks a sync record: kind, id, rev, tombstone flag and the body of its kind (with updated_ms). */
@@ -57,6 +58,8 @@ export function validateBody(kind: RecordKind, x: unknown): void {
       return validateAnalysisBody(x);
     case 'logger-day':
       return validateLoggerDayBody(x);
+    case 'photo':
+      return validatePhotoBody(x);
     case 'draft':
       return validateDraftBody(x);
     case 'conflict':

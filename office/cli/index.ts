@@ -3,12 +3,13 @@
 import { checkCommand } from './commands/check';
 import { csvCommand } from './commands/csv';
 import { demoCommand } from './commands/demo';
+import { photosCommand } from './commands/photos';
 import { watermlCommand } from './commands/waterml';
 import { CliError, processIo, type CliIo, type Command } from '../shared/io';
 import { officeCommand } from '../receiver/command';
 
 /** Every subcommand, in the order `freshet --help` lists them. */
-export const COMMANDS: readonly Command[] = [demoCommand, checkCommand, watermlCommand, csvCommand, officeCommand];
+export const COMMANDS: readonly Command[] = [demoCommand, checkCommand, watermlCommand, csvCommand, photosCommand, officeCommand];
 
 /** The top-level help: what the command is and its subcommands. */
 export function topHelp(): string {

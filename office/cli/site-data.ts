@@ -4,7 +4,8 @@
 // discharge through the rating in force at its time), so the office writes what the phone writes.
 import { frontierOf, fromSyncRecord, recordKey, stageExportRows, stageRecordWithDischarge } from '../../core/index';
 import type {
-  AnalysisRecord, GaugingRecord, LoggerDayRecord, RatingRecord, ReadingExportRow, ReadingRecord, SiteRecord, StageRecordWithDischarge, SyncRecord,
+  AnalysisRecord, GaugingRecord, LoggerDayRecord, PhotoRecord, RatingRecord, ReadingExportRow, ReadingRecord, SiteRecord, StageRecordWithDischarge,
+  SyncRecord,
 } from '../../core/index';
 
 /** One site's records: its stage record with discharge, as export rows (oldest first), gaugings, ratings (by start), analyses. */
@@ -16,6 +17,8 @@ export interface SiteData {
   gaugings: GaugingRecord[];
   ratings: RatingRecord[];
   analyses: AnalysisRecord[];
+  /** The site's photos (of the site, its readings and gaugings), oldest taken first. */
+  photos: PhotoRecord[];
 }
 
 /** The winning live version of every record in `records` (core's sync rule, frontierOf), by kind and id. */
@@ -36,7 +39,7 @@ export function sitesOf(records: readonly SyncRecord[]): SiteData[] {
   type Gathered = Omit<SiteData, 'readings' | 'stage'> & { rawReadings: ReadingRecord[]; loggerDays: LoggerDayRecord[] };
   const sites = new Map<string, Gathered>();
   for (const r of live) {
-    if (r.kind === 'site') sites.set(r.id, { site: fromSyncRecord(r), rawReadings: [], loggerDays: [], gaugings: [], ratings: [], analyses: [] });
+    if (r.kind === 'site') sites.set(r.id, { site: fromSyncRecord(r), rawReadings: [], loggerDays: [], gaugings: [], ratings: [], analyses: [], photos: [] });
   }
   for (const r of live) {
     if (r.kind === 'site') continue;
@@ -47,6 +50,7 @@ export function sitesOf(records: readonly SyncRecord[]): SiteData[] {
     else if (r.kind === 'gauging') s.gaugings.push(fromSyncRecord(r));
     else if (r.kind === 'rating') s.ratings.push(fromSyncRecord(r));
     else if (r.kind === 'analysis') s.analyses.push(fromSyncRecord(r));
+    else if (r.kind === 'photo') s.photos.push(fromSyncRecord(r));
   }
   return [...sites.values()]
     .sort((a, b) => a.site.code.localeCompare(b.site.code))
@@ -54,6 +58,7 @@ export function sitesOf(records: readonly SyncRecord[]): SiteData[] {
       s.gaugings.sort((a, b) => a.time_ms - b.time_ms);
       s.ratings.sort((a, b) => a.validFrom_ms - b.validFrom_ms);
       s.analyses.sort((a, b) => a.from_ms - b.from_ms);
+      s.photos.sort((a, b) => a.taken_ms - b.taken_ms || (a.id < b.id ? -1 : 1));
       const stage = stageRecordWithDischarge(s.ratings, rawReadings, loggerDays);
       return { ...s, stage, readings: stageExportRows(stage) };
     });

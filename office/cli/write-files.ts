@@ -11,6 +11,12 @@ export interface OutputFile {
   text: string;
 }
 
+/** A file of bytes to write: its name and a function giving its bytes (called as it is written, so large files are held one at a time). */
+export interface BytesOutputFile {
+  name: string;
+  bytes: () => Promise<Uint8Array>;
+}
+
 async function statOrNull(path: string) {
   try {
     return await stat(path);
@@ -23,7 +29,7 @@ async function statOrNull(path: string) {
  * Writes files into outDir (created; it may exist only as an empty folder). Resolves with the folder's
  * full path (missing folders above it are made). Throws a CliError, writing nothing, when the folder holds files.
  */
-export async function writeFilesAtomically(command: string, outDir: string, files: readonly OutputFile[], cwd: string): Promise<string> {
+export async function writeFilesAtomically(command: string, outDir: string, files: readonly (OutputFile | BytesOutputFile)[], cwd: string): Promise<string> {
   const target = resolve(cwd, outDir);
   const parent = dirname(target);
   const names = new Set<string>();
@@ -56,7 +62,10 @@ export async function writeFilesAtomically(command: string, outDir: string, file
     throw new CliError(`freshet ${command}: cannot write in ${parent}: ${(err as Error).message.split('\n')[0]}`);
   }
   try {
-    for (const f of files) await writeFile(join(temp, f.name), f.text, { encoding: 'utf8', flag: 'wx' });
+    for (const f of files) {
+      if ('text' in f) await writeFile(join(temp, f.name), f.text, { encoding: 'utf8', flag: 'wx' });
+      else await writeFile(join(temp, f.name), await f.bytes(), { flag: 'wx' });
+    }
     if (existing) await rmdir(target);
     await rename(temp, target);
   } catch (err) {

@@ -7,7 +7,7 @@ import { createDevice, listDevices, revokeDevice } from './devices';
 import { openOfficeDatabase, openServingDatabase, OfficeSetupError, type StoreLocation } from './open';
 import { importBundle } from './import-files';
 import { CliError } from '../shared/io';
-import { readBundleFile } from '../shared/read-bundle';
+import { readBundleFileParts } from '../shared/read-bundle';
 
 /** Where `freshet office` writes: results to stdout, messages to stderr (the dispatcher's CliIo fits). */
 export interface OfficeIo {
@@ -25,7 +25,8 @@ version in PostgreSQL (embedded in a folder by default, or a server).
 
   freshet office --data <folder> [--port 8787] [--host 127.0.0.1] [--origin <app origin>]…
                  [--database <postgres URL>] [--behind-proxy] [--max-bundle-mb 16] [--max-pushes 64]
-      Start the receiver. Pushes: POST /bundles; pulls: GET /bundles?after=<cursor>.
+      Start the receiver. Pushes: POST /bundles; pulls: GET /bundles?after=<cursor>; photo bytes:
+      PUT, HEAD, GET /blobs/sha256-<hex> (kept in the same database as the records).
       --max-pushes: pushes taken at once; more are told to come back later (503 with Retry-After).
       --origin may be given several times: the web addresses the app is served from (CORS).
       Listening anywhere but this machine (127.0.0.1, ::1, localhost) needs --behind-proxy:
@@ -38,7 +39,8 @@ version in PostgreSQL (embedded in a folder by default, or a server).
   freshet office revoke <device name> (--data <folder> | --database <url>)
       Refuse that device's token from now on.
   freshet office import <bundle.json>… (--data <folder> | --database <url>)
-      Store bundle files brought from phones (no network) as if pushed; phones get them on their next pull.
+      Store bundle files brought from phones (no network) as if pushed, with the photos they carry;
+      phones get them on their next pull.
 
 With --data (the embedded database) the folder can be open in one process at a time: stop the receiver
 to add a device, or use a PostgreSQL server (--database).`;
@@ -109,17 +111,18 @@ export async function runOffice(args: readonly string[], io: OfficeIo = processO
         }
         // Every file is read and checked before the database is opened: a bad file changes nothing.
         const bundles = [];
-        for (const path of rest) bundles.push({ path, bundle: await readBundleFile('office import', path, process.cwd()) });
+        for (const path of rest) bundles.push({ path, ...(await readBundleFileParts('office import', path, process.cwd())) });
         const db = await openOfficeDatabase(where);
         let refused = 0;
         try {
-          for (const { path, bundle } of bundles) {
-            const r = await importBundle(db, bundle);
+          for (const { path, bundle, blobs } of bundles) {
+            const r = await importBundle(db, bundle, blobs);
             if (r.status === 'refused') {
               refused++;
               err.write(`${path}: refused, nothing of it stored: ${r.message}\n`);
             } else {
-              out.write(`${path}: ${r.status === 'stored' ? 'stored' : 'already had it'} (${r.records} records)\n`);
+              const photos = blobs.size > 0 ? `, ${blobs.size} photo${blobs.size === 1 ? '' : 's'}` : '';
+              out.write(`${path}: ${r.status === 'stored' ? 'stored' : 'already had it'} (${r.records} records${photos})\n`);
             }
           }
         } finally {

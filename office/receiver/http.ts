@@ -1,11 +1,12 @@
-// The receiver's HTTP side: POST /bundles (push) and GET /bundles?after=<cursor> (pull), bearer tokens,
-// CORS for the configured app origins with preflights (and on every refusal, so the app can read why), a
-// size limit per bundle stated in every answer, the token checked before the body is read, one log line
-// per request. A record the database cannot store is the record's fault (400), never the office's (503).
+// The receiver's HTTP side: POST /bundles (push) and GET /bundles?after=<cursor> (pull), photo bytes at
+// /blobs/sha256-<hex> (blobs.ts), bearer tokens, CORS for the configured app origins with preflights (and
+// on every refusal, so the app can read why), a size limit per bundle stated in every answer, the token
+// checked before the body is read, one log line per request. A record the database cannot store is the
+// record's fault (400), never the office's (503).
 import { createHash } from 'node:crypto';
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import { performance } from 'node:perf_hooks';
-import { BundleError, parseBundle, type Bundle } from '../../core/index';
+import { BundleError, parseBundle, refuseBundleBlobs, type Bundle } from '../../core/index';
 import type { Database } from './db';
 import { createPushGate, type PushGate } from './admission';
 import { authenticate, type AuthenticatedDevice } from './devices';
@@ -13,6 +14,7 @@ import { IntegrityError, pullBundles, storeBundle, type StoreOptions } from './s
 import { BODY_BUDGET_BUNDLES, BODY_READ_LIMIT_MS, BodyBudget, DEFAULT_MAX_CONNECTIONS, readBody, tooLarge } from './intake';
 import { findUnstorableRecord, isDataError, positionOf, Refusal } from './refusal';
 import { DatabaseDown } from './keep-open';
+import { handleBlob, isBlobPath, MAX_BLOB_BYTES, MAX_BLOB_BYTES_HEADER } from './blobs';
 
 /** Largest bundle the receiver accepts by default, bytes of request body (16 MiB, ~40,000 readings). */
 export const DEFAULT_MAX_BUNDLE_BYTES = 16 * 1024 * 1024;
@@ -105,7 +107,7 @@ function applyCors(req: IncomingMessage, res: ServerResponse, ctx: Ctx): void {
   const origin = req.headers.origin;
   if (origin === undefined) return;
   res.setHeader('Access-Control-Allow-Origin', origin);
-  res.setHeader('Access-Control-Expose-Headers', `Retry-After, ${MAX_BYTES_HEADER}`);
+  res.setHeader('Access-Control-Expose-Headers', `Retry-After, ${MAX_BYTES_HEADER}, ${MAX_BLOB_BYTES_HEADER}`);
   if (req.method !== 'OPTIONS' && !ctx.origins.has(origin)) {
     throw new Refusal(403, 'origin', `Pages from ${origin} may not use this office receiver; the office starts it with --origin ${origin} to allow them.`);
   }
@@ -113,11 +115,16 @@ function applyCors(req: IncomingMessage, res: ServerResponse, ctx: Ctx): void {
 
 async function handle(req: IncomingMessage, res: ServerResponse, url: URL, fields: LogFields, ctx: Ctx): Promise<number> {
   res.setHeader(MAX_BYTES_HEADER, String(ctx.maxBytes));
+  res.setHeader(MAX_BLOB_BYTES_HEADER, String(MAX_BLOB_BYTES));
   applyCors(req, res, ctx);
   const path = url.pathname.replace(/\/+$/, '') || '/';
+  if (isBlobPath(path)) {
+    const authoriseBlob = async () => (await authorise(ctx.db, req.headers.authorization)).name;
+    return handleBlob(req, res, path, fields, { db: ctx.db, budget: ctx.budget, bodyReadLimit_ms: ctx.bodyReadLimit_ms, authorise: authoriseBlob });
+  }
   if (path === '/') {
     if (req.method !== 'GET') throw new Refusal(405, 'method', 'Only GET is answered at the root.');
-    return sendJson(res, 200, { service: 'freshet office receiver', bundles: '/bundles' });
+    return sendJson(res, 200, { service: 'freshet office receiver', bundles: '/bundles', blobs: '/blobs' });
   }
   if (path !== '/bundles') throw new Refusal(404, 'path', `Nothing at ${url.pathname}; the bundle endpoint is /bundles.`);
   if (req.method === 'OPTIONS') {
@@ -185,6 +192,7 @@ async function push(
   }
   let bundle: Bundle;
   try {
+    refuseBundleBlobs(json);
     bundle = parseBundle(json, nodeSha256);
   } catch (err) {
     if (!(err instanceof BundleError)) throw err;

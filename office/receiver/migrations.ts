@@ -76,6 +76,17 @@ export const MIGRATIONS: readonly string[] = [
   alter table record_versions drop constraint if exists record_versions_bundle_id_fkey;
   drop index if exists record_versions_seq;
   `,
+  // Step 3: photo bytes (office/receiver/blobs.ts), content-addressed by their SHA-256, kept in the same
+  // database as the records so one backup holds both. Never changed once stored: the name is the hash.
+  `
+  create table office_blobs (
+    sha256 text primary key check (sha256 ~ '^[0-9a-f]{64}$'),
+    type text not null check (type in ('image/jpeg', 'image/png', 'image/webp')),
+    bytes integer not null check (bytes between 1 and 16777216),
+    data bytea not null,
+    received_at timestamptz not null default now()
+  );
+  `,
 ];
 
 /** Brings the database's schema up to the latest step; returns the step numbers it applied. */

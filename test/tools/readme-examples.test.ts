@@ -89,7 +89,7 @@ describe('the README examples', () => {
     }
     expect(ran).toBeGreaterThanOrEqual(10);
     // Export folders and files follow the umask (027 here), not a fixed 0700.
-    for (const folder of ['tables', 'exports/tb-02', 'exports/tb-02-wml']) {
+    for (const folder of ['tables', 'exports/tb-02', 'exports/tb-02-wml', 'exports/tb-02-photos']) {
       expect((statSync(join(dir, folder)).mode & 0o777).toString(8)).toBe('750');
       for (const f of readdirSync(join(dir, folder))) expect((statSync(join(dir, folder, f)).mode & 0o777).toString(8)).toBe('640');
     }

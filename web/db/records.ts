@@ -229,7 +229,7 @@ export async function listAll<S extends RecordStore>(store: S, options: ReadOpti
 }
 
 /** Records of store S (tombstones included) whose rev sorts after `afterRev`, oldest first: what sync sends. */
-export async function changedSince<S extends 'sites' | 'readings' | 'gaugings' | 'ratings' | 'analyses' | 'loggerDays'>(
+export async function changedSince<S extends 'sites' | 'readings' | 'gaugings' | 'ratings' | 'analyses' | 'loggerDays' | 'photos'>(
   store: S,
   afterRev: string | undefined,
 ): Promise<RecordOf<S>[]> {

@@ -1,15 +1,16 @@
 // The whole IndexedDB schema as one type: a wrong store, index or value fails to compile.
 import type { DBSchema, IDBPTransaction, StoreNames } from 'idb';
 import type {
-  AnalysisRecord, ConflictRecord, DraftRecord, GaugingRecord, LoggerDayRecord, RatingRecord, ReadingRecord, SiteRecord,
+  AnalysisRecord, ConflictRecord, DraftRecord, GaugingRecord, LoggerDayRecord, PhotoRecord, RatingRecord, ReadingRecord, SiteRecord,
 } from '../../core/records/index';
+import type { PhotoBytesEntry } from './photo-bytes-entry';
 import type { Bundle } from '../../core/exchange/index';
 import type { OutboxLimits, SetAsideEntry } from './outbox-state';
 
 /** Name of the app's database. */
 export const DB_NAME = 'freshet';
 /** Current schema version: the highest step of the upgrade ladder in upgrade.ts. */
-export const DB_VERSION = 3;
+export const DB_VERSION = 4;
 
 /** Values kept in the meta store, by key: device id and last revision issued (the pull cursor is in `sync`). */
 export interface MetaValues {
@@ -100,7 +101,7 @@ export interface OutboxEntry {
 /** Keys of the meta store. */
 export type MetaKey = keyof MetaValues & string;
 
-/** The Freshet database, version 3. */
+/** The Freshet database, version 4. */
 export interface FreshetDB extends DBSchema {
   sites: { key: string; value: SiteRecord; indexes: { 'by-code': string; 'by-rev': string } };
   readings: {
@@ -127,6 +128,14 @@ export interface FreshetDB extends DBSchema {
   outbox: { key: string; value: OutboxEntry; indexes: { 'by-created': number } };
   /** Logger records, one record per site and UTC day (since version 3); they sync as kind 'logger-day'. */
   loggerDays: { key: string; value: LoggerDayRecord; indexes: { 'by-site-day': [string, number]; 'by-rev': string } };
+  /** Photo records (since version 4); they sync as kind 'photo'. The bytes are in photoBytes. */
+  photos: {
+    key: string;
+    value: PhotoRecord;
+    indexes: { 'by-owner': string; 'by-site-taken': [string, number]; 'by-sha256': string; 'by-rev': string };
+  };
+  /** Photo bytes by SHA-256 (since version 4): local only, shared by every photo record naming them. */
+  photoBytes: { key: string; value: PhotoBytesEntry };
 }
 
 /**

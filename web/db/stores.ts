@@ -22,12 +22,14 @@ export const STORES = {
   ratings: { kind: 'rating', syncs: true, writer: 'web/db/records.ts' },
   analyses: { kind: 'analysis', syncs: true, writer: 'web/db/records.ts' },
   loggerDays: { kind: 'logger-day', syncs: true, writer: 'web/db/logger-days.ts' },
+  photos: { kind: 'photo', syncs: true, writer: 'web/db/records.ts' },
   drafts: { kind: 'draft', syncs: false, writer: 'web/db/records.ts' },
   conflicts: { kind: 'conflict', syncs: false, writer: 'web/db/records.ts' },
   meta: { kind: null, syncs: false, writer: 'web/db/clock.ts' },
   series: { kind: null, syncs: false, writer: 'web/db/series-edit.ts' },
   sync: { kind: null, syncs: false, writer: 'web/db/sync-store.ts' },
   outbox: { kind: null, syncs: false, writer: 'web/db/outbox.ts' },
+  photoBytes: { kind: null, syncs: false, writer: 'web/db/photo-bytes.ts' },
 } as const satisfies { [S in StoreNames<FreshetDB>]: StoreFacts };
 
 type Table = typeof STORES;

@@ -48,4 +48,13 @@ export function upgradeFreshetDb(
     loggerDays.createIndex('by-site-day', ['siteId', 'day']);
     loggerDays.createIndex('by-rev', 'rev');
   }
+  if (oldVersion < 4 && target >= 4) {
+    // Photos (issue 25): the records, which sync, and their bytes by SHA-256, which stay on the phone.
+    const photos = db.createObjectStore('photos', { keyPath: 'id' });
+    photos.createIndex('by-owner', 'owner.id');
+    photos.createIndex('by-site-taken', ['siteId', 'taken_ms']);
+    photos.createIndex('by-sha256', 'sha256');
+    photos.createIndex('by-rev', 'rev');
+    db.createObjectStore('photoBytes', { keyPath: 'sha256' });
+  }
 }

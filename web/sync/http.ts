@@ -8,7 +8,8 @@ import { plainError } from '../plain-words';
 /** How long a request may take before it is given up and treated as a network failure, ms. */
 export const REQUEST_TIMEOUT_MS = 60_000;
 
-async function send(url: string, init: RequestInit): Promise<Response | undefined> {
+/** One request to the office (CORS, no cookies, a time limit); undefined when no answer came. */
+export async function send(url: string, init: RequestInit): Promise<Response | undefined> {
   try {
     return await fetch(url, { ...init, mode: 'cors', credentials: 'omit', cache: 'no-store', redirect: 'follow', signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS) });
   } catch {
@@ -17,7 +18,8 @@ async function send(url: string, init: RequestInit): Promise<Response | undefine
   }
 }
 
-async function text(res: Response): Promise<string> {
+/** The body of an answer as text ('' when it cannot be read). */
+export async function text(res: Response): Promise<string> {
   try {
     return await res.text();
   } catch {

@@ -10,6 +10,7 @@ import { noteStatedLimit, refusedAsTooLarge, searchRefused, setAsideRefused } fr
 import { getSyncValue, noteSyncProblem } from '../db/sync-store';
 import type { SyncSettings } from '../db/schema';
 import { pushAnswer } from './http';
+import { deliverPhotosOf } from './photo-delivery';
 
 // The Background Sync tag and the worker's message to pages live in names.ts (no imports, so the first
 // screen's triggers can name them without loading this module).
@@ -29,6 +30,20 @@ export async function pushWaiting(settings: SyncSettings): Promise<PushRun> {
   for (let refusals = 0; ; ) {
     const entry = await nextOutgoing();
     if (!entry) return { kind: 'sent', sent, setAside };
+    // Photo bytes first: the bundle goes only once the office confirmed every photo's hash.
+    const photos = await deliverPhotosOf(settings, entry.bundle);
+    if (photos.kind === 'set-aside' && refusals < MAX_REFUSALS_PER_RUN) {
+      refusals++;
+      await setAsideRefused(entry.id, photos.index, photos.message);
+      setAside++;
+      continue;
+    }
+    if (photos.kind !== 'ready') {
+      const outcome = photos.kind === 'stopped' ? photos.outcome : { kind: 'fix' as const, message: photos.message };
+      await noteAttempt(entry.id, Date.now());
+      await noteSyncProblem(outcome);
+      return { kind: 'stopped', outcome, attempts: entry.attempts + 1, sent };
+    }
     const answer = await pushAnswer(settings, entry.bundle);
     const stated = statedLimit_bytes(answer.limitHeader);
     if (stated !== undefined) await noteStatedLimit(stated);

@@ -3,14 +3,15 @@
 import { SYNC_KINDS } from '../../../core/index';
 import { expectPositionals, parseCommandArgs } from '../../shared/args';
 import type { Command } from '../../shared/io';
-import { readBundleFile } from '../../shared/read-bundle';
+import { readBundleFileParts } from '../../shared/read-bundle';
 import { sitesOf } from '../site-data';
 
 const HELP = `Usage: freshet check <bundle.json>
 
 Checks a Freshet bundle: that it is JSON in the bundle format, a version this command reads, that its
 records match its SHA-256 checksum, and that every record is valid. Prints a summary: the bundle's id,
-device and time, the records of each kind, and the sites with their readings.
+device and time, the records of each kind, the sites with their readings, and the photos whose bytes
+the file carries (each checked against its SHA-256).
 Exit status: 0 a good bundle; 1 a bad or unreadable bundle (one line says why); 2 bad arguments.
 
 Options:
@@ -26,7 +27,7 @@ export const checkCommand: Command = {
   help: HELP,
   async run(args, io) {
     const [path] = expectPositionals('check', parseCommandArgs('check', args, {}), ['bundle.json']);
-    const bundle = await readBundleFile('check', path, io.cwd);
+    const { bundle, blobs } = await readBundleFileParts('check', path, io.cwd);
     const counts = SYNC_KINDS.map((k) => {
       const of = bundle.records.filter((r) => r.kind === k);
       const deleted = of.filter((r) => r.deleted === true).length;
@@ -41,6 +42,11 @@ export const checkCommand: Command = {
       const r = s.readings;
       const span = r.length > 0 ? `, ${new Date(r[0].reading.time_ms).toISOString()} to ${new Date(r[r.length - 1].reading.time_ms).toISOString()}` : '';
       lines.push(`  site ${s.site.code} (${s.site.name}): ${count(r.length, 'reading')}${span}; ${count(s.gaugings.length, 'gauging')}; ${count(s.ratings.length, 'rating')}`);
+    }
+    const photos = bundle.records.filter((r) => r.kind === 'photo' && r.deleted !== true);
+    if (blobs.size > 0 || photos.length > 0) {
+      const without = photos.filter((r) => !blobs.has((r.body as { sha256: string }).sha256)).length;
+      lines.push(`  ${count(blobs.size, 'photo')} carried, each matching its SHA-256${without > 0 ? `; ${count(without, 'photo record')} without ${without === 1 ? 'its' : 'their'} bytes in this file` : ''}`);
     }
     io.stdout(lines.join('\n') + '\n');
     return 0;

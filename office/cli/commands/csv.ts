@@ -1,5 +1,5 @@
 // `freshet csv <bundle.json> --out <dir>`: the CSV tables of every site in a bundle, written all at once.
-import { gaugingsToCsv, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv } from '../../../core/index';
+import { gaugingsToCsv, photoFilesByOwner, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv } from '../../../core/index';
 import { parseCommandArgs } from '../../shared/args';
 import { CliError, type Command } from '../../shared/io';
 import { DATABASE_SOURCE_HELP, DATABASE_SOURCE_OPTIONS, exportRecords } from '../../receiver/export-source';
@@ -15,6 +15,8 @@ units in the header, in each site's display units) for every site in the bundle:
   <site>_readings.csv         the stage record: every spot reading and logger value with source, stage,
                               raw logger value and correction, shift, discharge, extrapolated flag, quality
   <site>_gaugings.csv         gaugings: mean stage, discharge, method, grade
+                              (for a site with photos both tables end with a photos column: the files
+                              freshet photos writes for each record's photos, separated by spaces)
   <site>_rating_segments.csv  each rating's power-law segments, coefficients in SI (Q m³/s, h m)
   <site>_rating_tables.csv    each rating as a stage–discharge table (no shift), extrapolated rows marked
   <site>_storm_<date>.csv     each saved storm analysis: discharge, baseflow and direct runoff per time
@@ -46,8 +48,10 @@ export const csvCommand: Command = {
     sites.forEach((s, i) => {
       const o = { siteCode: s.site.code, timeZone: s.site.timeZone, units: s.site.displayUnits };
       const stem = stems[i];
-      files.push({ name: `${stem}_readings.csv`, text: readingsToCsv(s.readings, o) });
-      files.push({ name: `${stem}_gaugings.csv`, text: gaugingsToCsv(s.gaugings, o) });
+      // A site with photos gets a photos column in its readings and gaugings tables (else the same tables as the phone's).
+      const photos = s.photos.length > 0 ? { ...o, photos: photoFilesByOwner(s) } : o;
+      files.push({ name: `${stem}_readings.csv`, text: readingsToCsv(s.readings, photos) });
+      files.push({ name: `${stem}_gaugings.csv`, text: gaugingsToCsv(s.gaugings, photos) });
       files.push({ name: `${stem}_rating_segments.csv`, text: ratingSegmentsToCsv(s.ratings, o) });
       files.push({ name: `${stem}_rating_tables.csv`, text: ratingTablesToCsv(s.ratings, o) });
       const storms = stormFiles(s, stem);

@@ -96,7 +96,7 @@ export function describeRobustness(engine: Engine): void {
       expect(answers.map((a) => a.status)).toEqual([204, 201, 400, 401, 403, 404, 413, 200]);
       for (const a of answers) {
         expect(a.headers.get('freshet-max-bundle-bytes')).toBe(String(LIMIT_BYTES));
-        expect(a.headers.get('access-control-expose-headers')).toBe('Retry-After, Freshet-Max-Bundle-Bytes');
+        expect(a.headers.get('access-control-expose-headers')).toBe('Retry-After, Freshet-Max-Bundle-Bytes, Freshet-Max-Blob-Bytes');
         if (a.status !== 403) expect(a.headers.get('access-control-allow-origin')).toBe(APP_ORIGIN);
         if (a.status >= 400) {
           const body = (await a.json()) as { reason: string; message: string };

@@ -1,7 +1,7 @@
 // Data: what is stored on this phone, whether the browser will keep it, exports for the office (CSV and
 // WaterML 2.0, by download or the phone's share sheet) and readings imported from CSV.
 import { useEffect, useState } from 'preact/hooks';
-import { listConflicts, listDrafts, listSites, storageState, type StorageState } from '../../db';
+import { listConflicts, listDrafts, listSites, photoBytesSummary, storageState, type StorageState } from '../../db';
 import { useRecords } from '../../components/use-records';
 import { formatTime } from '../../format';
 import { href, type ScreenProps } from '../../router';
@@ -13,9 +13,9 @@ function bytes(n: number): string {
 }
 
 function StorageSection() {
-  const [state, setState] = useState<StorageState>();
+  const [state, setState] = useState<StorageState & { photos?: { count: number; bytes: number } }>();
   const [asked, setAsked] = useState<string>();
-  const refresh = () => void storageState().then(setState);
+  const refresh = () => void Promise.all([storageState(), photoBytesSummary().catch(() => undefined)]).then(([s, photos]) => setState({ ...s, photos }));
   useEffect(refresh, []);
   return (
     <section class="card" aria-labelledby="storage-heading">
@@ -27,6 +27,8 @@ function StorageSection() {
           <dd>{state.persisted === 'unsupported' ? 'not offered by this browser' : state.persisted ? 'yes, persistent' : 'not yet'}</dd>
           <dt>Space used</dt>
           <dd>{state.usage_bytes !== undefined && state.quota_bytes ? `${bytes(state.usage_bytes)} of ${bytes(state.quota_bytes)}` : 'not reported'}</dd>
+          <dt>Photos</dt>
+          <dd>{!state.photos ? 'not reported' : state.photos.count === 0 ? 'none' : `${state.photos.count} picture${state.photos.count === 1 ? '' : 's'}, ${bytes(state.photos.bytes)}`}</dd>
         </dl>
       )}
       {state && state.persisted === false && (

@@ -9,6 +9,7 @@ import { href, navigate } from '../../router';
 import { formatArea_m2 } from '../Ratings/units';
 import { gaugingCheck } from './check';
 import { VerticalTable } from './vertical-table';
+import { Photos } from '../../components/Photos';
 
 /** Grade words with the common-practice limit of each. */
 export const GRADE_WORDS = { excellent: 'excellent (2 %)', good: 'good (5 %)', fair: 'fair (8 %)', poor: 'poor (over 8 %)' } as const;
@@ -73,6 +74,7 @@ export function GaugingView({ site, gauging: g, ratings }: { site: SiteRecord; g
           />
         </>
       ) : <p class="muted">Entered as a summary ({g.method}): no verticals to show.</p>}
+      <Photos siteId={site.id} owner={{ kind: 'gauging', id: g.id }} timeZone={site.timeZone} />
     </>
   );
 }

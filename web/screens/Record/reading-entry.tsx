@@ -21,6 +21,7 @@ import { SaveBar, type BarMessage } from './save-bar';
 import { useClock } from './use-clock';
 import { nextOnEnter, ObserverNote, SourceQuality, TimeField } from './fields';
 import { restorableDrafts, useKeptDraft } from '../../app/use-kept-draft';
+import { keepPending, PendingPhotos, Photos, type PendingPhoto } from '../../components/Photos';
 import { blankForm, formOfReading, formReducer, fromDraftFields, hasContent, stageOf, timeOf, toDraftFields } from './form';
 import './style.css';
 
@@ -50,6 +51,8 @@ export function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?
   const [slipOk, setSlipOk] = useState<number>();
   /** Which instant the user picked for a time the clocks skipped or repeated (kept while the text is the same). */
   const [timeChoice, setTimeChoice] = useState<{ text: string; time_ms: number }>();
+  /** Photos chosen for a new reading, kept once it is saved (a photo that does not fit never stops the reading). */
+  const [photos, setPhotos] = useState<PendingPhoto[]>([]);
   const draft = useKeptDraft(form, ready, {
     form: 'reading', siteId: site.id, hasContent, toFields: toDraftFields,
     onError: (err) => setError({ text: `The draft could not be kept: ${plainError(err, { units: u, timeZone: site.timeZone })}` }),
@@ -187,7 +190,9 @@ export function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?
         // No local storage: the observer is simply not remembered.
       }
       const q = !hasDischarge(checked.discharge_m3s) ? 'no discharge (no rating)' : formatQuantity('discharge', checked.discharge_m3s, u) + (checked.extrapolated ? ', extrapolated' : '');
-      const text = `Saved: ${formatQuantity('stage', record.stage_m, u)} at ${formatTime(record.time_ms, site.timeZone)}, ${q}.`;
+      const photoWords = form.editing ? '' : await keepPending(photos, site.id, { kind: 'reading', id: record.id });
+      if (!form.editing) setPhotos([]);
+      const text = `Saved: ${formatQuantity('stage', record.stage_m, u)} at ${formatTime(record.time_ms, site.timeZone)}, ${q}.${photoWords}`;
       setRestoredAt(undefined);
       setFutureOk(undefined);
       setSlipOk(undefined);
@@ -268,6 +273,9 @@ export function ReadingEntry({ site, readingId }: { site: SiteRecord; readingId?
         }} />
       <ObserverNote observer={form.observer} note={form.note} jump={jump} noteRef={noteInput}
         onObserver={(value) => dispatch({ type: 'set', field: 'observer', value })} onNote={(value) => dispatch({ type: 'set', field: 'note', value })} />
+      {form.editing
+        ? <Photos siteId={site.id} owner={{ kind: 'reading', id: form.editing.id }} timeZone={site.timeZone} />
+        : <PendingPhotos value={photos} onChange={setPhotos} timeZone={site.timeZone} />}
       <LocationField value={form.gps} onChange={(value) => dispatch({ type: 'gps', value })} />
       <p><a href={href('sites', site.id)}>Readings of this site</a></p>
       <Cautions compact />

@@ -14,6 +14,7 @@ import { href, type ScreenProps } from '../../router';
 import { displayUnit, hasDischarge, MS_PER_DAY, toDisplay } from '../../../core';
 import './style.css';
 import { plainError } from '../../plain-words';
+import { Photos } from '../../components/Photos';
 
 /** How many days the small hydrograph shows, ending at the latest reading. */
 const PLOT_DAYS = 7;
@@ -165,6 +166,7 @@ export default function SiteReadings({ params }: ScreenProps) {
         {items.length > shown && <button type="button" onClick={() => setShown(shown + PAGE)}>Show {Math.min(PAGE, items.length - shown)} more</button>}
         <button type="button" onClick={() => setDays(days * 3)}>Show older readings (last {days * 3} days)</button>
       </div>
+      <Photos siteId={site.id} owner={{ kind: 'site', id: site.id }} timeZone={site.timeZone} />
     </>
   );
 }

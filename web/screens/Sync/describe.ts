@@ -7,7 +7,7 @@ import { MS_PER_DAY } from '../../../core/time/index';
 /** What kind of record it is, in words. */
 export const KIND_WORDS: Record<SyncRecord['kind'], string> = {
   site: 'Site', reading: 'Stage reading', gauging: 'Gauging', rating: 'Rating', analysis: 'Storm analysis',
-  'logger-day': 'Logger record (one day)',
+  'logger-day': 'Logger record (one day)', photo: 'Photo',
 };
 
 /** Lines describing one version: its main fields in words, "Deleted" for a tombstone. */
@@ -34,6 +34,10 @@ export function describeVersion(v: SyncRecord, sites: ReadonlyMap<string, SiteRe
       const offsets = Array.isArray(b.offset_ms) ? b.offset_ms.length : 0;
       const day = typeof b.day === 'number' ? b.day * MS_PER_DAY : undefined;
       return [`Day starting: ${when(day)}`, `Values: ${offsets}`, `File: ${text(b.fileName)}`, `Note: ${text(b.note)}`];
+    }
+    case 'photo': {
+      const kb = typeof b.bytes === 'number' ? `${Math.max(1, Math.round(b.bytes / 1024))} KB` : '—';
+      return [`Taken: ${when(b.taken_ms)}`, `Size: ${kb}`, `Caption: ${text(b.caption)}`];
     }
     default: {
       const never: never = v;

@@ -16,6 +16,7 @@ export default defineConfig({
         db: resolve(import.meta.dirname, 'db.html'),
         logger: resolve(import.meta.dirname, 'logger.html'),
         plot: resolve(import.meta.dirname, 'plot.html'),
+        photo: resolve(import.meta.dirname, 'photo.html'),
       },
     },
   },

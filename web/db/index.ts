@@ -15,7 +15,7 @@ export { importLoggerRecord, type LoggerImportResult } from './logger-days';
 export { saveGauging, getGauging, deleteGauging, listGaugings } from './gaugings';
 export { saveRating, deleteRating, restoreRating, listRatings, ratingInForceAt, ratingsAndGaugings } from './ratings';
 export { saveAnalysis, deleteAnalysis, listAnalyses } from './analyses';
-export { savePhoto, deletePhoto, restorePhoto, setPhotoCaption, listPhotosOf } from './photos';
+export { savePhoto, deletePhoto, restorePhoto, setPhotoCaption, listPhotosOf, listPhotosAtSite } from './photos';
 export { photoBytesSummary } from './photo-bytes';
 export { saveDraft, discardDraft, listDrafts } from './drafts';
 export { listConflicts } from './conflicts';

@@ -1,6 +1,6 @@
 // Bundle files: made for the share sheet (where the browser accepts the file) or a download, and read back
 // with every check of the format before anything is shown or stored.
-import { BundleError, bundleJson, parseBundle, type Bundle } from '../../core';
+import { BundleError, bundleFileParts, bundleJson, type BlobBytes, type Bundle } from '../../core';
 import { downloadFile } from '../save-file';
 
 /** Largest bundle file read, bytes (about a year of 5-minute logger readings at several sites). */
@@ -44,8 +44,8 @@ export async function shareOrDownload(bundle: Bundle, changesOnly: boolean, shar
   return { kind: 'downloaded', name };
 }
 
-/** Reads and checks a bundle file; throws a BundleError whose message says what is wrong with it. */
-export async function readBundleFile(file: Blob): Promise<Bundle> {
+/** Reads and checks a bundle file and the photo bytes it carries; throws a BundleError (or BundleBlobError) saying what is wrong. */
+export async function readBundleFile(file: Blob): Promise<{ bundle: Bundle; blobs: Map<string, BlobBytes> }> {
   if (file.size > MAX_FILE_BYTES) {
     throw new BundleError('shape', `This file is ${Math.round(file.size / 1024 / 1024)} MiB; bundle files up to ${MAX_FILE_BYTES / 1024 / 1024} MiB can be read.`);
   }
@@ -55,5 +55,5 @@ export async function readBundleFile(file: Blob): Promise<Bundle> {
   } catch {
     throw new BundleError('shape', 'This file is not a Freshet bundle: it is not JSON text. Choose a file the app saved as a bundle.');
   }
-  return parseBundle(parsed);
+  return bundleFileParts(parsed);
 }

@@ -34,6 +34,8 @@ export function PhotoViewer({ photo, timeZone, onClose, onDelete, onCaption }: P
 
   const pts = () => [...pointers.current.values()];
   function down(e: PointerEvent) {
+    // Only the picture is dragged: capturing a press on a button would take its click away.
+    if (!(e.target instanceof HTMLImageElement)) return;
     (e.currentTarget as HTMLElement).setPointerCapture(e.pointerId);
     pointers.current.set(e.pointerId, { x: e.clientX, y: e.clientY });
     const [a, b] = pts();

@@ -2,10 +2,10 @@
 // time series, Part 2 ratings and gaugings), shared from the phone or downloaded.
 import { useEffect, useState } from 'preact/hooks';
 import {
-  fromLocalInput, gaugingsToCsv, gaugingVerticalsToCsv, MS_PER_DAY, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv, stageExportRows, toLocalInput, watermlRatings, watermlTimeseries,
+  fromLocalInput, gaugingsToCsv, photoFilesByOwner, gaugingVerticalsToCsv, MS_PER_DAY, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv, stageExportRows, toLocalInput, watermlRatings, watermlTimeseries,
   type SiteRecord,
 } from '../../../core';
-import { latestStageTime, listGaugings, listRatings, stageRecordIn } from '../../db';
+import { latestStageTime, listGaugings, listPhotosAtSite, listRatings, stageRecordIn } from '../../db';
 import { describedBy, Field } from '../../components/Field';
 import { saveTextFile } from '../../save-file';
 
@@ -48,7 +48,10 @@ export function ExportSection({ sites }: { sites: SiteRecord[] }) {
   const stem = site.code.replace(/[^\w.-]+/g, '_');
 
   async function make(): Promise<Made | string> {
-    const o = { siteCode: site.code, timeZone: site.timeZone, units: site.displayUnits };
+    // A site with photos: the CSV tables end with a photos column naming each record's photo files, as the
+    // office's `freshet csv` and `freshet photos` name them.
+    const photos = await listPhotosAtSite(site.id);
+    const o = { siteCode: site.code, timeZone: site.timeZone, units: site.displayUnits, ...(photos.length > 0 ? { photos: photoFilesByOwner({ site, photos }) } : {}) };
     if (KINDS[kind].windowed) {
       if (!range) return 'The time window is still loading.';
       let from_ms: number, to_ms: number;

@@ -14,6 +14,7 @@ import { useStore } from '../../store';
 import { syncNow, syncRunning } from '../../sync/engine';
 import { PULL_EVERY_MS } from '../../sync/triggers';
 import { readBundleFile, shareOrDownload } from '../../sync/files';
+import { keepFilePhotos, withPhotoBytes } from '../../sync/photo-file';
 import { loadSettings, saveSettings } from '../../sync/settings';
 import { describeVersion, KIND_WORDS, reasonWords } from './describe';
 import { SetAsideCard } from './SetAside';
@@ -169,7 +170,7 @@ function FilesCard() {
   const canShare = typeof navigator !== 'undefined' && typeof navigator.canShare === 'function';
   const [useShare, setUseShare] = useState(canShare);
   const [status, setStatus] = useState<{ ok: boolean; text: string }>();
-  const [pending, setPending] = useState<{ bundle: Bundle; name: string; summary: IncomingResult['summary'] }>();
+  const [pending, setPending] = useState<{ bundle: Bundle; blobs: Awaited<ReturnType<typeof readBundleFile>>['blobs']; name: string; summary: IncomingResult['summary'] }>();
   const [busy, setBusy] = useState(false);
 
   async function save(changesOnly: boolean) {
@@ -180,7 +181,7 @@ function FilesCard() {
         setStatus({ ok: false, text: changesOnly ? 'Nothing changed since the last delivery or file of changes: no file made.' : 'No records on this device to save.' });
         return;
       }
-      const out = await shareOrDownload(file.bundle, changesOnly, useShare);
+      const out = await shareOrDownload(await withPhotoBytes(file.bundle), changesOnly, useShare);
       if (out.kind === 'cancelled') {
         setStatus({ ok: false, text: 'Not shared: the share sheet was closed.' });
         return;
@@ -201,9 +202,9 @@ function FilesCard() {
     setPending(undefined);
     if (!file) return;
     try {
-      const bundle = await readBundleFile(file);
+      const { bundle, blobs } = await readBundleFile(file);
       const { summary } = await previewIncoming(bundle.records);
-      setPending({ bundle, name: file.name, summary });
+      setPending({ bundle, blobs, name: file.name, summary });
     } catch (e) {
       setStatus({ ok: false, text: `${plainError(e, { fallback: 'This file is not a bundle this phone can take.' })} Nothing was changed.` });
     }
@@ -214,7 +215,8 @@ function FilesCard() {
     setBusy(true);
     try {
       const { summary } = await applyIncoming(pending.bundle.records);
-      setStatus({ ok: true, text: `Added from ${pending.name}: ${summaryWords(summary)}.` });
+      const photos = await keepFilePhotos(pending.blobs);
+      setStatus({ ok: true, text: `Added from ${pending.name}: ${summaryWords(summary)}${photos > 0 ? `; ${photos} photo${photos === 1 ? '' : 's'} kept` : ''}.` });
       setPending(undefined);
     } catch (e) {
       setStatus({ ok: false, text: `${plainError(e, { fallback: 'This file is not a bundle this phone can take.' })} Nothing was changed.` });

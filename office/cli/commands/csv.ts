@@ -1,5 +1,5 @@
 // `freshet csv <bundle.json> --out <dir>`: the CSV tables of every site in a bundle, written all at once.
-import { gaugingsToCsv, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv } from '../../../core/index';
+import { gaugingsToCsv, gaugingVerticalsToCsv, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv } from '../../../core/index';
 import { parseCommandArgs } from '../../shared/args';
 import { CliError, type Command } from '../../shared/io';
 import { DATABASE_SOURCE_HELP, DATABASE_SOURCE_OPTIONS, exportRecords } from '../../receiver/export-source';
@@ -15,6 +15,10 @@ units in the header, in each site's display units) for every site in the bundle:
   <site>_readings.csv         the stage record: every spot reading and logger value with source, stage,
                               raw logger value and correction, shift, discharge, extrapolated flag, quality
   <site>_gaugings.csv         gaugings: mean stage, discharge, method, grade
+  <site>_gauging_verticals.csv  the verticals of gaugings entered vertical by vertical, one row each (the
+                              gauging's id, station, depth, velocities, angle, and the width, area,
+                              discharge and share of its subsection by the mid-section method); the same
+                              table the phone's Data screen writes (only the header when there are none)
   <site>_rating_segments.csv  each rating's power-law segments, coefficients in SI (Q m³/s, h m)
   <site>_rating_tables.csv    each rating as a stage–discharge table (no shift), extrapolated rows marked
   <site>_storm_<date>.csv     each saved storm analysis: discharge, baseflow and direct runoff per time
@@ -48,6 +52,7 @@ export const csvCommand: Command = {
       const stem = stems[i];
       files.push({ name: `${stem}_readings.csv`, text: readingsToCsv(s.readings, o) });
       files.push({ name: `${stem}_gaugings.csv`, text: gaugingsToCsv(s.gaugings, o) });
+      files.push({ name: `${stem}_gauging_verticals.csv`, text: gaugingVerticalsToCsv(s.gaugings, o) });
       files.push({ name: `${stem}_rating_segments.csv`, text: ratingSegmentsToCsv(s.ratings, o) });
       files.push({ name: `${stem}_rating_tables.csv`, text: ratingTablesToCsv(s.ratings, o) });
       const storms = stormFiles(s, stem);

@@ -258,6 +258,32 @@ describe('a 13-vertical gauging', () => {
     expect(await wrappedTexts(page, '[data-testid="shift-words"] .nowrap')).toEqual([]);
     await shot('shifts');
   });
+
+  it('keeps every shift in the list whole: no value wrapped, nothing cut, clear of its Remove button', async () => {
+    await page.locator('#shiftKind').selectOption('stage-variable');
+    await page.locator('#shiftFrom').fill(toLocalInput(Date.now() - 86_400_000, ZONE));
+    await page.locator('#shiftPoints').fill('0.30 -0.02\n0.80 0.00');
+    await page.getByRole('button', { name: 'Add shift' }).click();
+    await expect.poll(() => page.getByTestId('shift-words').count()).toBe(2);
+    const words = await page.getByTestId('shift-words').allTextContents();
+    expect(words.some((w) => /^[−-]0\.020 m at 0\.300 m, 0\.000 m at 0\.800 m$/.test(w)), words.join(' | ')).toBe(true);
+    // Each value keeps the comma after it: no line of the list starts with a comma.
+    for (const piece of await page.locator('[data-testid="shift-words"] .nowrap').allTextContents()) expect(piece).not.toMatch(/^[,\s]/);
+    expect(await wrappedTexts(page, '[data-testid="shift-words"] .nowrap')).toEqual([]);
+    const items = page.locator('ul[aria-label="Dated shifts"] > li');
+    await expect(items.count()).resolves.toBe(2);
+    for (let k = 0; k < 2; k++) {
+      const item = items.nth(k);
+      await expect(item.evaluate((e) => e.scrollWidth - e.clientWidth)).resolves.toBeLessThanOrEqual(0);
+      const [text] = await boxes(page, `ul[aria-label="Dated shifts"] > li:nth-child(${k + 1}) > span`);
+      const [button] = await boxes(page, `ul[aria-label="Dated shifts"] > li:nth-child(${k + 1}) > button`);
+      const [frame] = await boxes(page, `ul[aria-label="Dated shifts"] > li:nth-child(${k + 1})`);
+      expect(intersects(text, button), `shift ${k + 1}: words and Remove`).toBe(false);
+      expect(within(text, frame) && within(button, frame), `shift ${k + 1}: inside its row`).toBe(true);
+    }
+    await page.getByTestId('shift-words').first().scrollIntoViewIfNeeded();
+    await shot('shifts-two');
+  });
 });
 
 /** The gaugings of the test site straight from IndexedDB (the test may look; screens may not). */

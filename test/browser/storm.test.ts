@@ -296,7 +296,20 @@ describe('storm screen on the demo site, offline', () => {
     const before = await gap();
     const cdp = await page.context().newCDPSession(page);
     const overlayLeft = (await page.locator('.storm-plot .plot-box').boundingBox())!.x;
-    const mid = { x: overlayLeft + ((await pointX(rise)) + (await pointX(peak))) / 2, y: box.y + box.height / 2 };
+    // The fingers go down on the plot itself, at a height where neither lands on a handle's target.
+    const midX = overlayLeft + ((await pointX(rise)) + (await pointX(peak))) / 2;
+    const y = await page.evaluate((x) => {
+      const over = document.querySelector('.storm-plot .plot-gestures')!;
+      const r = over.getBoundingClientRect();
+      for (let yy = r.top + 2; yy < r.bottom - 2; yy += 2) {
+        if (document.elementFromPoint(x - 20, yy) === over && document.elementFromPoint(x + 20, yy) === over) return yy;
+      }
+      return null;
+    }, midX);
+    expect(y, 'a height where both fingers land on the plot').not.toBeNull();
+    const mid = { x: midX, y: y! };
+    const slider = () => page.locator('.key-handle').evaluateAll((els) => Object.fromEntries(els.map((e) => [e.getAttribute('data-handle'), e.getAttribute('aria-valuenow')])));
+    const held = await slider();
     const fingers = (d: number) => [
       { x: mid.x - d, y: mid.y, id: 1 },
       { x: mid.x + d, y: mid.y, id: 2 },
@@ -307,6 +320,10 @@ describe('storm screen on the demo site, offline', () => {
     await cdp.detach();
     await page.waitForTimeout(100);
     expect(await gap()).toBeGreaterThan(before * 1.5);
+    // Zooming moves no key point (those zoomed out of view have no handle).
+    const now = await slider();
+    expect(Object.keys(now).length).toBeGreaterThanOrEqual(2);
+    for (const [key, value] of Object.entries(now)) expect(value, key).toBe(held[key]);
     // Whole window shows everything again.
     await page.getByLabel('Whole window').check();
     await page.getByLabel('Whole window').uncheck();

@@ -60,6 +60,13 @@ describe('placing the key-point handles', () => {
     expect(spots.map((s) => s.pointX)).toEqual([150, 160, 170]);
   });
 
+  it('moves only the two that overlap when a stack would hit a third: R and E stay on their points', () => {
+    // P and I 11 px apart: stacked, I (at 70) would meet R (at 104, 33 px to the left), and three do not fit
+    // 126 px. Side by side instead, P and I alone, about their mean x 179.5 (least squares): 155.5 and 203.5.
+    const spots = placeHandles([{ key: 'R', x: 152, y: 124 }, { key: 'P', x: 174, y: 5 }, { key: 'I', x: 185, y: 50 }, { key: 'E', x: 264, y: 124 }], storm);
+    expect(spots.map((s) => [s.x, s.y])).toEqual([[152, 104], [155.5, 22], [203.5, 50], [264, 104]]);
+  });
+
   it('keeps the spread inside the area at its right edge', () => {
     const spots = placeHandles([{ key: 'R', x: 330, y: 60 }, { key: 'P', x: 333, y: 62 }, { key: 'I', x: 335, y: 64 }, { key: 'E', x: 336, y: 66 }], storm);
     expect(rect(spots[3]).r).toBeCloseTo(storm.left + storm.width, 9);

@@ -1,9 +1,10 @@
 // Where the key-point handles sit over the storm plot. Each handle is a 44 px square touch target
 // (WCAG 2.1 success criterion 2.5.5). Three tries, the first that leaves no two targets overlapping wins:
 //   1. every target on its point (moved only as far as needed to keep the whole square inside the area);
-//   2. targets close in time stacked up and down in columns, where a column fits the area's height;
-//   3. every target on its point's height, spread sideways in time order, each moved as little as it can
-//      be (least squares, order kept: isotonic regression by pooling adjacent violators).
+//   2. overlapping targets stacked up and down at their own times, where the stack fits the area's height;
+//   3. overlapping targets side by side in time order at their points' heights, each moved as little as it
+//      can be (least squares, order kept: isotonic regression by pooling adjacent violators).
+// Targets that overlap are moved as a group; a group that then overlaps another target takes it in.
 // A target set aside from its point is joined to it by a leader line (drawn by the component). Pure.
 
 /** Side of a handle's square touch target, CSS px (WCAG 2.1 SC 2.5.5 asks at least 44 px). */
@@ -66,6 +67,41 @@ function spreadInOrder(values: readonly number[], gap: number, min: number, max:
   return z.map((zi, i) => Math.min(hi, Math.max(min, zi)) + i * gap);
 }
 
+type Spot<K extends string> = HandleSpot<K>;
+
+/**
+ * Moves overlapping targets apart along one axis, group by group: targets that overlap form a group,
+ * each group of two or more is spread (`spread` gives the new coordinates of its members), and a group
+ * that then overlaps another is joined to it and spread again. Undefined when a group cannot fit (`fits`).
+ */
+function apartByGroups<K extends string>(
+  start: readonly Spot<K>[],
+  fits: (n: number) => boolean,
+  spread: (members: Spot<K>[]) => void,
+): Spot<K>[] | undefined {
+  const group = start.map((_, k) => k);
+  const root = (k: number): number => (group[k] === k ? k : (group[k] = root(group[k])));
+  const join = (a: number, b: number) => (group[root(a)] = root(b));
+  for (let a = 0; a < start.length; a++) for (let b = a + 1; b < start.length; b++) if (targetsOverlap(start[a], start[b])) join(a, b);
+  for (;;) {
+    const spots = start.map((s) => ({ ...s }));
+    const members = new Map<number, Spot<K>[]>();
+    spots.forEach((s, k) => members.set(root(k), [...(members.get(root(k)) ?? []), s]));
+    for (const m of members.values()) {
+      if (!fits(m.length)) return undefined;
+      if (m.length > 1) spread(m);
+    }
+    let joined = false;
+    for (let a = 0; a < spots.length; a++) for (let b = a + 1; b < spots.length; b++) {
+      if (root(a) !== root(b) && targetsOverlap(spots[a], spots[b])) {
+        join(a, b);
+        joined = true;
+      }
+    }
+    if (!joined) return spots;
+  }
+}
+
 /**
  * Places the targets of `wishes` (given in time order) inside `area`: see the file's opening comment.
  * Never overlapping when the area is at least one target high and as wide as all targets side by side
@@ -86,25 +122,27 @@ export function placeHandles<K extends string>(wishes: readonly HandleWish<K>[],
   // 1. On the points.
   if (!anyOverlap(points)) return points;
 
-  // 2. Columns of targets close in time, stacked up and down in the order of their points' heights.
-  const stacked = points.map((p) => ({ ...p }));
-  const byX = [...stacked].sort((a, b) => a.x - b.x);
-  const columns: (typeof stacked)[] = [];
-  for (const s of byX) {
-    const last = columns[columns.length - 1];
-    if (last && s.x - last[last.length - 1].x < STEP) last.push(s);
-    else columns.push([s]);
-  }
-  const fits = columns.every((c) => c.length * STEP - HANDLE_GAP_PX <= area.height);
-  for (const column of fits ? columns : []) {
-    if (column.length < 2) continue;
-    column.sort((a, b) => a.y - b.y);
-    const ys = spreadInOrder(column.map((s) => s.y), STEP, minY, maxY);
-    column.forEach((s, k) => (s.y = ys[k]));
-  }
-  if (fits && !anyOverlap(stacked)) return stacked;
+  // 2. Overlapping targets stacked up and down at their own times, in the order of their points' heights.
+  const stacked = apartByGroups(
+    points,
+    (n) => n * STEP - HANDLE_GAP_PX <= area.height,
+    (m) => {
+      m.sort((a, b) => a.y - b.y);
+      spreadInOrder(m.map((s) => s.y), STEP, minY, maxY).forEach((y, k) => (m[k].y = y));
+    },
+  );
+  if (stacked) return stacked;
 
-  // 3. Side by side in time order, each at its point's height.
-  const xs = spreadInOrder(points.map((p) => p.x), STEP, minX, maxX);
-  return points.map((p, k) => ({ ...p, x: xs[k] }));
+  // 3. Overlapping targets side by side in time order, each at its point's height (all four side by side
+  //    at the most, which fits any area at least 188 px wide).
+  const order = new Map(points.map((p, k) => [p.key, k]));
+  const sideways = apartByGroups(
+    points,
+    () => true,
+    (m) => {
+      m.sort((a, b) => order.get(a.key)! - order.get(b.key)!);
+      spreadInOrder(m.map((s) => s.x), STEP, minX, maxX).forEach((x, k) => (m[k].x = x));
+    },
+  );
+  return sideways!;
 }

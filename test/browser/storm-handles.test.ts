@@ -2,7 +2,8 @@
 // least 44 × 44 CSS px (WCAG 2.1 success criterion 2.5.5, target size), wholly inside the plotting area,
 // none over another, on the storm as found, with the Eckhardt filter, with two points dragged next to each
 // other and with the whole window shown (the four points crowded); a finger drag on each target moves that
-// key point and no other; the point's name shows while it is dragged and is gone when the drag ends.
+// key point and no other; the point's name shows inside the plot while it is dragged or moved with the
+// arrow keys, and is gone when the drag ends or the focus leaves.
 // Geometry is the browser's own (getBoundingClientRect); the plotting area is uPlot's over layer.
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -159,5 +160,18 @@ describe('key-point handles on the demo storm at 360×640', () => {
     expect([after.riseStart_ms, after.peak_ms, after.inflection_ms]).toEqual([before.riseStart_ms, before.peak_ms, before.inflection_ms]);
     await expect.poll(namesShown).toBe(0);
     await handlesApart('whole window, after a drag');
+  });
+
+  it('shows the name of a handle moved with the arrow keys inside the plot, and hides it when the focus leaves', async () => {
+    const before = await indexes();
+    await handle('runoffEnd_ms').focus();
+    await page.keyboard.press('ArrowLeft');
+    await expect.poll(async () => (await indexes()).runoffEnd_ms).toBe(before.runoffEnd_ms - 1);
+    await expect(page.getByTestId('key-name').textContent()).resolves.toMatch(/^End of runoff \d+ \w{3} \d\d:\d\d$/);
+    const [area] = await boxes(page, '.storm-plot .u-over');
+    const [name] = await boxes(page, '[data-testid="key-name"] > span');
+    expect(within(name, area, 0.5)).toBe(true);
+    await handle('runoffEnd_ms').evaluate((el: HTMLElement) => el.blur());
+    await expect.poll(namesShown).toBe(0);
   });
 });

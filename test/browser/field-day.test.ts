@@ -1,7 +1,7 @@
 // A technician's day at 360×640, offline after the first visit (issue 24): a 13-vertical gauging typed
 // fast (taps and keys counted), reopened, corrected and exported vertical by vertical; labels never under
 // the totals card and table cells never wrapped; the site plot's time labels on the readings' own day;
-// storm handles inside the plot; the site picker and the shared picture never cut. Outside
+// storm handles apart and inside the plot; the site picker and the shared picture never cut. Outside
 // references: core's mid-section (Turnipseed & Sauer 2010, USGS TM 3-A8) recomputed in Node, Node's Intl
 // with the IANA zone database for the dates, papaparse reading the CSV, and the PNG signature and IHDR
 // layout (ISO/IEC 15948 §5.2, §11.2.2). Geometry is the browser's own (getBoundingClientRect).
@@ -251,6 +251,32 @@ describe('a 13-vertical gauging', () => {
     expect(await wrappedTexts(page, '[data-testid="shift-words"] .nowrap')).toEqual([]);
     await shot('shifts');
   });
+
+  it('keeps every shift in the list whole: no value wrapped, nothing cut, clear of its Remove button', async () => {
+    await page.locator('#shiftKind').selectOption('stage-variable');
+    await page.locator('#shiftFrom').fill(toLocalInput(Date.now() - 86_400_000, ZONE));
+    await page.locator('#shiftPoints').fill('0.30 -0.02\n0.80 0.00');
+    await page.getByRole('button', { name: 'Add shift' }).click();
+    await expect.poll(() => page.getByTestId('shift-words').count()).toBe(2);
+    const words = await page.getByTestId('shift-words').allTextContents();
+    expect(words.some((w) => /^[−-]0\.020 m at 0\.300 m, 0\.000 m at 0\.800 m$/.test(w)), words.join(' | ')).toBe(true);
+    // Each value keeps the comma after it: no line of the list starts with a comma.
+    for (const piece of await page.locator('[data-testid="shift-words"] .nowrap').allTextContents()) expect(piece).not.toMatch(/^[,\s]/);
+    expect(await wrappedTexts(page, '[data-testid="shift-words"] .nowrap')).toEqual([]);
+    const items = page.locator('ul[aria-label="Dated shifts"] > li');
+    await expect(items.count()).resolves.toBe(2);
+    for (let k = 0; k < 2; k++) {
+      const item = items.nth(k);
+      await expect(item.evaluate((e) => e.scrollWidth - e.clientWidth)).resolves.toBeLessThanOrEqual(0);
+      const [text] = await boxes(page, `ul[aria-label="Dated shifts"] > li:nth-child(${k + 1}) > span`);
+      const [button] = await boxes(page, `ul[aria-label="Dated shifts"] > li:nth-child(${k + 1}) > button`);
+      const [frame] = await boxes(page, `ul[aria-label="Dated shifts"] > li:nth-child(${k + 1})`);
+      expect(intersects(text, button), `shift ${k + 1}: words and Remove`).toBe(false);
+      expect(within(text, frame) && within(button, frame), `shift ${k + 1}: inside its row`).toBe(true);
+    }
+    await page.getByTestId('shift-words').first().scrollIntoViewIfNeeded();
+    await shot('shifts-two');
+  });
 });
 
 /** The gaugings of the test site straight from IndexedDB (the test may look; screens may not). */
@@ -305,9 +331,10 @@ describe('the storm screen and its picture', () => {
       expect(h.height).toBeGreaterThanOrEqual(44);
       expect(within(h, plot, 1), `${where}: handle inside the plot`).toBe(true);
     }
+    for (let a = 0; a < handles.length; a++) for (let b = a + 1; b < handles.length; b++) expect(intersects(handles[a], handles[b]), `${where}: handles ${a}, ${b}`).toBe(false);
   };
 
-  it('keeps the key-point handles whole and inside the plot, with Eckhardt too', async () => {
+  it('keeps the key-point handles whole, apart and inside the plot, with Eckhardt too', async () => {
     await page.evaluate(() => scrollTo(0, 0));
     await handleCheck('variable slope');
     if (!(await page.locator('details.storm-method').evaluate((d: HTMLDetailsElement) => d.open))) await page.locator('.storm-method summary').click();
@@ -317,27 +344,17 @@ describe('the storm screen and its picture', () => {
     await shot('storm-handles');
   });
 
-  it('hides the handle’s name once a drag ends', async () => {
+  it('hides the point’s name once a drag ends', async () => {
     const end = page.locator('[data-handle="runoffEnd_ms"]');
     await end.scrollIntoViewIfNeeded();
-    // A point of the handle that no other handle covers (handles can still overlap: see the closing notes).
-    const at = await end.evaluate((el) => {
-      const r = el.getBoundingClientRect();
-      for (let dy = 0.5; dy < 1; dy += 0.1) for (const fx of [0.5, 0.25, 0.75, 0.1, 0.9]) for (const fy of [dy, 1 - dy]) {
-        const x = r.left + r.width * fx;
-        const y = r.top + r.height * fy;
-        if (el.contains(document.elementFromPoint(x, y))) return { x, y };
-      }
-      return null;
-    });
-    expect(at, 'some part of the end-of-runoff handle is uncovered').not.toBeNull();
-    const p = at!;
+    const r = (await end.boundingBox())!;
+    const p = { x: r.x + r.width / 2, y: r.y + r.height / 2 };
     await page.mouse.move(p.x, p.y);
     await page.mouse.down();
     await page.mouse.move(p.x - 20, p.y, { steps: 4 });
-    await expect(end.locator('.key-name').isVisible()).resolves.toBe(true);
+    await expect(page.getByTestId('key-name').isVisible()).resolves.toBe(true);
     await page.mouse.up();
-    await expect.poll(() => page.locator('.key-name').evaluateAll((els) => els.filter((e) => getComputedStyle(e).display !== 'none').length)).toBe(0);
+    await expect.poll(() => page.getByTestId('key-name').count()).toBe(0);
   });
 
   it('lays out the shared picture’s text inside the image with the 60-character name', async () => {

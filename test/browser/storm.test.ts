@@ -273,17 +273,43 @@ describe('storm screen on the demo site, offline', () => {
     const plot = page.locator('.storm-plot canvas');
     await plot.waitFor();
     const box = (await plot.boundingBox())!;
-    await page.touchscreen.tap(box.x + box.width * 0.3, box.y + box.height * 0.5);
+    // A spot on the plot that no handle's target covers (a tap on a target is the start of a drag).
+    const free = await page.locator('.storm-plot .plot-gestures').evaluate((over) => {
+      const r = over.getBoundingClientRect();
+      for (const fy of [0.5, 0.3, 0.7]) for (let fx = 0.3; fx < 0.95; fx += 0.05) {
+        const p = { x: r.x + r.width * fx, y: r.y + r.height * fy };
+        if (document.elementFromPoint(p.x, p.y) === over) return p;
+      }
+      return null;
+    });
+    expect(free, 'some of the plot is free of handles').not.toBeNull();
+    await page.touchscreen.tap(free!.x, free!.y);
     await expect(page.getByTestId('readout').textContent()).resolves.toMatch(
       /^\d{4}-\d\d-\d\d \d\d:\d\d · stage \d+\.\d{3} m · discharge [\d.,]+ m³\/s · baseflow [\d.,]+ m³\/s$/,
     );
     // Two fingers moving apart between the rise start and the peak spread those two handles apart on screen.
     const rise = page.locator('[data-handle="riseStart_ms"]');
     const peak = page.locator('[data-handle="peak_ms"]');
-    const gap = async () => (await centre(peak)).x - (await centre(rise)).x;
+    // Measured at the points the handles stand for (a target may sit aside from its point so none overlap).
+    const pointX = async (h: Locator) => Number(await h.getAttribute('data-point-x'));
+    const gap = async () => (await pointX(peak)) - (await pointX(rise));
     const before = await gap();
     const cdp = await page.context().newCDPSession(page);
-    const mid = { x: ((await centre(rise)).x + (await centre(peak)).x) / 2, y: box.y + box.height / 2 };
+    const overlayLeft = (await page.locator('.storm-plot .plot-box').boundingBox())!.x;
+    // The fingers go down on the plot itself, at a height where neither lands on a handle's target.
+    const midX = overlayLeft + ((await pointX(rise)) + (await pointX(peak))) / 2;
+    const y = await page.evaluate((x) => {
+      const over = document.querySelector('.storm-plot .plot-gestures')!;
+      const r = over.getBoundingClientRect();
+      for (let yy = r.top + 2; yy < r.bottom - 2; yy += 2) {
+        if (document.elementFromPoint(x - 20, yy) === over && document.elementFromPoint(x + 20, yy) === over) return yy;
+      }
+      return null;
+    }, midX);
+    expect(y, 'a height where both fingers land on the plot').not.toBeNull();
+    const mid = { x: midX, y: y! };
+    const slider = () => page.locator('.key-handle').evaluateAll((els) => Object.fromEntries(els.map((e) => [e.getAttribute('data-handle'), e.getAttribute('aria-valuenow')])));
+    const held = await slider();
     const fingers = (d: number) => [
       { x: mid.x - d, y: mid.y, id: 1 },
       { x: mid.x + d, y: mid.y, id: 2 },
@@ -294,6 +320,10 @@ describe('storm screen on the demo site, offline', () => {
     await cdp.detach();
     await page.waitForTimeout(100);
     expect(await gap()).toBeGreaterThan(before * 1.5);
+    // Zooming moves no key point (those zoomed out of view have no handle).
+    const now = await slider();
+    expect(Object.keys(now).length).toBeGreaterThanOrEqual(2);
+    for (const [key, value] of Object.entries(now)) expect(value, key).toBe(held[key]);
     // Whole window shows everything again.
     await page.getByLabel('Whole window').check();
     await page.getByLabel('Whole window').uncheck();

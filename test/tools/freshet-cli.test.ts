@@ -106,7 +106,7 @@ describe('freshet waterml and csv', { timeout: 90_000 }, () => {
   it('writes the CSV tables, which papaparse reads back', async () => {
     const r = await freshet(['csv', 'demo.json', '--out', 'tables'], dir);
     expect(r.code).toBe(0);
-    expect(readdirSync(join(dir, 'tables')).sort()).toEqual(['PB-03_gaugings.csv', 'PB-03_rating_segments.csv', 'PB-03_rating_tables.csv', 'PB-03_readings.csv']);
+    expect(readdirSync(join(dir, 'tables')).sort()).toEqual(['PB-03_gauging_verticals.csv', 'PB-03_gaugings.csv', 'PB-03_rating_segments.csv', 'PB-03_rating_tables.csv', 'PB-03_readings.csv']);
     const text = readFileSync(join(dir, 'tables', 'PB-03_readings.csv'), 'utf8');
     const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: true });
     expect(parsed.errors).toEqual([]);

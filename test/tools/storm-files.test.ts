@@ -84,8 +84,8 @@ describe('storm CSV from a saved analysis', () => {
       expect(code).toBe(1);
       expect(err).toContain('not written: the storm analysis of PB-03 from 2025-10-16 has no readings in its window in this bundle');
       expect(err).not.toMatch(/_ms\b|separateBaseflow/);
-      expect(out).toMatch(/^Wrote 5 CSV files/);
-      expect(readdirSync(join(dir, 'tables')).sort()).toEqual(['PB-03_gaugings.csv', 'PB-03_rating_segments.csv', 'PB-03_rating_tables.csv', 'PB-03_readings.csv', 'PB-03_storm_2026-11-06.csv']);
+      expect(out).toMatch(/^Wrote 6 CSV files/);
+      expect(readdirSync(join(dir, 'tables')).sort()).toEqual(['PB-03_gauging_verticals.csv', 'PB-03_gaugings.csv', 'PB-03_rating_segments.csv', 'PB-03_rating_tables.csv', 'PB-03_readings.csv', 'PB-03_storm_2026-11-06.csv']);
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }

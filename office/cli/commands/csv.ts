@@ -1,5 +1,5 @@
 // `freshet csv <bundle.json> --out <dir>`: the CSV tables of every site in a bundle, written all at once.
-import { gaugingsToCsv, photoFilesByOwner, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv } from '../../../core/index';
+import { gaugingsToCsv, gaugingVerticalsToCsv, photoFilesByOwner, ratingSegmentsToCsv, ratingTablesToCsv, readingsToCsv } from '../../../core/index';
 import { parseCommandArgs } from '../../shared/args';
 import { CliError, type Command } from '../../shared/io';
 import { DATABASE_SOURCE_HELP, DATABASE_SOURCE_OPTIONS, exportRecords } from '../../receiver/export-source';
@@ -17,6 +17,10 @@ units in the header, in each site's display units) for every site in the bundle:
   <site>_gaugings.csv         gaugings: mean stage, discharge, method, grade
                               (for a site with photos both tables end with a photos column: the files
                               freshet photos writes for each record's photos, separated by spaces)
+  <site>_gauging_verticals.csv  the verticals of gaugings entered vertical by vertical, one row each (the
+                              gauging's id, station, depth, velocities, angle, and the width, area,
+                              discharge and share of its subsection by the mid-section method); the same
+                              table the phone's Data screen writes (only the header when there are none)
   <site>_rating_segments.csv  each rating's power-law segments, coefficients in SI (Q m³/s, h m)
   <site>_rating_tables.csv    each rating as a stage–discharge table (no shift), extrapolated rows marked
   <site>_storm_<date>.csv     each saved storm analysis: discharge, baseflow and direct runoff per time
@@ -52,6 +56,7 @@ export const csvCommand: Command = {
       const photos = s.photos.length > 0 ? { ...o, photos: photoFilesByOwner(s) } : o;
       files.push({ name: `${stem}_readings.csv`, text: readingsToCsv(s.readings, photos) });
       files.push({ name: `${stem}_gaugings.csv`, text: gaugingsToCsv(s.gaugings, photos) });
+      files.push({ name: `${stem}_gauging_verticals.csv`, text: gaugingVerticalsToCsv(s.gaugings, o) });
       files.push({ name: `${stem}_rating_segments.csv`, text: ratingSegmentsToCsv(s.ratings, o) });
       files.push({ name: `${stem}_rating_tables.csv`, text: ratingTablesToCsv(s.ratings, o) });
       const storms = stormFiles(s, stem);

@@ -1,5 +1,6 @@
 // A rating's dated shifts: the list (with remove) and the form to add a constant, stage-variable or
 // prorated shift, showing the discharge at the site's last stage before and after.
+import { Fragment } from 'preact';
 import { useMemo, useState } from 'preact/hooks';
 import { dischargeAtTime, toLocalInput, type DatedShift, type RatingRecord, type SiteRecord } from '../../../core';
 import { latestReading, saveRating } from '../../db';
@@ -78,7 +79,10 @@ export function Shifts({ site, rating }: { site: SiteRecord; rating: RatingRecor
           {rating.shifts.map((s, i) => (
             <li key={s.time_ms} class="item">
               <span>From <span class="nowrap">{formatTime(s.time_ms, site.timeZone)}</span>
-                <span class="hint" data-testid="shift-words">{shiftWords(s, u).map((w, k) => <span key={k} class="nowrap">{k > 0 && ', '}{w}</span>)}</span>
+                <span class="hint" data-testid="shift-words">{shiftWords(s, u).map((w, k, all) => (
+                  // The comma stays with the value before it, so a line never starts with one.
+                  <Fragment key={k}><span class="nowrap">{w}{k < all.length - 1 && ','}</span>{k < all.length - 1 && ' '}</Fragment>
+                ))}</span>
               </span>
               <button type="button" class="danger" aria-label={`Remove the shift from ${formatTime(s.time_ms, site.timeZone)}`} onClick={() => void remove(i)}>Remove</button>
             </li>

@@ -1,7 +1,7 @@
 // The recursive filters as specifications: checked settings, the note about the time step, and how to run.
 import { chapmanMaxwell, chapmanMaxwellCoefficients } from './filters/chapman-maxwell';
 import { eckhardt, eckhardtCoefficients } from './filters/eckhardt';
-import { firstOrderFilterChecked } from './filters/first-order';
+import { firstOrderFilterChecked, type PassFollower } from './filters/first-order';
 import { lyneHollick, lyneHollickChecked } from './filters/lyne-hollick';
 import { perStep, perStepNote } from './filters/time-step';
 import { inOpenUnit, SEPARATE_FN } from './method-checks';
@@ -17,9 +17,10 @@ export interface FilterSpec {
   run(q: Float64Array, step_ms: number): Float64Array;
   /**
    * The same on the caller's arrays, checking the record in the filter's own loop; null unless the record is
-   * clean (finite ascending times, finite discharges ≥ 0) and regular with step step_ms.
+   * clean (finite ascending times, finite discharges ≥ 0) and regular with step step_ms. A filter that works
+   * in stretches tells `follower` how far it got after each.
    */
-  runChecked(t: Float64Array, q: Float64Array, step_ms: number): Float64Array | null;
+  runChecked(t: Float64Array, q: Float64Array, step_ms: number, follower: PassFollower): Float64Array | null;
 }
 
 /** The recursive filter methods of SeparationMethod. */
@@ -60,9 +61,9 @@ export function filterSpec(method: FilterMethod): FilterSpec {
         name: 'Eckhardt',
         note: (step) => perStepNote('Recession constant', a, step),
         run: (q, step) => eckhardt(q, bfiMax, perStep(a, step)),
-        runChecked: (t, q, step) => {
+        runChecked: (t, q, step, follower) => {
           const { carry, gain } = eckhardtCoefficients(bfiMax, perStep(a, step));
-          return firstOrderFilterChecked(t, q, carry, gain, bfiMax);
+          return firstOrderFilterChecked(t, q, carry, gain, bfiMax, follower);
         },
       };
     }
@@ -72,9 +73,9 @@ export function filterSpec(method: FilterMethod): FilterSpec {
         name: 'Chapman–Maxwell',
         note: (step) => perStepNote('Recession constant', k, step),
         run: (q, step) => chapmanMaxwell(q, perStep(k, step)),
-        runChecked: (t, q, step) => {
+        runChecked: (t, q, step, follower) => {
           const { carry, gain } = chapmanMaxwellCoefficients(perStep(k, step));
-          return firstOrderFilterChecked(t, q, carry, gain, 0.5);
+          return firstOrderFilterChecked(t, q, carry, gain, 0.5, follower);
         },
       };
     }

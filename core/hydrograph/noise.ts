@@ -7,38 +7,80 @@ export const MEDIAN_SAMPLE = 1 << 14;
 const SECOND_DIFFERENCE_SCALE = 0.6745 * Math.sqrt(6);
 
 /**
+ * Absolute differences of a record at an even stride, taken while a pass over the record goes by (so each
+ * value is read from cache): order 2 gives second differences |Q_{i+1} − 2Q_i + Q_{i−1}| at i = 1, 1 + s, …;
+ * order 1 gives step changes |Q_{i+1} − Q_i| at i = 0, s, …; the stride s keeps at most `sample` of them.
+ * Differences touching a bridged reading (`missing[i]` = 1) are left out.
+ */
+export class StridedDifferences {
+  private readonly values: Float64Array;
+  private readonly stride: number;
+  private readonly end: number;
+  private next: number;
+  private count = 0;
+
+  constructor(
+    private readonly q: ArrayLike<number>,
+    private readonly order: 1 | 2,
+    private readonly missing?: Uint8Array,
+    sample = MEDIAN_SAMPLE,
+  ) {
+    const available = q.length - order;
+    this.end = available < 1 ? 0 : q.length - 1;
+    this.stride = Math.max(1, Math.ceil(available / sample));
+    this.values = new Float64Array(available < 1 ? 0 : Math.ceil(available / this.stride));
+    this.next = order - 1;
+  }
+
+  /** Takes the differences at indices below upTo (those already taken are kept). */
+  takeBelow(upTo: number): void {
+    const { q, missing, stride, values } = this;
+    const stop = Math.min(upTo, this.end);
+    let i = this.next;
+    let m = this.count;
+    if (this.order === 2) {
+      for (; i < stop; i += stride) {
+        if (missing !== undefined && (missing[i - 1] | missing[i] | missing[i + 1])) continue;
+        values[m++] = Math.abs(q[i + 1] - 2 * q[i] + q[i - 1]);
+      }
+    } else {
+      for (; i < stop; i += stride) {
+        if (missing !== undefined && (missing[i] | missing[i + 1])) continue;
+        values[m++] = Math.abs(q[i + 1] - q[i]);
+      }
+    }
+    this.next = i;
+    this.count = m;
+  }
+
+  /** The median of the differences taken (0 when none; reorders them). */
+  median(): number {
+    return this.count === 0 ? 0 : median(this.values.subarray(0, this.count));
+  }
+}
+
+/** Noise σ (m³/s) from second differences (StridedDifferences of order 2): their median over 0.6745·√6. */
+export function sigmaOfSecondDifferences(d: StridedDifferences): number {
+  return d.median() / SECOND_DIFFERENCE_SCALE;
+}
+
+/**
  * Noise σ (m³/s) of a discharge record: the median absolute second difference Q_{i+1} − 2Q_i + Q_{i−1},
  * divided by 0.6745·√6 (robust-statistics practice, DOMAIN.md §4). Triples touching a bridged reading
  * (`missing[i]` = 1) are left out. 0 when fewer than 3 readings remain. Records longer than `sample`
  * differences are sampled at an even stride.
  */
 export function noiseSigma(q: ArrayLike<number>, missing?: Uint8Array, sample = MEDIAN_SAMPLE): number {
-  const first = 0;
-  const last = q.length - 1;
-  const count = last - first - 1;
-  if (count < 1) return 0;
-  const stride = Math.max(1, Math.ceil(count / sample));
-  const d = new Float64Array(Math.ceil(count / stride));
-  let m = 0;
-  for (let i = first + 1; i < last; i += stride) {
-    if (missing !== undefined && (missing[i - 1] | missing[i] | missing[i + 1])) continue;
-    d[m++] = Math.abs(q[i + 1] - 2 * q[i] + q[i - 1]);
-  }
-  return m === 0 ? 0 : median(d.subarray(0, m)) / SECOND_DIFFERENCE_SCALE;
+  const d = new StridedDifferences(q, 2, missing, sample);
+  d.takeBelow(q.length);
+  return sigmaOfSecondDifferences(d);
 }
 
 /** Median absolute change (m³/s) from one reading to the next, readings touching a bridged one left out. */
 export function medianStepChange(q: ArrayLike<number>, missing?: Uint8Array, sample = MEDIAN_SAMPLE): number {
-  const count = q.length - 1;
-  if (count < 1) return 0;
-  const stride = Math.max(1, Math.ceil(count / sample));
-  const d = new Float64Array(Math.ceil(count / stride));
-  let m = 0;
-  for (let i = 0; i < count; i += stride) {
-    if (missing !== undefined && (missing[i] | missing[i + 1])) continue;
-    d[m++] = Math.abs(q[i + 1] - q[i]);
-  }
-  return m === 0 ? 0 : median(d.subarray(0, m));
+  const d = new StridedDifferences(q, 1, missing, sample);
+  d.takeBelow(q.length);
+  return d.median();
 }
 
 /** Median of the values (reorders the array in place): quickselect, linear on average, no full sort. */

@@ -5,6 +5,7 @@ import { positive, SEPARATE_FN } from './method-checks';
 import { interpolateOnto, medianInterval_ms, resampleRegular } from './resample';
 import type { PreparedSeries, Series } from './series';
 import { bridgingLimit_ms } from './bridging-limit';
+import { noiseNoteOf, noiseSamples } from './filter-noise';
 import { splitAtLongGaps, type FilterRestart } from './split';
 
 /** Baseflow (m³/s) with plain sentences about what was done to the record. */
@@ -17,7 +18,8 @@ export interface FilterRun {
 
 /**
  * The quick path for a clean regular record given as Float64Arrays: the filter's own loop checks the record
- * while filtering. Null when the path does not apply; the general path then checks and reports.
+ * while filtering, and the noise note's samples are taken behind it (filterNoiseNote's note, from cache).
+ * Null when the path does not apply; the general path then checks and reports.
  */
 export function filterQuick(series: Series, spec: FilterSpec): FilterRun | null {
   const t = series?.time_ms;
@@ -26,8 +28,13 @@ export function filterQuick(series: Series, spec: FilterSpec): FilterRun | null 
   if (t.length !== q.length || t.length < 3) return null;
   const step = t[1] - t[0];
   if (!(step > 0 && step < Infinity)) return null;
-  const baseflow = spec.runChecked(t, q, step);
-  return baseflow === null ? null : { baseflow, notes: [spec.note(step)], restarts: [] };
+  const samples = noiseSamples(q);
+  const baseflow = spec.runChecked(t, q, step, samples);
+  if (baseflow === null) return null;
+  const notes = [spec.note(step)];
+  const noise = noiseNoteOf(samples, q.length, spec.name);
+  if (noise !== null) notes.push(noise);
+  return { baseflow, notes, restarts: [] };
 }
 
 /**

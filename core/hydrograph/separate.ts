@@ -82,12 +82,7 @@ export function separateBaseflowDetailed(
     const spec = filterSpec(method);
     if (context?.area_km2 !== undefined) checkArea(context.area_km2, FN);
     const quick = filterQuick(series, spec);
-    if (quick !== null) {
-      // filterQuick only runs on a series given as Float64Arrays.
-      const note = filterNoiseNote(series.discharge_m3s as Float64Array, spec.name);
-      if (note !== null) quick.notes.push(note);
-      return withDailyOnly(quick, method.kind, series.time_ms[1] - series.time_ms[0]);
-    }
+    if (quick !== null) return withDailyOnly(quick, method.kind, series.time_ms[1] - series.time_ms[0]);
   }
   const prepared = prepareSeries(series, FN);
   const area = context?.area_km2 === undefined ? undefined : checkArea(context.area_km2, FN);

@@ -141,6 +141,9 @@ export function joinStageRecord(spots: SpotSeries, days: readonly StageLoggerDay
     source: new Uint8Array(n), spot: new Int32Array(n), day: new Int32Array(n),
   };
   const code = READING_SOURCE_CODES.logger;
+  // One side only (a site with spot readings or a logger, not both, in this window): whole-array copies.
+  if (logger.n === 0) return spotsOnly(out, spots, sa, sb);
+  if (sb === sa) return loggerOnly(out, logger, code);
   let i = sa;
   let j = 0;
   for (let k = 0; k < n; k++) {
@@ -165,6 +168,37 @@ export function joinStageRecord(spots: SpotSeries, days: readonly StageLoggerDay
     }
   }
   return out;
+}
+
+/** The record of spot readings sa..sb − 1 alone, into out (sized for them). */
+function spotsOnly(out: StageRecord, spots: SpotSeries, sa: number, sb: number): StageRecord {
+  copyRange(out.time_ms, spots.time_ms, sa, sb);
+  copyRange(out.stage_m, spots.stage_m, sa, sb);
+  copyRange(out.source, spots.source, sa, sb);
+  out.raw_m.fill(NaN);
+  out.correction_m.fill(NaN);
+  out.day.fill(-1);
+  for (let k = 0; k < sb - sa; k++) out.spot[k] = sa + k;
+  return out;
+}
+
+/** The record of logger values alone, into out (sized for them). */
+function loggerOnly(out: StageRecord, logger: LoggerPart, code: number): StageRecord {
+  const n = logger.n;
+  out.time_ms.set(logger.time_ms.subarray(0, n));
+  out.raw_m.set(logger.raw_m.subarray(0, n));
+  out.correction_m.set(logger.correction_m.subarray(0, n));
+  out.day.set(logger.day.subarray(0, n));
+  for (let k = 0; k < n; k++) out.stage_m[k] = logger.raw_m[k] + logger.correction_m[k];
+  out.source.fill(code);
+  out.spot.fill(-1);
+  return out;
+}
+
+/** Copies source[a..b) to the start of target: one block copy from a typed array, else value by value. */
+function copyRange(target: Float64Array | Uint8Array, source: ArrayLike<number>, a: number, b: number): void {
+  if (source instanceof Float64Array || source instanceof Uint8Array) target.set(source.subarray(a, b));
+  else for (let i = a; i < b; i++) target[i - a] = source[i];
 }
 
 /** Spot readings (any order) sorted by time, then id, with their arrays for joinStageRecord. */

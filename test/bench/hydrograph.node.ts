@@ -161,7 +161,7 @@ export default async function run(): Promise<void> {
     floor_is: 'one bare recursive pass over the same 1e6 values, output allocated',
     target: 'ratio <= 1.25 on a quiet machine',
     median_round_ratio: sig3(eck.ratio),
-    note: 'whole separateBaseflow call (checks fused into the filter loop, per-day constant, 0 ≤ b ≤ Q); medians of 21 rounds, A B interleaved',
+    note: 'whole separateBaseflow call (checks fused into the filter loop, the noise note sampled behind it from cache, per-day constant, 0 ≤ b ≤ Q); medians of 21 rounds, A B interleaved',
   });
   const eckKernel = interleaved(() => bareRecursivePass(q), () => eckhardt(q, 0.8, 0.98), rounds);
   emit({ name: 'eckhardt-1e6-kernel-ratio', value: sig3(eckKernel.ratio), note: 'the filter loop alone / one bare pass' });

@@ -45,6 +45,30 @@ describe('joining spot readings and logger days', () => {
     expect(() => joinStageRecord({ time_ms: [2, 1], stage_m: [0, 0], source: [0, 0] }, [], -Infinity, Infinity)).toThrow(/time order/);
   });
 
+  it('a window with spot readings only or logger values only gives every field by the plain definition', () => {
+    // Spot readings as typed arrays (as the phone's series store gives them), window inside them: each value
+    // its own spot index, no raw value or correction (NaN), no day (−1).
+    const st = Float64Array.from({ length: 8 }, (_, i) => T0 + i * Q);
+    const spots = { time_ms: st, stage_m: Float64Array.from(st, (_, i) => 0.4 + i / 100), source: Uint8Array.from(st, (_, i) => i % 3) };
+    const r = joinStageRecord(spots, [], T0 + 2 * Q, T0 + 5 * Q);
+    expect(Array.from(r.time_ms)).toEqual([2, 3, 4, 5].map((i) => T0 + i * Q));
+    expect(Array.from(r.stage_m)).toEqual([2, 3, 4, 5].map((i) => 0.4 + i / 100));
+    expect(Array.from(r.source)).toEqual([2, 0, 1, 2]);
+    expect(Array.from(r.spot)).toEqual([2, 3, 4, 5]);
+    expect(Array.from(r.day)).toEqual([-1, -1, -1, -1]);
+    expect(Array.from(r.raw_m).every(Number.isNaN) && Array.from(r.correction_m).every(Number.isNaN)).toBe(true);
+    // Logger values only (no spot reading in the window): stage = raw + correction, the logger's code, its day.
+    const days = splitLoggerDays({ time_ms: [T0, T0 + Q, T0 + DAY], raw_m: [0.5, 0.6, 0.7], correction_m: [0.01, 0.02, 0.03] }, ctx);
+    const g = joinStageRecord({ time_ms: [T0 + 9 * DAY], stage_m: [1], source: [0] }, days, -Infinity, T0 + 2 * DAY);
+    expect(Array.from(g.time_ms)).toEqual([T0, T0 + Q, T0 + DAY]);
+    expect(Array.from(g.stage_m)).toEqual([0.5 + 0.01, 0.6 + 0.02, 0.7 + 0.03]);
+    expect(Array.from(g.raw_m)).toEqual([0.5, 0.6, 0.7]);
+    expect(Array.from(g.correction_m)).toEqual([0.01, 0.02, 0.03]);
+    expect(Array.from(g.source)).toEqual([1, 1, 1].map(() => READING_SOURCE_CODES.logger));
+    expect(Array.from(g.spot)).toEqual([-1, -1, -1]);
+    expect(Array.from(g.day)).toEqual([0, 0, 1]);
+  });
+
   it('matches the plain definition of the join on random records (fast-check)', () => {
     fc.assert(fc.property(
       fc.uniqueArray(fc.integer({ min: 0, max: 3 * 96 }), { maxLength: 120 }),

@@ -7,6 +7,7 @@ import { now_ms } from './clock';
 import { DURABLE, inTx } from './records';
 import { quietly } from './quietly';
 import type { PhotoBytesEntry } from './photo-bytes-entry';
+import { SCOPES } from './stores';
 
 export type { PhotoBytesEntry } from './photo-bytes-entry';
 
@@ -79,7 +80,7 @@ export function clearPhotoHashRefusals(sha256: string): Promise<PhotoBytesEntry 
 /** Removes bytes no photo record names (a save whose record could not be written). */
 export async function dropPhotoBytesIfUnnamed(sha256: string): Promise<void> {
   await withDb(async (db) => {
-    const tx = db.transaction(['photoBytes', 'photos'], 'readwrite', DURABLE);
+    const tx = db.transaction(SCOPES.photoBytesNamed, 'readwrite', DURABLE);
     await inTx(tx, async () => {
       const named = await tx.objectStore('photos').index('by-sha256').count(sha256);
       if (named === 0) quietly(tx.objectStore('photoBytes').delete(sha256));

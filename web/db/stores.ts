@@ -96,6 +96,8 @@ export const SCOPES = {
   series: ['series', 'loggerDays'],
   /** A site's ratings with its gaugings. */
   ratingsGaugings: ['ratings', 'gaugings'],
+  /** Photo bytes with the photo records that name them (by hash). */
+  photoBytesNamed: ['photoBytes', 'photos'],
 } as const satisfies Record<string, readonly StoreName[]>;
 
 /** The stores every readings write holds. */

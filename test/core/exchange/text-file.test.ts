@@ -31,7 +31,7 @@ describe("a text file's byte-order mark", () => {
     const office = await officeRead('import', 'b.json', dir);
     const phone = await phoneRead(new Blob([text], { type: 'application/json' }));
     expect(office).toEqual(bundle);
-    expect(phone).toEqual(office);
+    expect(phone).toEqual({ bundle: office, blobs: new Map() });
   });
 
   it('is stripped only in core/exchange/text-file.ts (no hand-written U+FEFF replace or slice elsewhere)', () => {

@@ -17,10 +17,13 @@ export interface PendingPhoto {
 /** The sentence for a photo refused because the phone is full: the owner is saved, the photo is not. */
 export const NO_ROOM = 'This photo was not kept: the phone has no room left for it. What it belongs to is saved. Send your records and photos to the office or free some space, then add the photo again.';
 
+/** 1990-01-01T00:00:00Z in UTC epoch ms (7,305 days after 1970-01-01): earlier file times are not believed. */
+const FIRST_PLAUSIBLE_MS = 631_152_000_000;
+
 /** When a chosen file was taken: its own time when plausible (not in the future, not before 1990), else now. */
 export function takenTime(file: { lastModified?: number }, now = Date.now()): number {
   const t = file.lastModified;
-  return typeof t === 'number' && Number.isInteger(t) && t >= Date.UTC(1990, 0, 1) && t <= now + 60_000 ? Math.min(t, now) : now;
+  return typeof t === 'number' && Number.isInteger(t) && t >= FIRST_PLAUSIBLE_MS && t <= now + 60_000 ? Math.min(t, now) : now;
 }
 
 /** Keeps `p` for the record `owner` at `siteId`; resolves with the record, or a sentence saying why it was refused. */

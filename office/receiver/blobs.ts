@@ -8,7 +8,7 @@ import type { IncomingMessage, ServerResponse } from 'node:http';
 import { MAX_PHOTO_BYTES, PHOTO_TYPES } from '../../core/index';
 import type { Queryable } from './db';
 import { blobInfo, insertBlob, readBlob } from './blob-store';
-import { BODY_READ_LIMIT_MS, BUSY_RETRY_S, type BodyBudget } from './intake';
+import { BODY_READ_LIMIT_MS, readBodyBytes, type BodyBudget } from './intake';
 import { Refusal } from './refusal';
 
 /** The largest photo the receiver takes, bytes (16 MiB, the photo record's limit); stated in every answer's MAX_BLOB_BYTES_HEADER. */
@@ -124,44 +124,9 @@ export function blobTooLarge(): Refusal {
  * `limit_ms`, holding its share of `budget`. Refusals: 413 over the size, 408 too slow, 503 busy.
  */
 export async function readHashedBody(req: IncomingMessage, budget: BodyBudget, limit_ms: number): Promise<{ data: Buffer; hex: string }> {
-  const announced = Number(req.headers['content-length'] ?? NaN);
-  const reserved = Number.isFinite(announced) && announced >= 0 ? announced : MAX_BLOB_BYTES;
-  if (!budget.reserve(reserved)) {
-    throw new Refusal(503, 'busy', 'The office receiver is taking in many uploads just now; the phone tries again shortly.', undefined, BUSY_RETRY_S);
-  }
-  try {
-    return await new Promise((resolve, reject) => {
-      const hash = createHash('sha256');
-      const chunks: Buffer[] = [];
-      let size = 0;
-      const stop = (refusal: Refusal) => {
-        clearTimeout(timer);
-        req.removeAllListeners('data');
-        req.pause();
-        reject(refusal);
-      };
-      const timer = setTimeout(() => stop(new Refusal(408, 'slow', `The photo did not arrive within ${limit_ms / 1000} s; the phone tries again.`)), limit_ms);
-      req.on('data', (chunk: Buffer) => {
-        size += chunk.length;
-        if (size > MAX_BLOB_BYTES) {
-          stop(blobTooLarge());
-          return;
-        }
-        hash.update(chunk);
-        chunks.push(chunk);
-      });
-      req.on('end', () => {
-        clearTimeout(timer);
-        resolve({ data: Buffer.concat(chunks), hex: hash.digest('hex') });
-      });
-      req.on('error', (err) => {
-        clearTimeout(timer);
-        reject(err);
-      });
-    });
-  } finally {
-    budget.release(reserved);
-  }
+  const hash = createHash('sha256');
+  const data = await readBodyBytes(req, budget, limit_ms, { maxBytes: MAX_BLOB_BYTES, what: 'uploads', tooLarge: blobTooLarge, onChunk: (c) => hash.update(c) });
+  return { data, hex: hash.digest('hex') };
 }
 
 function sendJson(res: ServerResponse, status: number, value: unknown): number {

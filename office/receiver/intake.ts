@@ -40,13 +40,32 @@ export function tooLarge(maxBytes: number): Refusal {
  * `budget`. Refusals: 413 over the size, 408 too slow, 503 (with Retry-After) when the budget is full.
  */
 export async function readBody(req: IncomingMessage, maxBytes: number, budget: BodyBudget, limit_ms = BODY_READ_LIMIT_MS): Promise<string> {
+  const bytes = await readBodyBytes(req, budget, limit_ms, { maxBytes, what: 'bundles', tooLarge: () => tooLarge(maxBytes) });
+  return bytes.toString('utf8');
+}
+
+/** What readBodyBytes reads: its size limit and refusal, the plural used in sentences, and a look at each chunk. */
+export interface BodyRead {
+  maxBytes: number;
+  /** Plural noun for the user's sentences: "bundles", "uploads". */
+  what: string;
+  tooLarge: () => Refusal;
+  onChunk?: (chunk: Buffer) => void;
+}
+
+/**
+ * Reads a request body as bytes: at most `read.maxBytes`, within `limit_ms`, holding its share of `budget`
+ * (the announced length, else the limit). The one body reader of the receiver (bundles and photo bytes).
+ * Refusals: 413 over the size, 408 too slow, 503 (with Retry-After) when the budget is full.
+ */
+export async function readBodyBytes(req: IncomingMessage, budget: BodyBudget, limit_ms: number, read: BodyRead): Promise<Buffer> {
   const announced = Number(req.headers['content-length'] ?? NaN);
-  const reserved = Number.isFinite(announced) && announced >= 0 ? announced : maxBytes;
+  const reserved = Number.isFinite(announced) && announced >= 0 ? announced : read.maxBytes;
   if (!budget.reserve(reserved)) {
-    throw new Refusal(503, 'busy', 'The office receiver is taking in many bundles just now; the phone tries again shortly.', undefined, BUSY_RETRY_S);
+    throw new Refusal(503, 'busy', `The office receiver is taking in many ${read.what} just now; the phone tries again shortly.`, undefined, BUSY_RETRY_S);
   }
   try {
-    return await new Promise<string>((resolve, reject) => {
+    return await new Promise<Buffer>((resolve, reject) => {
       const chunks: Buffer[] = [];
       let size = 0;
       const stop = (refusal: Refusal) => {
@@ -55,20 +74,22 @@ export async function readBody(req: IncomingMessage, maxBytes: number, budget: B
         req.pause();
         reject(refusal);
       };
+      const noun = read.what === 'bundles' ? 'The bundle' : 'The photo';
       const timer = setTimeout(() => {
-        stop(new Refusal(408, 'slow', `The bundle did not arrive within ${limit_ms / 1000} s; the phone tries again.`));
+        stop(new Refusal(408, 'slow', `${noun} did not arrive within ${limit_ms / 1000} s; the phone tries again.`));
       }, limit_ms);
       req.on('data', (chunk: Buffer) => {
         size += chunk.length;
-        if (size > maxBytes) {
-          stop(tooLarge(maxBytes));
+        if (size > read.maxBytes) {
+          stop(read.tooLarge());
           return;
         }
+        read.onChunk?.(chunk);
         chunks.push(chunk);
       });
       req.on('end', () => {
         clearTimeout(timer);
-        resolve(Buffer.concat(chunks).toString('utf8'));
+        resolve(Buffer.concat(chunks));
       });
       req.on('error', (err) => {
         clearTimeout(timer);

@@ -6,6 +6,7 @@ import { expectPositionals, type OptionSpec, type ParsedArgs } from '../shared/a
 import { CliError, type CliIo } from '../shared/io';
 import { readBundleFile } from '../shared/read-bundle';
 import type { Queryable } from './db';
+import { currentRecordsNaming, type CurrentRow } from './current';
 import { openOfficeDatabase, OfficeSetupError } from './open';
 
 /** The options an export command adds to read from the office's database. */
@@ -22,17 +23,18 @@ export const DATABASE_SOURCE_HELP = `  --data DIR       read the office receiver
 
 /** The current, not deleted, versions of the sites with office code `code` and of every record that names them. */
 export async function siteRecordsFromDatabase(db: Queryable, code: string): Promise<SyncRecord[]> {
-  const rows = await db.query<{ kind: SyncRecord['kind']; id: string; rev: string; body: SyncRecord['body'] }>(
-    `with s as (
-       select id from current_records where kind = 'site' and not deleted and body ->> 'code' = $1)
-     select c.kind, c.id::text as id, c.rev, c.body from current_records c
-      where not c.deleted and (
-        (c.kind = 'site' and c.id in (select id from s)) or
-        (c.kind <> 'site' and c.body ->> 'siteId' in (select id::text from s)))
-      order by c.kind, c.id`,
+  const sites = await db.query<CurrentRow<SyncRecord['body']>>(
+    `select kind, id::text as id, rev, body from current_records where kind = 'site' and not deleted and body ->> 'code' = $1`,
     [code],
   );
+  const named = await currentRecordsNaming<SyncRecord['body']>(db, sites.map((s) => s.id), null);
+  const rows = [...sites, ...named.filter((r) => r.kind !== 'site')].sort(byKindThenId);
   return rows.map((r) => ({ kind: r.kind, id: r.id, rev: r.rev, body: r.body }) as SyncRecord);
+}
+
+// Kind, then id: the order the records were always listed in (both are plain ASCII, so code-unit order).
+function byKindThenId(a: CurrentRow, b: CurrentRow): number {
+  return a.kind < b.kind ? -1 : a.kind > b.kind ? 1 : a.id < b.id ? -1 : a.id > b.id ? 1 : 0;
 }
 
 /** The records an export command works on: from the bundle file named in its arguments, or from the office's database. */

@@ -5,6 +5,7 @@ import { fromSyncRecord, isUuid, type PhotoRecord, type SiteRecord, type SyncKin
 import type { ParsedArgs } from '../shared/args';
 import { CliError } from '../shared/io';
 import type { Database, Queryable } from './db';
+import { currentRecordsNaming } from './current';
 import { openOfficeDatabase, OfficeSetupError } from './open';
 
 /** A site and its live photo records, oldest taken first. */
@@ -40,14 +41,10 @@ export async function sitePhotosFromDatabase(command: string, db: Queryable, sit
   if (sites.length > 1) {
     throw new CliError(`freshet ${command}: ${sites.length} sites have the code ${JSON.stringify(site)}; give the site's id instead (${sites.map((s) => s.id).join(', ')})`);
   }
-  const photos = await db.query<Row<'photo'>>(
-    `select id::text as id, rev, body from current_records
-      where kind = 'photo' and not deleted and body ->> 'siteId' = $1
-      order by (body ->> 'taken_ms')::bigint, id`,
-    [sites[0].id],
-  );
+  const photos = (await currentRecordsNaming<SyncRecord<'photo'>['body']>(db, [sites[0].id], 'photo'))
+    .sort((a, b) => a.body.taken_ms - b.body.taken_ms || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
   return {
     site: fromSyncRecord<'site'>({ kind: 'site', ...sites[0] }),
-    photos: photos.map((p) => fromSyncRecord<'photo'>({ kind: 'photo', ...p })),
+    photos: photos.map((p) => fromSyncRecord<'photo'>({ kind: 'photo', id: p.id, rev: p.rev, body: p.body })),
   };
 }

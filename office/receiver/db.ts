@@ -1,8 +1,7 @@
 // One small database interface over the two engines the receiver runs on: PGlite (PostgreSQL compiled to
 // WebAssembly, in a folder) and a PostgreSQL server through `pg`. Everything above this file writes the
 // same SQL for both; the only differences handled here are connection handling and the result types.
-import { PGlite } from '@electric-sql/pglite';
-import { runNamed } from './pglite-named';
+import { openPgliteThread } from './pglite-thread';
 import pg from 'pg';
 
 /** One query: positional parameters ($1, $2, …) and rows as plain objects. */
@@ -31,61 +30,18 @@ export interface Database extends Queryable {
    * closed or aborted; keep-open.ts then reopens it). Absent for a server, whose pool reconnects itself.
    */
   lost?(): boolean;
+  /**
+   * A server only: takes transaction advisory lock `lock`, then runs `sql` (prepared once per connection
+   * under `name`) with `params`, as one message to the server: one transaction, one round trip, so the lock
+   * is held only while the server works. Each statement of the message sees what was committed before it
+   * started, so the statement sees every transaction that held the lock before. Rows of `sql` come back.
+   */
+  lockedRun?<T>(lock: number, name: string, sql: string, params: readonly unknown[]): Promise<T[]>;
 }
 
-/** Opens (and on first use creates) a PGlite database in folder `dir`; creating one takes ~10–30 s. */
-export async function openPglite(dir: string): Promise<Database> {
-  const db = await PGlite.create(dir, { startParams: pgliteStartParams() });
-  // An engine that aborted (WebAssembly trap, exit) answers nothing more; closed is PGlite's own flag.
-  let aborted = false;
-  const watch = (err: unknown): never => {
-    const e = err as { name?: unknown; message?: unknown } | null;
-    if (e?.name === 'RuntimeError' || e?.name === 'ExitStatus' || /^Aborted\(/.test(String(e?.message))) aborted = true;
-    throw err;
-  };
-  // PGlite runs PostgreSQL in this thread. Queued statements resume one another through promise
-  // callbacks, which run before the event loop reads sockets again, so a queue of pushes could keep the
-  // HTTP server from reading for many seconds (long enough for its keep-alive timer to drop connections
-  // whose next request had already arrived). Yielding to the event loop before each statement lets the
-  // server read and answer between statements.
-  const prepared = new Set<string>();
-  const wrap = (q: { query: PGlite['query'] }, inTransaction: boolean): Queryable => ({
-    async query<T>(sql: string, params: readonly unknown[] = [], name?: string) {
-      await yieldToEventLoop();
-      if (name !== undefined) return runNamed<T>(db, prepared, name, sql, params, inTransaction).catch(watch);
-      const r = await q.query<T>(sql, [...params]).catch(watch);
-      return r.rows;
-    },
-  });
-  return {
-    engine: 'pglite',
-    ...wrap(db, false),
-    // PGlite is one connection: its transaction() queues every other query and transaction behind this one.
-    transaction: async (fn) => {
-      await yieldToEventLoop();
-      return db.transaction((tx) => fn(wrap(tx, true))).catch(watch);
-    },
-    async exec(sql) {
-      await db.exec(sql).catch(watch);
-    },
-    close: () => db.close(),
-    lost: () => aborted || db.closed || !db.ready,
-  };
-}
-
-// PGlite's own start parameters (it runs with fsync off: what is written reaches the operating system, which
-// keeps it when the receiver's process dies, but not when the machine itself fails), and full-page writes
-// off. Those guard against pages torn by a machine failure, which fsync off leaves unguarded anyway, and
-// they cost a copy of each page in the log at its first change after every checkpoint: on a growing
-// database nearly every index page a bundle touches (`npm run bench`, office-ingest-growth).
-function pgliteStartParams(): string[] | undefined {
-  const defaults = (PGlite as unknown as { defaultStartParams?: unknown }).defaultStartParams;
-  if (!Array.isArray(defaults) || !defaults.every((p) => typeof p === 'string')) return undefined;
-  return [...defaults, '-c', 'full_page_writes=off'];
-}
-
-function yieldToEventLoop(): Promise<void> {
-  return new Promise((resolve) => setImmediate(resolve));
+/** Opens (and on first use creates) a PGlite database in folder `dir`, in a thread of its own; creating one takes ~10–30 s. */
+export function openPglite(dir: string): Promise<Database> {
+  return openPgliteThread(dir);
 }
 
 /** Connects to a PostgreSQL server at `url` (postgres://user@host:port/db) with a small pool. */
@@ -103,9 +59,39 @@ export async function openPostgres(url: string, poolSize = 10): Promise<Database
       return r.rows as T[];
     },
   });
+  const preparedOn = new WeakMap<pg.PoolClient, Set<string>>();
   return {
     engine: 'postgres',
     ...wrap(pool),
+    async lockedRun<T>(lock: number, name: string, sql: string, params: readonly unknown[]) {
+      if (!Number.isSafeInteger(lock) || !/^[a-z_][a-z0-9_]*$/.test(name)) throw new RangeError(`lockedRun needs a whole lock key and a plain statement name; got ${lock}, ${name}`);
+      const client = await pool.connect();
+      let broken = false;
+      const lost = () => {
+        broken = true;
+      };
+      client.on('error', lost);
+      try {
+        let names = preparedOn.get(client);
+        if (names === undefined) preparedOn.set(client, (names = new Set()));
+        if (!names.has(name)) {
+          await client.query(`prepare ${name} as ${sql}`);
+          names.add(name);
+        }
+        // A message of several statements is one transaction (the protocol's implicit one): an error in
+        // any of them undoes all of them. The parameters travel as quoted literals.
+        const results = (await client.query(
+          `select pg_advisory_xact_lock(${lock}); execute ${name}(${params.map(literal).join(', ')})`,
+        )) as unknown as pg.QueryResult[];
+        return results[results.length - 1].rows as T[];
+      } catch (err) {
+        if ((err as { code?: unknown }).code === undefined) broken = true;
+        throw err;
+      } finally {
+        client.removeListener('error', lost);
+        client.release(broken);
+      }
+    },
     async transaction(fn) {
       const client = await pool.connect();
       let broken = false;
@@ -138,4 +124,13 @@ export async function openPostgres(url: string, poolSize = 10): Promise<Database
     },
     close: () => pool.end(),
   };
+}
+
+// A parameter as an SQL literal for `execute`: null, a whole number as digits, text quoted by pg's own
+// escaping (quotes doubled; backslashes doubled in an E'' string).
+function literal(x: unknown): string {
+  if (x === null || x === undefined) return 'null';
+  if (typeof x === 'number' && Number.isSafeInteger(x)) return String(x);
+  if (typeof x === 'string') return pg.escapeLiteral(x);
+  throw new TypeError(`lockedRun takes text, whole numbers or null as parameters; got ${typeof x}`);
 }

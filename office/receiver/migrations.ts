@@ -101,6 +101,16 @@ export const MIGRATIONS: readonly string[] = [
       from record_versions
      order by kind, id, rev collate "C" desc;
   `,
+  // Step 5: a bundle whose revision is already stored with another body is refused by the statement that
+  // stores it (store.ts): raising an error undoes everything the statement wrote, so on PGlite a bundle is
+  // stored by that one statement alone, with no transaction around it to end from the receiver's side.
+  `
+  create function office_refuse_reused_revisions(clashes json) returns boolean language plpgsql as $$
+  begin
+    raise exception 'a revision already stored with other content was sent again'
+      using errcode = 'P0001', hint = 'freshet: revision reused', detail = clashes::text;
+  end $$;
+  `,
 ];
 
 /** Brings the database's schema up to step `upTo` (the latest by default); returns the step numbers it applied. */

@@ -40,10 +40,16 @@ export async function runNamed<T>(
   });
 }
 
-// Parameters travel as text, as PGlite's own query() sends them for these types.
-function asText(x: unknown): string | null {
+// Parameters travel as text, as PGlite's own query() sends them for these types. Long text (a bundle's
+// document) travels as its UTF-8 bytes, encoded by Node in one call, in binary format, which a text
+// parameter takes as its UTF-8 bytes: the engine's protocol writer would otherwise measure and encode it
+// character by character.
+const AS_BYTES_FROM = 4096;
+
+function asText(x: unknown): string | Uint8Array | null {
   if (x === null || x === undefined) return null;
-  return typeof x === 'string' ? x : String(x);
+  if (typeof x !== 'string') return String(x);
+  return x.length >= AS_BYTES_FROM ? Buffer.from(x, 'utf8') : x;
 }
 
 function joined(parts: Uint8Array[]): Uint8Array {

@@ -8,9 +8,11 @@
 // number it sees as the cursor without skipping a bundle that commits later with a lower number. This holds
 // across processes too: several receivers on one server share the lock, so one cursor order serves every
 // pull from any of them. The price is that pushes are stored one at a time; the expensive parts (reading
-// the body, JSON, checksum, record validation) happen before the transaction, and a bundle is one
-// set-based statement, so the lock is held for milliseconds (see `npm run bench` for the figures). PGlite
-// is one connection and runs transactions one at a time anyway, so it takes no lock.
+// the body, JSON, checksum, record validation) happen before the transaction, a bundle is one set-based
+// statement, and the lock, the statement and the commit go to the server as one message
+// (Database.lockedRun), so the lock is held for the milliseconds the server works (see `npm run bench`).
+// PGlite is one connection and runs statements one at a time anyway, so it takes no lock: there the one
+// statement is the whole transaction.
 import type { Bundle } from '../../core/index';
 import type { Database, Queryable } from './db';
 
@@ -53,35 +55,62 @@ export async function storeBundle(
   options: StoreOptions = {},
 ): Promise<StoreOutcome> {
   const document = JSON.stringify(bundle);
+  const params = [document, bundle.id, deviceNo, bundle.device, bundle.created, bundle.checksum, bundle.records.length];
+  const ingest = (q: Queryable) => q.query<Ingested>(INGEST_SQL, params, 'freshet_ingest').then(([row]) => row, refuseReused);
+  // PGlite runs one statement at a time, and the statement is all or nothing: it is the transaction, one
+  // message to the engine's thread (pglite-thread.ts) rather than three with the engine held between them.
+  if (db.engine === 'pglite' && options.beforeCommit === undefined) return outcome(bundle, await ingest(db));
+  // On a server the lock, the statement and the commit go as one message (Database.lockedRun): the lock is
+  // held while the server works, not across round trips.
+  if (db.lockedRun !== undefined && options.beforeCommit === undefined) {
+    const [row] = await db.lockedRun<Ingested>(PUSH_LOCK, 'freshet_ingest', INGEST_SQL, params).catch(refuseReused);
+    return outcome(bundle, row);
+  }
   return db.transaction(async (tx) => {
     // The lock is its own statement: a statement's snapshot is taken when it starts, so everything read
     // below must come after the lock is held (it then sees every push committed before this one). PGlite
     // is one connection that runs one transaction at a time: there the lock would only cost a statement.
     if (db.engine === 'postgres') await tx.query('select pg_advisory_xact_lock($1)', [PUSH_LOCK]);
-    const [written] = await tx.query<{
-      had_seq: string | null; had_checksum: string | null; seq: string | null; inserted: string; clashes: string | null;
-    }>(INGEST_SQL, [document, bundle.id, deviceNo, bundle.device, bundle.created, bundle.checksum, bundle.records.length], 'freshet_ingest');
-    if (written.had_seq !== null) {
-      if (written.had_checksum !== bundle.checksum) {
-        throw new IntegrityError(
-          'bundle-id-reused',
-          `The office already has a different bundle with id ${bundle.id}; a bundle id must never be reused for other records.`,
-        );
-      }
-      return { status: 'had', seq: Number(written.had_seq) };
-    }
-    const clashes = written.clashes === null ? [] : (JSON.parse(written.clashes) as Clash[]);
-    if (clashes.length > 0) {
-      const c = clashes[0];
+    const out = outcome(bundle, await ingest(tx));
+    if (out.status === 'stored' && options.beforeCommit) await options.beforeCommit(tx);
+    return out;
+  });
+}
+
+/** The ingest statement's one row: the bundle already held (its number and checksum), or what was stored. */
+interface Ingested {
+  had_seq: string | null;
+  had_checksum: string | null;
+  seq: string | null;
+  inserted: string;
+}
+
+/** What storing did, from the statement's row; an IntegrityError when the bundle id was used for other records. */
+function outcome(bundle: Bundle, written: Ingested): StoreOutcome {
+  if (written.had_seq !== null) {
+    if (written.had_checksum !== bundle.checksum) {
       throw new IntegrityError(
-        'revision-reused',
-        `The office already has ${c.kind} ${c.id} revision ${c.rev} with different content; a revision must never be reused for a changed record.` +
-          (clashes.length > 1 ? ` (${clashes.length - 1} more like it in this bundle)` : ''),
+        'bundle-id-reused',
+        `The office already has a different bundle with id ${bundle.id}; a bundle id must never be reused for other records.`,
       );
     }
-    if (options.beforeCommit) await options.beforeCommit(tx);
-    return { status: 'stored', seq: Number(written.seq), newVersions: Number(written.inserted) };
-  });
+    return { status: 'had', seq: Number(written.had_seq) };
+  }
+  return { status: 'stored', seq: Number(written.seq), newVersions: Number(written.inserted) };
+}
+
+// The statement refused the bundle (migration 5's office_refuse_reused_revisions): the versions it names
+// in its detail are already stored with other content. Anything else is passed on as it was.
+function refuseReused(err: unknown): never {
+  const e = err as { code?: unknown; hint?: unknown; detail?: unknown } | null;
+  if (e?.code !== 'P0001' || e.hint !== 'freshet: revision reused' || typeof e.detail !== 'string') throw err;
+  const clashes = JSON.parse(e.detail) as Clash[];
+  const c = clashes[0];
+  throw new IntegrityError(
+    'revision-reused',
+    `The office already has ${c.kind} ${c.id} revision ${c.rev} with different content; a revision must never be reused for a changed record.` +
+      (clashes.length > 1 ? ` (${clashes.length - 1} more like it in this bundle)` : ''),
+  );
 }
 
 // The whole bundle in one set-based statement (one round trip; on a busy machine each costs more than the
@@ -92,9 +121,10 @@ export async function storeBundle(
 //  - x: the bundle's records, read out of the document by the database (the document is sent once; large
 //    parameters are the slow part of a query on PGlite).
 //  - ins: every version not already held (append-only, unique on kind, id, rev).
-//  - clash: among the versions `ins` skipped as already held, one whose stored body differs; the caller
-//    throws and the transaction rolls back. Only skipped versions are looked up (usually none). jsonb
-//    equality compares values, not key order or spacing, so a re-sent identical record passes.
+//  - clash: among the versions `ins` skipped as already held, one whose stored body differs; the statement
+//    then raises (migration 5), which undoes all it wrote, and the caller throws IntegrityError. Only
+//    skipped versions are looked up (usually none). jsonb equality compares values, not key order or
+//    spacing, so a re-sent identical record passes.
 //  - the merge decision is not written: the view current_records (migration 4) takes each record's version
 //    with the highest revision, core/sync's `decide` winner rule (the higher revision wins and the same
 //    revision is the same record). Revisions are fixed-width ASCII made to sort as strings
@@ -139,7 +169,7 @@ select (select seq from had)::text as had_seq,
        (select checksum from had) as had_checksum,
        (select seq from b)::text as seq,
        (select count(*) from ins)::text as inserted,
-       (select json_agg(clash) from clash)::text as clashes,
+       (select office_refuse_reused_revisions(json_agg(clash)) from clash having count(*) > 0) as refused,
        (select count(*) from dev)::text as dev`;
 
 /** One page of a pull: the bundle documents (JSON text, in cursor order), the next cursor, and whether more wait. */

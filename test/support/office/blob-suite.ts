@@ -216,7 +216,9 @@ export function describeBlobs(engine: Engine): void {
       expect(await blobCount(db)).toBe(0);
       const [n] = await db.query<{ n: string }>('select count(*)::text as n from office_bundles');
       expect(n.n).toBe('0');
-      expect((await push(base, token, b)).status).toBe(201);
+      const ok = await push(base, token, b);
+      expect(ok.body).toMatchObject({ status: 'received' });
+      expect(ok.status).toBe(201);
     });
 
     it('answers 503 with Retry-After when its database fails, and stores nothing', async () => {

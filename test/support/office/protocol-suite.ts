@@ -79,6 +79,22 @@ export function describeProtocol(engine: Engine): void {
       expect(forA.bundles.map((b) => b.id)).toEqual([b1.id]);
     });
 
+    // The statement's parameters reach a server as quoted literals (Database.lockedRun) and PGlite as bytes
+    // when long: text that SQL quoting or an encoder could get wrong must come back exactly as sent.
+    it('stores text with quotes, backslashes, dollar quotes and characters beyond the BMP exactly as sent', async () => {
+      const awkward = "it's \\ a back\\slash, E'x' and $$; drop table record_versions; -- \"quoted\" \u{1F30A} ña\u00A0";
+      const [r, ...rest] = readingRecords('dev-a', 60);
+      const b = bundleOf('dev-a', [{ ...r, body: { ...r.body, note: awkward, observer: `${awkward} (observer)` } }, ...rest]);
+      expect(JSON.stringify(b).length).toBeGreaterThan(4096);
+      expect((await push(base, tokenA, b)).status).toBe(201);
+      const [row] = await receiver.db.query<{ note: string; observer: string }>(
+        "select body ->> 'note' as note, body ->> 'observer' as observer from record_versions where id = $1", [r.id]);
+      expect(row).toEqual({ note: awkward, observer: `${awkward} (observer)` });
+      const pulled = await pullAll(base, tokenB, '0', 'dev-b');
+      expect(pulled.bundles).toEqual([b]);
+      expect(await receiver.count('record_versions')).toBe(60);
+    });
+
     it('refuses a wrong or missing token with 401 and stores nothing', async () => {
       const b = bundleOf('dev-a', readingRecords('dev-a', 3));
       const wrong = await push(base, 'x'.repeat(43), b);

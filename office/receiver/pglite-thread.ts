@@ -1,0 +1,126 @@
+// The embedded database (PGlite) in a thread of its own (pglite-engine.ts), behind the receiver's Database
+// interface. PGlite runs PostgreSQL as WebAssembly in whichever thread opens it; in the receiver's own
+// thread every statement took turns with reading requests, parsing JSON and checking records. In its own
+// thread the two run side by side on a machine with two cores or more (`npm run bench`: the receiver's
+// ms per bundle on PGlite). Statements and transactions travel as messages; a transaction holds the engine
+// from its begin to its end, so every other statement waits for it, as PGlite has always run them.
+import { createRequire } from 'node:module';
+import { pathToFileURL } from 'node:url';
+import { Worker } from 'node:worker_threads';
+import type { Database, Queryable } from './db';
+
+/** What the receiver asks of the engine's thread (id pairs a reply with its request; 0 is the opening). */
+export type EngineRequest =
+  | { id: number; op: 'query'; sql: string; params: unknown[]; name?: string; tx?: number }
+  | { id: number; op: 'exec'; sql: string }
+  | { id: number; op: 'begin' }
+  | { id: number; op: 'end'; tx: number; commit: boolean }
+  | { id: number; op: 'close' };
+
+/** A request before it is given its id. */
+type Ask = EngineRequest extends infer R ? (R extends EngineRequest ? Omit<R, 'id'> : never) : never;
+
+/** The engine's answer: a value, or an error as plain data and whether the engine can answer any more. */
+export type EngineReply =
+  | { id: number; ok: true; value: unknown }
+  | { id: number; ok: false; error: Record<string, unknown>; lost: boolean };
+
+/** The engine's error again as an Error, with the database's fields (code, detail …) as they were. */
+function revive(data: Record<string, unknown>): Error {
+  const err = new Error(String(data.message ?? 'the embedded database failed'));
+  Object.assign(err, data);
+  return err;
+}
+
+// A worker loads its entry file before any loader hook of its own, so it first registers tsx (a dependency,
+// as bin/freshet.mjs does in the main thread) and then imports the engine's TypeScript file.
+// tsx's exports map gives `tsx/esm/api` as index.cjs for require and index.mjs, beside it, for import.
+function bootCode(): string {
+  const tsx = pathToFileURL(createRequire(import.meta.url).resolve('tsx/esm/api').replace(/\.cjs$/, '.mjs')).href;
+  const entry = new URL('./pglite-engine.ts', import.meta.url).href;
+  return `import(${JSON.stringify(tsx)}).then((tsx) => { tsx.register(); return import(${JSON.stringify(entry)}); })`;
+}
+
+/** Opens (and on first use creates) a PGlite database in folder `dir`, in a thread of its own. */
+export async function openPgliteThread(dir: string): Promise<Database> {
+  const worker = new Worker(bootCode(), { eval: true, workerData: { dir } });
+  const waiting = new Map<number, { resolve: (v: unknown) => void; reject: (e: Error) => void }>();
+  let nextId = 1;
+  let lost = false;
+  let closed = false;
+  const stop = (why: Error) => {
+    lost = true;
+    for (const w of waiting.values()) w.reject(why);
+    waiting.clear();
+    hold();
+  };
+  worker.on('message', (r: EngineReply) => {
+    const w = waiting.get(r.id);
+    if (w === undefined) return;
+    waiting.delete(r.id);
+    hold();
+    if (r.ok) w.resolve(r.value);
+    else {
+      if (r.lost) lost = true;
+      w.reject(revive(r.error));
+    }
+  });
+  worker.on('error', (err) => stop(err));
+  worker.on('exit', (code) => stop(new Error(`the embedded database's thread stopped (exit ${code})`)));
+  // The thread keeps the process alive only while a request waits for its answer, as the engine did in the
+  // receiver's own thread: an idle open database never holds a finished command open.
+  const hold = () => (waiting.size > 0 ? worker.ref() : worker.unref());
+
+  const call = (request: Ask): Promise<unknown> => {
+    if (lost || closed) return Promise.reject(new Error('The embedded database is closed.'));
+    const id = nextId++;
+    return new Promise((resolve, reject) => {
+      waiting.set(id, { resolve, reject });
+      hold();
+      worker.postMessage({ ...request, id });
+    });
+  };
+  // The opening's answer (id 0) comes unasked.
+  const opened = new Promise<unknown>((resolve, reject) => waiting.set(0, { resolve, reject }));
+  try {
+    await opened;
+  } catch (err) {
+    await worker.terminate();
+    throw err;
+  }
+
+  const on = (tx?: number): Queryable => ({
+    async query<T>(sql: string, params: readonly unknown[] = [], name?: string) {
+      return (await call({ op: 'query', sql, params: [...params], name, tx })) as T[];
+    },
+  });
+  return {
+    engine: 'pglite',
+    ...on(),
+    async transaction(fn) {
+      const tx = (await call({ op: 'begin' })) as number;
+      let out;
+      try {
+        out = await fn(on(tx));
+      } catch (err) {
+        await call({ op: 'end', tx, commit: false }).catch(() => {});
+        throw err;
+      }
+      await call({ op: 'end', tx, commit: true });
+      return out;
+    },
+    async exec(sql) {
+      await call({ op: 'exec', sql });
+    },
+    async close() {
+      if (closed) return;
+      try {
+        if (!lost) await call({ op: 'close' });
+      } finally {
+        closed = true;
+        await worker.terminate();
+      }
+    },
+    lost: () => lost || closed,
+  };
+}

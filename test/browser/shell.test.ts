@@ -214,3 +214,34 @@ describe('parts loaded on first use, offline', () => {
     }
   });
 });
+
+describe('a screen that has not reached the phone yet', () => {
+  it('says so in plain words offline, never reloads into the browser\'s error page, and opens once the network is back', async () => {
+    // A first visit whose signal went before the app was held on the phone: no service worker controls it.
+    const bare = await launchBrowser({ serviceWorkers: 'block' });
+    try {
+      const p = await bare.context.newPage();
+      await p.goto(server.url);
+      await p.locator('#screen-title').waitFor();
+      await bare.context.setOffline(true);
+      await p.locator('nav[aria-label="Main"] a[href="#/storm"]').click();
+      const note = p.getByTestId('screen-not-here');
+      await note.waitFor();
+      const text = (await note.textContent()) ?? '';
+      expect(text).toMatch(/not on this phone yet/);
+      expect(text).not.toMatch(/import|module|assets|\.js\b|TypeError|Failed to fetch/i);
+      await p.getByRole('button', { name: 'Try again' }).click();
+      await p.getByText('Still no connection').waitFor();
+      await p.screenshot({ path: join(ARTIFACTS, 'screen-not-here-offline.png') });
+      expect(new URL(p.url()).hash).toBe('#/storm');
+      await bare.context.setOffline(false);
+      await p.getByRole('button', { name: 'Try again' }).click();
+      await p.locator('#screen-title').waitFor();
+      await p.waitForFunction(() => document.querySelector('[data-testid="screen-not-here"]') === null, undefined, { timeout: 15_000 });
+      expect(new URL(p.url()).hash).toBe('#/storm');
+      await p.screenshot({ path: join(ARTIFACTS, 'screen-loaded-after-signal.png') });
+    } finally {
+      await bare.close();
+    }
+  });
+});

@@ -6,6 +6,13 @@ import { lazyScreen } from '../components/LazyScreen';
 import About from '../screens/About';
 import NotFound from '../screens/NotFound';
 import { areaOf, type AreaId } from './areas';
+import { probeNetwork } from './online';
+
+// Reloading the app comes back when the service worker holds it, or when the network answers; otherwise a
+// reload would land on the browser's own "no connection" page, so the screen keeps its message instead.
+const retry = {
+  reloadIsSafe: async () => (typeof navigator !== 'undefined' && !!navigator.serviceWorker?.controller) || (await probeNetwork()),
+};
 
 interface RouteEntry {
   /** Path segments; ':name' matches any one segment and passes it as params.name. */
@@ -22,16 +29,16 @@ export interface RouteMatch {
   params: Record<string, string>;
 }
 
-const Sites = lazyScreen<ScreenProps>(() => import('../screens/Sites'));
-const SiteForm = lazyScreen<ScreenProps>(() => import('../screens/SiteForm'));
-const SiteReadings = lazyScreen<ScreenProps>(() => import('../screens/SiteReadings'));
-const Record = lazyScreen<ScreenProps>(() => import('../screens/Record'));
-const Storm = lazyScreen<ScreenProps>(() => import('../screens/Storm'));
-const Data = lazyScreen<ScreenProps>(() => import('../screens/Data'));
-const Sync = lazyScreen<ScreenProps>(() => import('../screens/Sync'));
-const Ratings = lazyScreen<ScreenProps>(() => import('../screens/Ratings'));
-const Gaugings = lazyScreen<ScreenProps>(() => import('../screens/Gaugings'));
-const LoggerImport = lazyScreen<ScreenProps>(() => import('../screens/LoggerImport'));
+const Sites = lazyScreen<ScreenProps>(() => import('../screens/Sites'), retry);
+const SiteForm = lazyScreen<ScreenProps>(() => import('../screens/SiteForm'), retry);
+const SiteReadings = lazyScreen<ScreenProps>(() => import('../screens/SiteReadings'), retry);
+const Record = lazyScreen<ScreenProps>(() => import('../screens/Record'), retry);
+const Storm = lazyScreen<ScreenProps>(() => import('../screens/Storm'), retry);
+const Data = lazyScreen<ScreenProps>(() => import('../screens/Data'), retry);
+const Sync = lazyScreen<ScreenProps>(() => import('../screens/Sync'), retry);
+const Ratings = lazyScreen<ScreenProps>(() => import('../screens/Ratings'), retry);
+const Gaugings = lazyScreen<ScreenProps>(() => import('../screens/Gaugings'), retry);
+const LoggerImport = lazyScreen<ScreenProps>(() => import('../screens/LoggerImport'), retry);
 
 /** Every page, literal patterns before the ones with a parameter in the same place. */
 export const ROUTES: readonly RouteEntry[] = [

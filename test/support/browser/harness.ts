@@ -78,16 +78,19 @@ export function freshProfile(): string {
 
 /**
  * Launches Chromium headless with a fresh profile (or `profile`, kept on close, for a test that kills
- * and restarts the browser on it); viewport defaults to a 360×640 phone.
+ * and restarts the browser on it); viewport defaults to a 360×640 phone. `serviceWorkers: 'block'` keeps
+ * every page uncontrolled, as on a first visit before the app is held on the phone.
  */
-export async function launchBrowser(options: { width?: number; height?: number; touch?: boolean; profile?: string } = {}): Promise<Browser> {
+export async function launchBrowser(
+  options: { width?: number; height?: number; touch?: boolean; profile?: string; serviceWorkers?: 'allow' | 'block' } = {},
+): Promise<Browser> {
   const profile = options.profile ?? freshProfile();
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: chromiumPath(),
     headless: true,
     args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
       '--disable-component-update', '--disable-sync'],
-    serviceWorkers: 'allow',
+    serviceWorkers: options.serviceWorkers ?? 'allow',
     viewport: { width: options.width ?? 360, height: options.height ?? 640 },
     hasTouch: options.touch ?? true,
     isMobile: false,

@@ -1,10 +1,11 @@
 // The office receiver under load: 50 simulated phones each push 20 bundles of 100 readings at the same
 // time to a receiver on 127.0.0.1 (PGlite in a temp folder, and a PostgreSQL server when one can be had:
 // office-engines.ts). The phones run in a thread of their own (office-phones-worker.ts), as other devices
-// would: their work is not counted against the receiver's thread. Checks every record is stored exactly once, then prints ms per bundle (wall time of
-// the whole load / bundles) beside its floor measured in the same run: the same kind of bundles' rows
-// inserted directly, one transaction per bundle, with no HTTP, checks or merge (half before the load, half
-// after, so a machine whose load drifts weighs on both alike); and the p95 push latency.
+// would: their work is not counted against the receiver's thread. Checks every record is stored exactly
+// once, then prints ms per bundle (wall time of the whole load / bundles) beside its floor measured in the
+// same run: the same kind of bundles' rows inserted directly, one statement (its own transaction) per
+// bundle, with no HTTP, checks or merge (half before the load, half after, so a machine whose load drifts
+// weighs on both alike); and the p95 push latency.
 import { performance } from 'node:perf_hooks';
 import type { Bundle } from '../../core/index';
 import type { Database } from '../../office/receiver/db';
@@ -48,7 +49,7 @@ async function startPhones(work: PhonesWork): Promise<() => Promise<PhonesResult
   };
 }
 
-// The floor: each bundle's rows written by one insert in its own transaction, one bundle after another.
+// The floor: each bundle's rows written by one insert statement, its own transaction, one bundle after another.
 async function bareInsertMs(db: Database, bundles: Bundle[]): Promise<number> {
   await db.exec('create table bench_floor (kind text, id uuid, rev text, deleted boolean, body jsonb, primary key (kind, id, rev))');
   const t0 = performance.now();
@@ -101,7 +102,7 @@ async function run(engine: string, db: Database): Promise<void> {
     value: totalMs / bundles,
     unit: 'ms per bundle',
     floor: floorMs,
-    floor_is: 'bare insert of a bundle\'s 100 rows, one transaction per bundle, no HTTP, checks or merge',
+    floor_is: 'bare insert of a bundle\'s 100 rows, one statement (its own transaction) per bundle, no HTTP, checks or merge',
     target: 'ratio <= 2.0, p95 < 500 ms',
     engine,
     p95_ms: sig3(p95),

@@ -63,6 +63,17 @@ function serve(db: PGlite): void {
     reply({ id, ok: false, error: plain(err), lost: aborted || db.closed });
   };
 
+  // One thing at a time on the engine, in arrival order: a statement, a script, or a transaction from its
+  // begin to its end. PGlite's named statements (pglite-named.ts) take only its query lock, not its
+  // transaction lock, so without this a statement sent alone could run inside another caller's open
+  // transaction and be undone with it. A transaction's own statements (tx given) run inside its turn.
+  let turn: Promise<unknown> = Promise.resolve();
+  const exclusive = <T>(work: () => Promise<T>): Promise<T> => {
+    const mine = turn.then(work, work);
+    turn = mine.then(() => undefined, () => undefined);
+    return mine;
+  };
+
   const query = async (m: Extract<EngineRequest, { op: 'query' }>): Promise<unknown[]> => {
     const t = m.tx === undefined ? undefined : open.get(m.tx);
     if (m.tx !== undefined && t === undefined) throw new Error(`no open transaction ${m.tx}`);
@@ -71,12 +82,12 @@ function serve(db: PGlite): void {
   };
 
   // A transaction stays open between messages: its callback waits for `end` to say commit or roll back.
-  const begin = (id: number): void => {
+  const begin = (id: number): Promise<void> => {
     const txNo = nextTx++;
     let decide: (commit: boolean) => void = () => {};
     const decided = new Promise<boolean>((resolve) => (decide = resolve));
     let begun = false;
-    db.transaction(async (tx) => {
+    return db.transaction(async (tx) => {
       begun = true;
       open.set(txNo, { tx, decide });
       done(id)(txNo);
@@ -93,13 +104,13 @@ function serve(db: PGlite): void {
   port.on('message', (m: EngineRequest) => {
     switch (m.op) {
       case 'query':
-        query(m).then(done(m.id), fail(m.id));
+        (m.tx === undefined ? exclusive(() => query(m)) : query(m)).then(done(m.id), fail(m.id));
         return;
       case 'exec':
-        db.exec(m.sql).then(() => done(m.id)(null), fail(m.id));
+        exclusive(() => db.exec(m.sql)).then(() => done(m.id)(null), fail(m.id));
         return;
       case 'begin':
-        begin(m.id);
+        void exclusive(() => begin(m.id));
         return;
       case 'end': {
         const t = open.get(m.tx);
@@ -112,7 +123,7 @@ function serve(db: PGlite): void {
         return;
       }
       case 'close':
-        db.close().then(() => done(m.id)(null), fail(m.id));
+        exclusive(() => db.close()).then(() => done(m.id)(null), fail(m.id));
         return;
     }
   });

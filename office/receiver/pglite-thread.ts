@@ -9,6 +9,9 @@ import { pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import type { Database, Queryable } from './db';
 
+/** Longest close() waits for the engine to close itself before stopping its thread, ms. */
+const CLOSE_WAIT_MS = 10_000;
+
 /** What the receiver asks of the engine's thread (id pairs a reply with its request; 0 is the opening). */
 export type EngineRequest =
   | { id: number; op: 'query'; sql: string; params: unknown[]; name?: string; tx?: number }
@@ -115,7 +118,8 @@ export async function openPgliteThread(dir: string): Promise<Database> {
     async close() {
       if (closed) return;
       try {
-        if (!lost) await call({ op: 'close' });
+        // The engine closes after whatever holds it; an engine that no longer answers is stopped anyway.
+        if (!lost) await Promise.race([call({ op: 'close' }), new Promise((resolve) => setTimeout(resolve, CLOSE_WAIT_MS).unref())]);
       } finally {
         closed = true;
         await worker.terminate();

@@ -1,43 +1,11 @@
 // One small database interface over the two engines the receiver runs on: PGlite (PostgreSQL compiled to
 // WebAssembly, in a folder) and a PostgreSQL server through `pg`. Everything above this file writes the
 // same SQL for both; the only differences handled here are connection handling and the result types.
-import { openPgliteThread } from './pglite-thread';
 import pg from 'pg';
+import type { Database, Queryable } from './database';
+import { openPgliteThread } from './pglite-thread';
 
-/** One query: positional parameters ($1, $2, …) and rows as plain objects. */
-export interface Queryable {
-  /**
-   * Runs one statement; bigint columns should be cast to text in the SQL (the engines return them
-   * differently). With a `name` the statement is prepared once per connection under that name and then
-   * only run (no parsing or planning again): give every column as text in the SQL, since a named
-   * statement's columns come back as text (or null) on PGlite.
-   */
-  query<T = Record<string, unknown>>(sql: string, params?: readonly unknown[], name?: string): Promise<T[]>;
-}
-
-/** A database the receiver can use: queries, transactions (all or nothing), several statements, close. */
-export interface Database extends Queryable {
-  /** Which engine: 'pglite' (a folder) or 'postgres' (a server). */
-  readonly engine: 'pglite' | 'postgres';
-  /** Runs fn in one transaction: committed when it resolves, rolled back when it throws. */
-  transaction<T>(fn: (tx: Queryable) => Promise<T>): Promise<T>;
-  /** Runs a script of several statements (migrations), with no parameters. */
-  exec(sql: string): Promise<void>;
-  /** Closes the connection(s); for PGlite, flushes the folder. */
-  close(): Promise<void>;
-  /**
-   * True once this database can answer nothing more and must be opened again (PGlite: its engine was
-   * closed or aborted; keep-open.ts then reopens it). Absent for a server, whose pool reconnects itself.
-   */
-  lost?(): boolean;
-  /**
-   * A server only: takes transaction advisory lock `lock`, then runs `sql` (prepared once per connection
-   * under `name`) with `params`, as one message to the server: one transaction, one round trip, so the lock
-   * is held only while the server works. Each statement of the message sees what was committed before it
-   * started, so the statement sees every transaction that held the lock before. Rows of `sql` come back.
-   */
-  lockedRun?<T>(lock: number, name: string, sql: string, params: readonly unknown[]): Promise<T[]>;
-}
+export type { Database, Queryable } from './database';
 
 /** Opens (and on first use creates) a PGlite database in folder `dir`, in a thread of its own; creating one takes ~10–30 s. */
 export function openPglite(dir: string): Promise<Database> {

@@ -7,7 +7,7 @@
 import { createRequire } from 'node:module';
 import { pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import type { Database, Queryable } from './db';
+import type { Database, Queryable } from './database';
 
 /** Longest close() waits for the engine to close itself before stopping its thread, ms. */
 const CLOSE_WAIT_MS = 10_000;

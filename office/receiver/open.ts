@@ -91,7 +91,12 @@ function lockFolder(dir: string): () => void {
       writeSync(fd, String(process.pid));
       closeSync(fd);
       // Only its own lock is removed: after a lost engine let go of the folder, another process may hold it.
+      // And only once: a later open in this same process (the receiver reopening) holds a lock of the same
+      // process id, which a second close of this one must not remove.
+      let released = false;
       return () => {
+        if (released) return;
+        released = true;
         try {
           if (readFileSync(file, 'utf8').trim() === String(process.pid)) rmSync(file, { force: true });
         } catch {

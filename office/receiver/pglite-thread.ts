@@ -51,6 +51,7 @@ export async function openPgliteThread(dir: string): Promise<Database> {
   let nextId = 1;
   let lost = false;
   let closed = false;
+  let closing: Promise<void> | undefined;
   const stop = (why: Error) => {
     lost = true;
     for (const w of waiting.values()) w.reject(why);
@@ -115,15 +116,19 @@ export async function openPgliteThread(dir: string): Promise<Database> {
     async exec(sql) {
       await call({ op: 'exec', sql });
     },
-    async close() {
-      if (closed) return;
-      try {
-        // The engine closes after whatever holds it; an engine that no longer answers is stopped anyway.
-        if (!lost) await Promise.race([call({ op: 'close' }), new Promise((resolve) => setTimeout(resolve, CLOSE_WAIT_MS).unref())]);
-      } finally {
-        closed = true;
-        await worker.terminate();
-      }
+    // One close, however many callers ask (the receiver's reopening asks again while the first is under
+    // way): each waits for the engine to be closed and its thread gone, so the folder is free after it.
+    close() {
+      closing ??= (async () => {
+        try {
+          // The engine closes after whatever holds it; an engine that no longer answers is stopped anyway.
+          if (!lost) await Promise.race([call({ op: 'close' }), new Promise((resolve) => setTimeout(resolve, CLOSE_WAIT_MS).unref())]);
+        } finally {
+          closed = true;
+          await worker.terminate();
+        }
+      })();
+      return closing;
     },
     lost: () => lost || closed,
   };

@@ -33,42 +33,28 @@ export async function openPostgres(url: string, poolSize = 10): Promise<Database
     ...wrap(pool),
     async lockedRun<T>(lock: number, name: string, sql: string, params: readonly unknown[]) {
       if (!Number.isSafeInteger(lock) || !/^[a-z_][a-z0-9_]*$/.test(name)) throw new RangeError(`lockedRun needs a whole lock key and a plain statement name; got ${lock}, ${name}`);
-      const client = await pool.connect();
-      let broken = false;
-      const lost = () => {
-        broken = true;
-      };
-      client.on('error', lost);
-      try {
-        let names = preparedOn.get(client);
-        if (names === undefined) preparedOn.set(client, (names = new Set()));
-        if (!names.has(name)) {
-          await client.query(`prepare ${name} as ${sql}`);
-          names.add(name);
+      return withClient(pool, async (client, broken) => {
+        try {
+          let names = preparedOn.get(client);
+          if (names === undefined) preparedOn.set(client, (names = new Set()));
+          if (!names.has(name)) {
+            await client.query(`prepare ${name} as ${sql}`);
+            names.add(name);
+          }
+          // A message of several statements is one transaction (the protocol's implicit one): an error in
+          // any of them undoes all of them. The parameters travel as quoted literals.
+          const results = (await client.query(
+            `select pg_advisory_xact_lock(${lock}); execute ${name}(${params.map(literal).join(', ')})`,
+          )) as unknown as pg.QueryResult[];
+          return results[results.length - 1].rows as T[];
+        } catch (err) {
+          // No SQLSTATE: the connection itself failed, not a statement.
+          if ((err as { code?: unknown }).code === undefined) broken();
+          throw err;
         }
-        // A message of several statements is one transaction (the protocol's implicit one): an error in
-        // any of them undoes all of them. The parameters travel as quoted literals.
-        const results = (await client.query(
-          `select pg_advisory_xact_lock(${lock}); execute ${name}(${params.map(literal).join(', ')})`,
-        )) as unknown as pg.QueryResult[];
-        return results[results.length - 1].rows as T[];
-      } catch (err) {
-        if ((err as { code?: unknown }).code === undefined) broken = true;
-        throw err;
-      } finally {
-        client.removeListener('error', lost);
-        client.release(broken);
-      }
+      });
     },
-    async transaction(fn) {
-      const client = await pool.connect();
-      let broken = false;
-      // A connection lost while checked out (the server restarted) is reported on the client as an
-      // 'error' event as well as by the query under way: without a listener the process would exit.
-      const lost = () => {
-        broken = true;
-      };
-      client.on('error', lost);
+    transaction: (fn) => withClient(pool, async (client, broken) => {
       try {
         await client.query('begin');
         const out = await fn(wrap(client));
@@ -79,14 +65,11 @@ export async function openPostgres(url: string, poolSize = 10): Promise<Database
           await client.query('rollback');
         } catch {
           // The connection itself failed: it must not go back into the pool.
-          broken = true;
+          broken();
         }
         throw err;
-      } finally {
-        client.removeListener('error', lost);
-        client.release(broken);
       }
-    },
+    }),
     async exec(sql) {
       await pool.query(sql);
     },
@@ -101,4 +84,22 @@ function literal(x: unknown): string {
   if (typeof x === 'number' && Number.isSafeInteger(x)) return String(x);
   if (typeof x === 'string') return pg.escapeLiteral(x);
   throw new TypeError(`lockedRun takes text, whole numbers or null as parameters; got ${typeof x}`);
+}
+
+// A pool connection for `use`, given back afterwards; one that failed (`use` calls broken(), or the server
+// went away) is dropped rather than put back. A connection lost while checked out is reported on the client
+// as an 'error' event as well as by the query under way: without a listener the process would exit.
+async function withClient<T>(pool: pg.Pool, use: (client: pg.PoolClient, broken: () => void) => Promise<T>): Promise<T> {
+  const client = await pool.connect();
+  let isBroken = false;
+  const broken = () => {
+    isBroken = true;
+  };
+  client.on('error', broken);
+  try {
+    return await use(client, broken);
+  } finally {
+    client.removeListener('error', broken);
+    client.release(isBroken);
+  }
 }

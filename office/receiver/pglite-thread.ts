@@ -4,10 +4,8 @@
 // thread the two run side by side on a machine with two cores or more (`npm run bench`: the receiver's
 // ms per bundle on PGlite). Statements and transactions travel as messages; a transaction holds the engine
 // from its begin to its end, so every other statement waits for it, as PGlite has always run them.
-import { createRequire } from 'node:module';
-import { pathToFileURL } from 'node:url';
-import { Worker } from 'node:worker_threads';
 import type { Database, Queryable } from './database';
+import { startTsWorker } from './ts-worker';
 
 /** Longest close() waits for the engine to close itself before stopping its thread, ms. */
 const CLOSE_WAIT_MS = 10_000;
@@ -35,18 +33,9 @@ function revive(data: Record<string, unknown>): Error {
   return err;
 }
 
-// A worker loads its entry file before any loader hook of its own, so it first registers tsx (a dependency,
-// as bin/freshet.mjs does in the main thread) and then imports the engine's TypeScript file.
-// tsx's exports map gives `tsx/esm/api` as index.cjs for require and index.mjs, beside it, for import.
-function bootCode(): string {
-  const tsx = pathToFileURL(createRequire(import.meta.url).resolve('tsx/esm/api').replace(/\.cjs$/, '.mjs')).href;
-  const entry = new URL('./pglite-engine.ts', import.meta.url).href;
-  return `import(${JSON.stringify(tsx)}).then((tsx) => { tsx.register(); return import(${JSON.stringify(entry)}); })`;
-}
-
 /** Opens (and on first use creates) a PGlite database in folder `dir`, in a thread of its own. */
 export async function openPgliteThread(dir: string): Promise<Database> {
-  const worker = new Worker(bootCode(), { eval: true, workerData: { dir } });
+  const worker = startTsWorker(new URL('./pglite-engine.ts', import.meta.url), { dir });
   const waiting = new Map<number, { resolve: (v: unknown) => void; reject: (e: Error) => void }>();
   let nextId = 1;
   let lost = false;

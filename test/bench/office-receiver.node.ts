@@ -11,7 +11,7 @@ import type { Bundle } from '../../core/index';
 import type { Database } from '../../office/receiver/db';
 import { createDevice } from '../../office/receiver/devices';
 import { createReceiver } from '../../office/receiver/http';
-import { Worker } from 'node:worker_threads';
+import { startTsWorker } from '../../office/receiver/ts-worker';
 import { bundleOf, readingRecords } from '../support/office/phones';
 import type { PhonesResult, PhonesWork } from './office-phones-worker';
 import { figure, sig3 } from './measure';
@@ -30,10 +30,7 @@ function floorBundles(n: number): Bundle[] {
 // Starts the phones' thread; resolves once every phone has made its bundles, to a function that starts the
 // pushes and resolves when all are answered.
 async function startPhones(work: PhonesWork): Promise<() => Promise<PhonesResult>> {
-  // A worker's entry file is loaded before any loader hook of its own: it first registers tsx, then imports.
-  const entry = new URL('./office-phones-worker.ts', import.meta.url).href;
-  const boot = `import('tsx/esm/api').then((tsx) => { tsx.register(); return import(${JSON.stringify(entry)}); })`;
-  const worker = new Worker(boot, { eval: true, workerData: work });
+  const worker = startTsWorker(new URL('./office-phones-worker.ts', import.meta.url), work);
   const failed = new Promise<never>((_, reject) => {
     worker.once('error', reject);
     worker.once('exit', (code) => reject(new Error(`the benchmark's phones thread stopped (exit ${code})`)));

@@ -10,7 +10,7 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import { decide, formatRev, type SyncRecord } from '../../core/index';
 import { openPglite, type Database } from '../../office/receiver/db';
 import { siteRecordsFromDatabase } from '../../office/receiver/export-source';
-import { MIGRATIONS, migrate } from '../../office/receiver/migrations';
+import { migrate } from '../../office/receiver/migrations';
 import { readingRecords, siteRecord, SITE_ID, T0_MS } from '../support/office/phones';
 
 const dir = mkdtempSync(join(tmpdir(), 'freshet-office-migrate-'));

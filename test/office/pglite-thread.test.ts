@@ -2,39 +2,20 @@
 // engine. A bundle stored by its one statement while another caller's transaction is open must wait for
 // that transaction, and must not be undone when that transaction rolls back; errors keep the database's
 // own fields (SQLSTATE code), which the receiver's refusals are built on.
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { afterAll, beforeAll, expect, it } from 'vitest';
-import type { Database } from '../../office/receiver/db';
-import { createDevice } from '../../office/receiver/devices';
-import { openOfficeDatabase } from '../../office/receiver/open';
+import { expect, it } from 'vitest';
 import { storeBundle } from '../../office/receiver/store';
 import { bundleOf, readingRecords } from '../support/office/phones';
+import { useOfficeFolder } from '../support/office/office-folder';
 
-const dir = mkdtempSync(join(tmpdir(), 'freshet-office-thread-'));
-let db: Database;
-let deviceNo = 0;
+const office = useOfficeFolder('freshet-office-thread-', 'thread phone');
 
-beforeAll(async () => {
-  db = await openOfficeDatabase({ data: dir });
-  await createDevice(db, 'thread phone');
-  const [d] = await db.query<{ device_no: number }>('select device_no from office_devices');
-  deviceNo = Number(d.device_no);
-}, 120_000);
-
-afterAll(async () => {
-  await db?.close();
-  rmSync(dir, { recursive: true, force: true });
-});
-
-const count = async (table: string) => Number((await db.query<{ n: string }>(`select count(*)::text as n from ${table}`))[0].n);
+const count = async (table: string) => Number((await office.db.query<{ n: string }>(`select count(*)::text as n from ${table}`))[0].n);
 
 it('stores a bundle sent while another transaction is open after that transaction, and keeps it when that one rolls back', async () => {
   let release: () => void = () => {};
   const held = new Promise<void>((resolve) => (release = resolve));
   let inside = false;
-  const other = db.transaction(async (tx) => {
+  const other = office.db.transaction(async (tx) => {
     await tx.query(`insert into office_devices (name, token_hash) values ('rolled back', 'x')`);
     inside = true;
     await held;
@@ -42,7 +23,7 @@ it('stores a bundle sent while another transaction is open after that transactio
   });
   while (!inside) await new Promise((r) => setTimeout(r, 5));
   const bundle = bundleOf('dev-a', readingRecords('dev-a', 20));
-  const stored = storeBundle(db, bundle, deviceNo);
+  const stored = storeBundle(office.db, bundle, office.deviceNo);
   // The statement waits for the open transaction rather than running inside it.
   const early = await Promise.race([stored.then(() => 'stored'), new Promise((r) => setTimeout(() => r('waiting'), 300))]);
   expect(early).toBe('waiting');
@@ -51,13 +32,13 @@ it('stores a bundle sent while another transaction is open after that transactio
   expect(await stored).toMatchObject({ status: 'stored', newVersions: 20 });
   expect(await count('office_bundles')).toBe(1);
   expect(await count('record_versions')).toBe(20);
-  expect((await db.query(`select 1 from office_devices where name = 'rolled back'`)).length).toBe(0);
+  expect((await office.db.query(`select 1 from office_devices where name = 'rolled back'`)).length).toBe(0);
 }, 60_000);
 
 it('hands back the database\'s error with its SQLSTATE code, and answers again after it', async () => {
-  const err = await db.query(`select 'not a number'::int`).catch((e: unknown) => e);
+  const err = await office.db.query(`select 'not a number'::int`).catch((e: unknown) => e);
   expect(err).toBeInstanceOf(Error);
   expect((err as { code?: string }).code).toBe('22P02');
-  expect(await db.query<{ one: number }>('select 1 as one')).toEqual([{ one: 1 }]);
-  expect(db.lost?.()).toBe(false);
+  expect(await office.db.query<{ one: number }>('select 1 as one')).toEqual([{ one: 1 }]);
+  expect(office.db.lost?.()).toBe(false);
 }, 60_000);

@@ -3,33 +3,14 @@
 // over the versions, with revisions compared as ECMAScript compares strings (UTF-16 code units, ECMA-262
 // §7.2.13 IsLessThan); the revisions include device ids that differ only in case, '-' or '_', where a
 // language collation (en_US and the like) would order them differently from that.
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { afterAll, beforeAll, expect, it } from 'vitest';
+import { expect, it } from 'vitest';
 import { decide, formatRev, type SyncRecord } from '../../core/index';
-import type { Database } from '../../office/receiver/db';
-import { createDevice } from '../../office/receiver/devices';
-import { openOfficeDatabase } from '../../office/receiver/open';
 import { storeBundle } from '../../office/receiver/store';
 import { uniformGenerator } from '../support/noise';
 import { bundleOf, siteRecord, T0_MS } from '../support/office/phones';
+import { useOfficeFolder } from '../support/office/office-folder';
 
-const dir = mkdtempSync(join(tmpdir(), 'freshet-office-merge-'));
-let db: Database;
-let deviceNo = 0;
-
-beforeAll(async () => {
-  db = await openOfficeDatabase({ data: dir });
-  await createDevice(db, 'merge phone');
-  const [d] = await db.query<{ device_no: number }>('select device_no from office_devices');
-  deviceNo = Number(d.device_no);
-}, 120_000);
-
-afterAll(async () => {
-  await db?.close();
-  rmSync(dir, { recursive: true, force: true });
-});
+const office = useOfficeFolder('freshet-office-merge-', 'merge phone');
 
 // Devices whose ids sort differently by code unit and by a language collation ('A' < '_' < 'a' by code unit).
 const DEVICES = ['Ab', 'ab', 'a-b', 'a_b', 'aB', 'b'];
@@ -68,17 +49,17 @@ it('chooses the current version as core/sync decide does, for any arrival order 
   // Bundles of 1 to 7 versions, so some records meet several of their versions within one bundle.
   for (let at = 0; at < all.length; ) {
     const size = 1 + Math.floor(u() * 7);
-    const out = await storeBundle(db, bundleOf('merge', all.slice(at, at + size)), deviceNo);
+    const out = await storeBundle(office.db, bundleOf('merge', all.slice(at, at + size)), office.deviceNo);
     expect(out.status).toBe('stored');
     at += size;
   }
-  const rows = await db.query<{ id: string; rev: string; deleted: boolean; name: string }>(
+  const rows = await office.db.query<{ id: string; rev: string; deleted: boolean; name: string }>(
     `select id::text as id, rev, deleted, body ->> 'name' as name from current_records order by id`);
   const expected = ids.map((id) => {
     const w = coreWinner(all.filter((v) => v.id === id));
     return { id, rev: w.rev, deleted: w.deleted === true, name: (w.body as { name: string }).name };
   });
   expect(rows).toEqual(expected);
-  const [n] = await db.query<{ n: string }>('select count(*)::text as n from record_versions');
+  const [n] = await office.db.query<{ n: string }>('select count(*)::text as n from record_versions');
   expect(Number(n.n)).toBe(all.length);
 }, 120_000);

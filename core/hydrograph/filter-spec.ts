@@ -62,8 +62,8 @@ export function filterSpec(method: FilterMethod): FilterSpec {
         note: (step) => perStepNote('Recession constant', a, step),
         run: (q, step) => eckhardt(q, bfiMax, perStep(a, step)),
         runChecked: (t, q, step, follower) => {
-          const { carry, gain } = eckhardtCoefficients(bfiMax, perStep(a, step));
-          return firstOrderFilterChecked(t, q, carry, gain, bfiMax, follower);
+          const { drain, gain } = eckhardtCoefficients(bfiMax, perStep(a, step));
+          return firstOrderFilterChecked(t, q, drain, gain, bfiMax, follower);
         },
       };
     }
@@ -74,8 +74,8 @@ export function filterSpec(method: FilterMethod): FilterSpec {
         note: (step) => perStepNote('Recession constant', k, step),
         run: (q, step) => chapmanMaxwell(q, perStep(k, step)),
         runChecked: (t, q, step, follower) => {
-          const { carry, gain } = chapmanMaxwellCoefficients(perStep(k, step));
-          return firstOrderFilterChecked(t, q, carry, gain, 0.5, follower);
+          const { drain, gain } = chapmanMaxwellCoefficients(perStep(k, step));
+          return firstOrderFilterChecked(t, q, drain, gain, 0.5, follower);
         },
       };
     }

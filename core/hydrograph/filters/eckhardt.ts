@@ -1,13 +1,14 @@
 // Eckhardt (2005) two-parameter recursive digital filter.
 import { firstOrderFilter } from './first-order';
 
-/** Coefficients of b_k = carry·b_{k−1} + gain·Q_k for Eckhardt's filter with the recession constant per step. */
-export function eckhardtCoefficients(bfiMax: number, recessionPerStep: number): { carry: number; gain: number } {
-  const denominator = 1 - recessionPerStep * bfiMax;
-  return {
-    carry: ((1 - bfiMax) * recessionPerStep) / denominator,
-    gain: ((1 - recessionPerStep) * bfiMax) / denominator,
-  };
+/**
+ * Coefficients of b_k = b_{k−1} − drain·b_{k−1} + gain·Q_k for Eckhardt's filter with the recession constant a
+ * per step: carry = (1 − BFImax)·a/(1 − a·BFImax), drain = 1 − carry = (1 − a)/(1 − a·BFImax) and
+ * gain = BFImax·drain, so that gain/drain (the level under steady flow, over Q) is BFImax to rounding.
+ */
+export function eckhardtCoefficients(bfiMax: number, recessionPerStep: number): { drain: number; gain: number } {
+  const drain = (1 - recessionPerStep) / (1 - recessionPerStep * bfiMax);
+  return { drain, gain: bfiMax * drain };
 }
 
 /**
@@ -16,6 +17,6 @@ export function eckhardtCoefficients(bfiMax: number, recessionPerStep: number): 
  * starting at the steady-state value b₀ = BFImax·Q₀.
  */
 export function eckhardt(q: Float64Array, bfiMax: number, recessionPerStep: number): Float64Array {
-  const { carry, gain } = eckhardtCoefficients(bfiMax, recessionPerStep);
-  return firstOrderFilter(q, carry, gain, bfiMax);
+  const { drain, gain } = eckhardtCoefficients(bfiMax, recessionPerStep);
+  return firstOrderFilter(q, drain, gain, bfiMax);
 }

@@ -86,11 +86,11 @@ export function lyneHollickChecked(
     body[0] = q[0];
     from = 1;
   }
-  // A NaN or infinity anywhere makes the sums non-finite; steps are tested as in firstOrderFilterChecked.
+  // Steps and discharges are tested as in firstOrderFilterChecked: a sum of squared step deviations, and a
+  // sum of |Q| − Q that is exactly 0 only when every discharge is finite and ≥ 0.
   const step0 = t[1] - t[0];
   let deviation2 = 0;
-  let qMin = q[0];
-  let qSum = 0;
+  let negative = 0;
   let previousT = from === 0 ? t[0] - step0 : t[0];
   for (let k = from; k < n; k++) {
     const xk = q[k];
@@ -98,13 +98,12 @@ export function lyneHollickChecked(
     const d = tk - previousT - step0;
     previousT = tk;
     deviation2 += d * d;
-    qSum += xk;
-    qMin = xk < qMin ? xk : qMin;
+    negative += Math.abs(xk) - xk;
     f = quickflowStep(f, alpha, c, xk, previous);
     previous = xk;
     body[k] = xk - f;
   }
-  if (!(regularEnough(deviation2, step0) && qMin >= 0 && qSum < Infinity)) return null;
+  if (!(regularEnough(deviation2, step0) && negative === 0)) return null;
   for (let k = 0; k < r; k++) {
     const xk = tail[k];
     f = quickflowStep(f, alpha, c, xk, previous);

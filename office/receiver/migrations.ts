@@ -111,6 +111,17 @@ export const MIGRATIONS: readonly string[] = [
       using errcode = 'P0001', hint = 'freshet: revision reused', detail = clashes::text;
   end $$;
   `,
+  // Step 6: bundle documents (tens of kB of JSON each) are compressed with LZ4 where the server has it:
+  // PostgreSQL's own method took about 0.8 ms more per bundle, inside the push lock. Documents stored
+  // before keep their method (both read back alike); an engine without LZ4 (PGlite) keeps its own.
+  `
+  do $$
+  begin
+    if exists (select 1 from pg_settings where name = 'default_toast_compression' and 'lz4' = any(enumvals)) then
+      alter table office_bundles alter column document set compression lz4;
+    end if;
+  end $$;
+  `,
 ];
 
 /** Brings the database's schema up to step `upTo` (the latest by default); returns the step numbers it applied. */

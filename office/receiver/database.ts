@@ -28,10 +28,9 @@ export interface Database extends Queryable {
    */
   lost?(): boolean;
   /**
-   * A server only: takes transaction advisory lock `lock`, then runs `sql` (prepared once per connection
-   * under `name`) with `params`, as one message to the server: one transaction, one round trip, so the lock
-   * is held only while the server works. Each statement of the message sees what was committed before it
-   * started, so the statement sees every transaction that held the lock before. Rows of `sql` come back.
+   * A server only: runs `sql` with `params` as a statement prepared under `name` on one connection of the
+   * pool, after running `setup` there once (say, creating a function of the connection's own session that
+   * `sql` calls). One statement and one round trip; on its own it is one transaction. Rows of `sql` come back.
    */
-  lockedRun?<T>(lock: number, name: string, sql: string, params: readonly unknown[]): Promise<T[]>;
+  onConnection?<T>(name: string, setup: string, sql: string, params: readonly unknown[]): Promise<T[]>;
 }

@@ -27,26 +27,21 @@ export async function openPostgres(url: string, poolSize = 10): Promise<Database
       return r.rows as T[];
     },
   });
-  const preparedOn = new WeakMap<pg.PoolClient, Set<string>>();
+  const setUpOn = new WeakMap<pg.PoolClient, Set<string>>();
   return {
     engine: 'postgres',
     ...wrap(pool),
-    async lockedRun<T>(lock: number, name: string, sql: string, params: readonly unknown[]) {
-      if (!Number.isSafeInteger(lock) || !/^[a-z_][a-z0-9_]*$/.test(name)) throw new RangeError(`lockedRun needs a whole lock key and a plain statement name; got ${lock}, ${name}`);
+    async onConnection<T>(name: string, setup: string, sql: string, params: readonly unknown[]) {
       return withClient(pool, async (client, broken) => {
         try {
-          let names = preparedOn.get(client);
-          if (names === undefined) preparedOn.set(client, (names = new Set()));
+          let names = setUpOn.get(client);
+          if (names === undefined) setUpOn.set(client, (names = new Set()));
           if (!names.has(name)) {
-            await client.query(`prepare ${name} as ${sql}`);
+            await client.query(setup);
             names.add(name);
           }
-          // A message of several statements is one transaction (the protocol's implicit one): an error in
-          // any of them undoes all of them. The parameters travel as quoted literals.
-          const results = (await client.query(
-            `select pg_advisory_xact_lock(${lock}); execute ${name}(${params.map(literal).join(', ')})`,
-          )) as unknown as pg.QueryResult[];
-          return results[results.length - 1].rows as T[];
+          // pg prepares the named statement on this connection the first time it runs here.
+          return (await client.query({ name, text: sql, values: [...params] })).rows as T[];
         } catch (err) {
           // No SQLSTATE: the connection itself failed, not a statement.
           if ((err as { code?: unknown }).code === undefined) broken();
@@ -75,15 +70,6 @@ export async function openPostgres(url: string, poolSize = 10): Promise<Database
     },
     close: () => pool.end(),
   };
-}
-
-// A parameter as an SQL literal for `execute`: null, a whole number as digits, text quoted by pg's own
-// escaping (quotes doubled; backslashes doubled in an E'' string).
-function literal(x: unknown): string {
-  if (x === null || x === undefined) return 'null';
-  if (typeof x === 'number' && Number.isSafeInteger(x)) return String(x);
-  if (typeof x === 'string') return pg.escapeLiteral(x);
-  throw new TypeError(`lockedRun takes text, whole numbers or null as parameters; got ${typeof x}`);
 }
 
 // A pool connection for `use`, given back afterwards; one that failed (`use` calls broken(), or the server

@@ -79,8 +79,8 @@ export function describeProtocol(engine: Engine): void {
       expect(forA.bundles.map((b) => b.id)).toEqual([b1.id]);
     });
 
-    // The statement's parameters reach a server as quoted literals (Database.lockedRun) and PGlite as bytes
-    // when long: text that SQL quoting or an encoder could get wrong must come back exactly as sent.
+    // The statement's parameters reach a server through a function of the session (store.ts) and PGlite as
+    // bytes when long: text that SQL quoting or an encoder could get wrong must come back exactly as sent.
     it('stores text with quotes, backslashes, dollar quotes and characters beyond the BMP exactly as sent', async () => {
       const awkward = "it's \\ a back\\slash, E'x' and $$; drop table record_versions; -- \"quoted\" \u{1F30A} ña\u00A0";
       const [r, ...rest] = readingRecords('dev-a', 60);

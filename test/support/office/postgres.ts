@@ -2,6 +2,7 @@
 // printed reason why the server tests do not run here.
 import { randomBytes } from 'node:crypto';
 import pg from 'pg';
+import { describe, it } from 'vitest';
 
 /** The server URL for tests, or undefined when none was given. */
 export const POSTGRES_URL = process.env.FRESHET_TEST_POSTGRES_URL;
@@ -31,4 +32,16 @@ export async function throwawayDatabase(prefix: string): Promise<{ url: string; 
       await c.end();
     },
   };
+}
+
+/**
+ * describe() for tests that need the server: when none was given, one skipped test in its place saying why
+ * (.ci/run always gives one, so CI runs them all).
+ */
+export function describeOnPostgres(file: string, title: string, body: () => void): void {
+  if (skipWithoutPostgres(file)) {
+    describe(title, () => {
+      it.skip('needs a PostgreSQL server: set FRESHET_TEST_POSTGRES_URL (.ci/run starts one)', () => {});
+    });
+  } else describe(title, body);
 }
